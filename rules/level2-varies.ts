@@ -1,0 +1,68 @@
+import { defineRule } from '../src/rules/define.js';
+import { key } from '../src/profile/sql.js';
+
+interface Params {
+  tolerance: number;
+}
+
+/** A level-2 variable takes one value per group by definition; anything else is a data error. */
+export default defineRule<Params>({
+  meta: {
+    id: 'level2-varies',
+    title: 'Level-2 variable varies within a group',
+    level: 'structure',
+    defaultSeverity: 'blocker',
+    description:
+      'A variable declared as level-2 (a property of the group) takes more than one value inside a ' +
+      'group. Either the records disagree about their group (a merge or entry error) or the variable ' +
+      'is really level-1 and should be declared so and split into a group mean and a deviation.',
+    params: {
+      type: 'object',
+      properties: {
+        tolerance: {
+          type: 'number',
+          minimum: 0,
+          default: 0,
+          description: 'numeric variables: the largest within-group range still read as constant (rounding)',
+        },
+      },
+      additionalProperties: false,
+    },
+    messages: {
+      varies: {
+        message: '{column} is declared level-2 but takes more than one value in {count} group(s): {values}',
+        fix: 'Ask the sender which {column} is right for each listed group and to correct the listed records so each group has one value',
+      },
+    },
+    sources: [
+      'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.), ch. 2–3: a level-2 variable has one value per group (definition)',
+      'Raudenbush, S. W., & Bryk, A. S. (2002). Hierarchical Linear Models (2nd ed.), ch. 2',
+    ],
+  },
+  async check({ profile, roles, params, lookup }) {
+    const findings = [];
+    for (const column of roles.level2) {
+      const col = profile.column(column);
+      const numericType = col.numericProfiled && col.type !== 'categorical';
+      const ids = profile.groups.array('group') as string[];
+      const lo = profile.groups.array(key(column, numericType ? 'nmin' : 'nd')) as number[];
+      const hi = numericType ? (profile.groups.array(key(column, 'nmax')) as number[]) : [];
+      const groups = ids.filter((_, i) => (numericType ? hi[i] - lo[i] > params.tolerance : lo[i] > 1));
+      if (groups.length === 0) continue;
+      const seen = await lookup.valuesInGroups(column, groups.slice(0, 20));
+      const values = groups
+        .slice(0, 20)
+        .map((g) => `${g}: ${(seen.get(g) ?? []).map((v) => `${v.value} ×${v.count}`).join(' / ')}`);
+      findings.push({
+        messageId: 'varies',
+        column,
+        count: groups.length,
+        groups,
+        values,
+        data: { column, count: groups.length },
+        rows: await lookup.rowsDeviating(column, groups, numericType ? params.tolerance : null),
+      });
+    }
+    return findings;
+  },
+});

@@ -1,0 +1,76 @@
+import type { ColumnTable } from 'arquero';
+import type { Roles, ValueType } from '../roles/types.js';
+import { key } from './sql.js';
+import type { ProfileColumnPlan } from './sql.js';
+import { roleOf } from './role-of.js';
+import type { ColumnProfile } from './types.js';
+
+/** Summarise one column over all groups (the missing-ID group included) of the raw profile. */
+export function columnProfile(
+  name: string,
+  roles: Roles,
+  raw: ColumnTable,
+  plan: ProfileColumnPlan | undefined,
+  rows: number,
+  missingGroupRows: number,
+): ColumnProfile {
+  const role = roleOf(name, roles);
+  if (!plan) {
+    // the group column itself: it is the key of the profile
+    const ids = raw.array('group').filter((g) => g !== null) as string[];
+    return base(name, role, 'categorical', rows - missingGroupRows, rows, minOf(ids), maxOf(ids));
+  }
+  const nonMissing = sum(raw.array(key(name, 'nn')) as number[]);
+  const mins = (raw.array(key(name, 'min')) as (string | null)[]).filter(notNull);
+  const maxs = (raw.array(key(name, 'max')) as (string | null)[]).filter(notNull);
+  const p = base(name, role, 'categorical', nonMissing, rows, minOf(mins), maxOf(maxs));
+  if (!plan.numeric) return { ...p, type: roles.types[name] ?? 'categorical' };
+
+  const num = raw.array(key(name, 'num')) as number[];
+  const means = raw.array(key(name, 'mean')) as (number | null)[];
+  const ss = raw.array(key(name, 'ss')) as (number | null)[];
+  const numeric = sum(num);
+  let total = 0;
+  let squares = 0;
+  for (let i = 0; i < num.length; i++) {
+    if (!num[i]) continue;
+    total += num[i] * (means[i] as number);
+    squares += (ss[i] as number) + num[i] * (means[i] as number) ** 2;
+  }
+  const numMin = minOf((raw.array(key(name, 'nmin')) as (number | null)[]).filter(notNull));
+  const numMax = maxOf((raw.array(key(name, 'nmax')) as (number | null)[]).filter(notNull));
+  const mean = numeric ? total / numeric : null;
+  // all values in {0, 1} ⇔ range [0, 1] and Σx = Σx² (x(1 − x) ≥ 0 on [0, 1], zero only at 0 and 1)
+  const zeroOne = numeric > 0 && numMin === 0 && numMax === 1 && Math.abs(squares - total) <= 1e-9 * Math.max(1, total);
+  // a declared variable with a few stray tokens ("n/a", "<5") is still numeric; the tokens are
+  // reported by their own rule rather than turning the whole column into text
+  const isVariable = role === 'outcome' || role === 'level1' || role === 'level2';
+  const mostlyNumeric = numeric > 0 && (numeric === nonMissing || (isVariable && numeric >= 0.95 * nonMissing));
+  const inferred: ValueType = mostlyNumeric ? (zeroOne ? 'binary' : 'numeric') : 'categorical';
+  const type = roles.types[name] ?? inferred;
+  return { ...p, type, numericProfiled: true, numeric, numMin, numMax, mean };
+}
+
+function base(
+  name: string,
+  role: ColumnProfile['role'],
+  type: ValueType,
+  nonMissing: number,
+  rows: number,
+  min: string | null,
+  max: string | null,
+): ColumnProfile {
+  return {
+    name, role, type, numericProfiled: false, nonMissing, missing: rows - nonMissing,
+    numeric: 0, min, max, numMin: null, numMax: null, mean: null,
+  };
+}
+
+const notNull = <T,>(v: T | null): v is T => v !== null;
+const sum = (xs: number[]) => xs.reduce((a, b) => a + (b ?? 0), 0);
+function minOf<T>(xs: T[]): T | null {
+  return xs.length ? xs.reduce((a, b) => (b < a ? b : a)) : null;
+}
+function maxOf<T>(xs: T[]): T | null {
+  return xs.length ? xs.reduce((a, b) => (b > a ? b : a)) : null;
+}

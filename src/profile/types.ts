@@ -1,0 +1,46 @@
+import type { ColumnTable } from 'arquero';
+import type { ValueType } from '../roles/types.js';
+import type { GroupMoments } from '../stats/types.js';
+import type { RejectedLine } from '../source/open.js';
+
+export type ColumnRole = 'group' | 'unit' | 'parent' | 'outcome' | 'level1' | 'level2' | 'other';
+
+/** Whole-delivery summary of one column, derived from the group table (no extra scan). */
+export interface ColumnProfile {
+  name: string;
+  role: ColumnRole;
+  type: ValueType;
+  /** whether per-group numeric statistics were computed for this column */
+  numericProfiled: boolean;
+  nonMissing: number;
+  missing: number;
+  /** non-missing values that read as numbers (only when numericProfiled) */
+  numeric: number;
+  min: string | null;
+  max: string | null;
+  numMin: number | null;
+  numMax: number | null;
+  mean: number | null;
+}
+
+/** The one profiling pass: every rule and statistic reads only this (plus bounded look-ups). */
+export interface Profile {
+  /** records read (rejected lines excluded) */
+  rows: number;
+  rejected: RejectedLine[];
+  header: string[];
+  /** records whose group ID is missing (they are not in `groups`) */
+  missingGroupRows: number;
+  /**
+   * One row per group with a non-missing ID. Columns: `group` (the ID as text), `n` (records),
+   * and per profiled column c: `c:nn` non-missing, `c:min`, `c:max` (as text); for numeric-profiled
+   * columns also `c:num` (numeric values), `c:nmin`, `c:nmax`, `c:mean`, `c:ss` (within-group sum of
+   * squares); for level-2 and parent columns `c:nd` (distinct non-missing values).
+   */
+  groups: ColumnTable;
+  /** one row per column, the fields of ColumnProfile */
+  columns: ColumnTable;
+  column(name: string): ColumnProfile;
+  /** per-group moments of a numeric-profiled column, groups with no value dropped */
+  moments(name: string): GroupMoments[];
+}

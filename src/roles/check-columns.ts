@@ -1,0 +1,26 @@
+import { InputError } from '../errors.js';
+import type { Roles } from './types.js';
+
+type Locate = (path: (string | number)[]) => string;
+
+/** Every column the role map names must be in the delivery's header; the error lists the header. */
+export function checkColumns(roles: Roles, header: readonly string[], locate: Locate, deliveryPath: string): void {
+  const named: [string, (string | number)[]][] = [];
+  const add = (column: string | undefined, path: (string | number)[]) => column !== undefined && named.push([column, path]);
+  add(roles.group, ['group']);
+  add(roles.unit, ['unit']);
+  add(roles.parent, ['parent']);
+  roles.outcomes.forEach((c, i) => add(c, ['outcomes', i]));
+  roles.level1.forEach((c, i) => add(c, ['level1', i]));
+  roles.level2.forEach((c, i) => add(c, ['level2', i]));
+  Object.keys(roles.types).forEach((c) => add(c, ['types', c]));
+  const have = new Set(header);
+  for (const [column, path] of named) {
+    if (have.has(column)) continue;
+    const near = header.find((h) => h.trim().toLowerCase() === column.trim().toLowerCase());
+    const hint = near ? ` (did you mean "${near}"?)` : '';
+    throw new InputError(
+      `${locate(path)}: column "${column}" is not in ${deliveryPath}${hint}; its header is: ${header.join(', ')}`,
+    );
+  }
+}

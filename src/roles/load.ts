@@ -1,0 +1,162 @@
+import { readFileSync } from 'node:fs';
+import { LineCounter, parseDocument, isNode } from 'yaml';
+import type { Document } from 'yaml';
+import type { ErrorObject } from 'ajv';
+import { InputError } from '../errors.js';
+import { createAjv, describeAjvError, pointerToPath } from '../util/ajv.js';
+import { DEFAULT_MISSING, roleMapSchema } from './schema.js';
+import type { Roles, RuleSetting, ValueType } from './types.js';
+import type { AnyRule } from '../rules/define.js';
+
+/** A parsed role map plus a way to point at any of its keys (for later errors). */
+export interface LoadedRoles {
+  roles: Roles;
+  file: string;
+  /** `file:line:col` of the key at `path` (or of the file when it cannot be found). */
+  locate(path: (string | number)[]): string;
+}
+
+/** Read, validate and normalise a role map file. Errors are one line naming file:line:col. */
+export function loadRoles(file: string, catalogue: readonly AnyRule[]): LoadedRoles {
+  let text: string;
+  try {
+    text = readFileSync(file, 'utf8');
+  } catch (e) {
+    throw new InputError(`${file}: cannot read the role map (${(e as NodeJS.ErrnoException).code ?? e})`);
+  }
+  return parseRoles(text, file, catalogue);
+}
+
+/** Validate and normalise role-map text; `file` is only used in messages. */
+export function parseRoles(text: string, file: string, catalogue: readonly AnyRule[]): LoadedRoles {
+  const lineCounter = new LineCounter();
+  const doc = parseDocument(text, { lineCounter, prettyErrors: false, uniqueKeys: true });
+  const at = (offset: number) => {
+    const { line, col } = lineCounter.linePos(offset);
+    return `${file}:${line}:${col}`;
+  };
+  const locate = (path: (string | number)[]) => locateIn(doc, path, at, file);
+
+  const yamlError = doc.errors[0];
+  if (yamlError) {
+    const detail = yamlError.message.split('\n')[0].replace(/ at line \d+, column \d+:?$/, '');
+    throw new InputError(`${at(yamlError.pos[0])}: invalid YAML: ${detail}`);
+  }
+  const raw = doc.toJS() as unknown;
+  if (raw === null || raw === undefined) throw new InputError(`${file}: the role map is empty`);
+
+  const ajv = createAjv();
+  const validate = ajv.compile(roleMapSchema);
+  if (!validate(raw)) throw schemaError(validate.errors ?? [], locate, []);
+
+  const map = raw as unknown as Record<string, unknown>;
+  if (map.outcome !== undefined && map.outcomes !== undefined) {
+    throw new InputError(`${locate(['outcome'])}: give either outcome or outcomes, not both`);
+  }
+  const rules = validateRuleSettings((map.rules ?? {}) as Record<string, RuleSetting>, catalogue, locate);
+  const roles: Roles = {
+    group: map.group as string,
+    ...(map.unit !== undefined && { unit: map.unit as string }),
+    ...(map.parent !== undefined && { parent: map.parent as string }),
+    outcomes: toList(map.outcomes ?? map.outcome),
+    level1: toList(map.level1),
+    level2: toList(map.level2),
+    missing: map.missing === undefined ? [...DEFAULT_MISSING] : (map.missing as unknown[]).map(String),
+    types: (map.types ?? {}) as Record<string, ValueType>,
+    rules,
+  };
+  checkRoleOverlap(roles, locate, map.outcome !== undefined);
+  return { roles, file, locate };
+}
+
+function toList(v: unknown): string[] {
+  if (v === undefined || v === null) return [];
+  return Array.isArray(v) ? v.map(String) : [String(v)];
+}
+
+/** Each rule setting is checked against that rule's own params schema (defaults filled in). */
+function validateRuleSettings(
+  settings: Record<string, RuleSetting>,
+  catalogue: readonly AnyRule[],
+  locate: LoadedRoles['locate'],
+): Record<string, RuleSetting> {
+  const ajv = createAjv();
+  const out: Record<string, RuleSetting> = {};
+  for (const [id, setting] of Object.entries(settings)) {
+    const rule = catalogue.find((r) => r.meta.id === id);
+    if (!rule) {
+      const known = catalogue.map((r) => r.meta.id).join(', ');
+      throw new InputError(`${locate(['rules', id])}: unknown rule "${id}" (known: ${known})`);
+    }
+    if (setting === 'off') {
+      out[id] = 'off';
+      continue;
+    }
+    const { severity, ...params } = setting;
+    const validate = ajv.compile(rule.meta.params);
+    if (!validate(params)) throw schemaError(validate.errors ?? [], locate, ['rules', id]);
+    out[id] = { ...(severity && { severity }), ...params };
+  }
+  return out;
+}
+
+function schemaError(errors: ErrorObject[], locate: LoadedRoles['locate'], prefix: string[]): InputError {
+  // the most specific error first: ajv reports anyOf parents after their branches
+  const first = errors.find((e) => e.keyword !== 'anyOf') ?? errors[0];
+  const path = [...prefix, ...pointerToPath(first.instancePath)];
+  if (first.keyword === 'additionalProperties') {
+    path.push((first.params as { additionalProperty: string }).additionalProperty);
+  }
+  return new InputError(`${locate(path)}: ${describeAjvError(first, prefix)}`);
+}
+
+/** A column may play one role only: a level-2 variable that is also level-1 is a contradiction. */
+function checkRoleOverlap(roles: Roles, locate: LoadedRoles['locate'], singleOutcome: boolean): void {
+  const seen = new Map<string, string>();
+  const single: [string, string | undefined][] = [
+    ['group', roles.group],
+    ['unit', roles.unit],
+    ['parent', roles.parent],
+  ];
+  const listed: [string, string[]][] = [
+    ['outcomes', roles.outcomes],
+    ['level1', roles.level1],
+    ['level2', roles.level2],
+  ];
+  const claim = (role: string, column: string, path: (string | number)[]) => {
+    const before = seen.get(column);
+    if (before) {
+      throw new InputError(`${locate(path)}: column "${column}" is both ${before} and ${role}`);
+    }
+    seen.set(column, role);
+  };
+  for (const [role, column] of single) if (column) claim(role, column, [role]);
+  for (const [role, columns] of listed) {
+    columns.forEach((column, i) => claim(role, column, role === 'outcomes' && singleOutcome ? ['outcome'] : [role, i]));
+  }
+}
+
+function locateIn(
+  doc: Document,
+  path: (string | number)[],
+  at: (offset: number) => string,
+  file: string,
+): string {
+  // walk down as far as the path exists; point at the key when there is one
+  for (let depth = path.length; depth > 0; depth--) {
+    const node = doc.getIn(path.slice(0, depth), true);
+    if (isNode(node) && node.range) return at(node.range[0]);
+    const parent = doc.getIn(path.slice(0, depth - 1), true) as unknown;
+    const pair = findPair(parent, path[depth - 1]);
+    if (pair) return at(pair);
+  }
+  const contents = doc.contents;
+  return isNode(contents) && contents.range ? at(contents.range[0]) : file;
+}
+
+function findPair(parent: unknown, key: string | number): number | undefined {
+  const items = (parent as { items?: { key?: { value?: unknown; range?: [number, number, number] } }[] })?.items;
+  if (!Array.isArray(items)) return undefined;
+  const pair = items.find((p) => p.key && p.key.value === key);
+  return pair?.key?.range?.[0];
+}

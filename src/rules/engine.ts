@@ -1,0 +1,84 @@
+import type { Roles, Severity } from '../roles/types.js';
+import { createAjv } from '../util/ajv.js';
+import type { AnyRule } from './define.js';
+import type { Finding, FindingDraft, RuleContext } from './types.js';
+
+export const SEVERITY_ORDER: Record<Severity, number> = { blocker: 0, warning: 1, note: 2 };
+
+export interface EngineOptions {
+  /** leave raw data values out of findings (IDs and record numbers stay: they are the fix) */
+  includeValues: boolean;
+}
+
+/** The params a rule runs with: its schema defaults, overlaid with the role map's settings. */
+export function resolveParams(rule: AnyRule, roles: Roles): Record<string, unknown> | 'off' {
+  const setting = roles.rules[rule.meta.id];
+  if (setting === 'off') return 'off';
+  const { severity: _severity, ...given } = setting ?? {};
+  const params = structuredClone(given);
+  const validate = createAjv().compile(rule.meta.params);
+  if (!validate(params)) {
+    // roles are validated on load; reaching this is a programming error, not bad input
+    throw new Error(`${rule.meta.id}: params rejected after validation`);
+  }
+  return params;
+}
+
+/** Run every enabled rule of the catalogue and return the findings in report order. */
+export async function runRules(
+  catalogue: readonly AnyRule[],
+  base: Omit<RuleContext<unknown>, 'params'>,
+  options: EngineOptions,
+): Promise<Finding[]> {
+  const findings: Finding[] = [];
+  for (const rule of catalogue) {
+    const params = resolveParams(rule, base.roles);
+    if (params === 'off') continue;
+    const drafts = await rule.check({ ...base, params });
+    const setting = base.roles.rules[rule.meta.id];
+    const forced = setting && setting !== 'off' ? setting.severity : undefined;
+    for (const d of drafts) findings.push(render(rule, d, forced, options));
+  }
+  return sortFindings(findings);
+}
+
+function render(rule: AnyRule, d: FindingDraft, forced: Severity | undefined, options: EngineOptions): Finding {
+  const template = rule.meta.messages[d.messageId];
+  if (!template) {
+    const known = Object.keys(rule.meta.messages).join(', ');
+    throw new Error(`${rule.meta.id}: unknown messageId "${d.messageId}" (declared: ${known})`);
+  }
+  const data = { ...d.data, values: options.includeValues ? (d.values ?? []).join(', ') : '(values withheld)' };
+  const f: Finding = {
+    rule: rule.meta.id,
+    severity: forced ?? d.severity ?? rule.meta.defaultSeverity,
+    ...(d.column !== undefined && { column: d.column }),
+    message: fill(template.message, data, rule.meta.id),
+    fix: fill(template.fix, data, rule.meta.id),
+  };
+  if (d.count !== undefined) f.count = d.count;
+  if (d.groups) f.groups = d.groups.slice(0, 20);
+  if (d.rows) f.rows = d.rows.slice(0, 20);
+  if (d.values && options.includeValues) f.values = d.values.slice(0, 20);
+  return f;
+}
+
+/** Fill `{name}` placeholders; a placeholder without data is a bug in the rule. */
+export function fill(template: string, data: Record<string, string | number>, ruleId: string): string {
+  return template.replace(/\{(\w+)\}/g, (_, name: string) => {
+    if (!(name in data)) throw new Error(`${ruleId}: message needs "${name}"`);
+    return String(data[name]);
+  });
+}
+
+/** Report order: severity, then rule id, then column, then message (deterministic). */
+export function sortFindings(findings: Finding[]): Finding[] {
+  const cmp = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+  return findings.sort(
+    (a, b) =>
+      SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity] ||
+      cmp(a.rule, b.rule) ||
+      cmp(a.column ?? '', b.column ?? '') ||
+      cmp(a.message, b.message),
+  );
+}

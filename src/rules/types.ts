@@ -1,0 +1,66 @@
+import type { Profile } from '../profile/types.js';
+import type { Roles, Severity } from '../roles/types.js';
+import type { OutcomeStats } from '../stats/types.js';
+import type { Lookup } from './lookup.js';
+
+export type RuleLevel = 'data' | 'structure' | 'variance';
+
+/** A message template and the fix to ask for; `{name}` placeholders are filled from `data`. */
+export interface MessageTemplate {
+  message: string;
+  fix: string;
+}
+
+export interface RuleMeta {
+  /** kebab-case, equal to the file name in rules/ */
+  id: string;
+  title: string;
+  level: RuleLevel;
+  defaultSeverity: Severity;
+  /** one paragraph: what the rule catches and why it matters */
+  description: string;
+  /** JSON Schema of the params (an object with defaults and additionalProperties: false) */
+  params: Record<string, unknown>;
+  messages: Record<string, MessageTemplate>;
+  /** where each threshold comes from, or "common practice" */
+  sources: string[];
+}
+
+/** What a rule's check returns; the engine adds the rule id, severity and rendered text. */
+export interface FindingDraft {
+  messageId: string;
+  data?: Record<string, string | number>;
+  /** overrides meta.defaultSeverity for this finding (graded rules) */
+  severity?: Severity;
+  column?: string;
+  count?: number;
+  groups?: string[];
+  rows?: number[];
+  /** raw values seen: left out of every output when the user asks for no values */
+  values?: string[];
+}
+
+export interface Finding {
+  rule: string;
+  severity: Severity;
+  column?: string;
+  message: string;
+  fix: string;
+  count?: number;
+  groups?: string[];
+  rows?: number[];
+  values?: string[];
+}
+
+export interface RuleContext<P> {
+  profile: Profile;
+  roles: Roles;
+  params: P;
+  outcomes: Record<string, OutcomeStats>;
+  lookup: Lookup;
+}
+
+export interface Rule<P = Record<string, unknown>> {
+  meta: RuleMeta;
+  check(ctx: RuleContext<P>): FindingDraft[] | Promise<FindingDraft[]>;
+}

@@ -1,0 +1,30 @@
+// Public API of the pure statistics module; internal helpers stay unexported.
+export type { AnovaIcc, GroupMoments, OutcomeStats, VarianceComponents } from './types.js';
+
+// data preparation
+export { momentsFromValues } from './moments-from-values.js';
+export { nonEmptyGroups } from './non-empty-groups.js';
+
+// one-way random-intercept model (ML / REML)
+export { mlComponents } from './ml-components.js';
+export { mlDeviance } from './ml-deviance.js';
+export { remlComponents } from './reml-components.js';
+export { remlDeviance } from './reml-deviance.js';
+export { iccFromComponents } from './icc.js';
+export { brentMinimize } from './brent.js';
+export type { BrentOptions, BrentResult } from './brent.js';
+
+// one-way ANOVA
+export { anovaIcc } from './anova-icc.js';
+export { effectiveGroupSize } from './n0.js';
+export { fUpperTail } from './f-upper-tail.js';
+export { icc1 } from './icc1.js';
+export { icc1Interval } from './icc1-interval.js';
+export { icc2 } from './icc2.js';
+
+// consequences of clustering
+export { designEffect, effectiveSampleSize } from './design-effect.js';
+export { groupMeanReliability, meanReliability } from './reliability.js';
+
+// everything for one outcome
+export { outcomeStats } from './outcome-stats.js';

@@ -1,0 +1,74 @@
+import type { GroupMoments } from './types.js';
+import { withinSumOfSquares } from './sums.js';
+
+// Terms of the one-way random-intercept likelihood at a fixed variance ratio λ = τ²/σ².
+// Group j's mean has variance σ²(1 + n_j λ)/n_j, so its precision weight (in units of 1/σ²)
+// is w_j = n_j / (1 + n_j λ). Source: Searle, Casella & McCulloch (1992), *Variance
+// Components*, ch. 3 (the one-way classification) and ch. 6 (ML and REML).
+
+/**
+ * Generalised-least-squares estimate of the grand mean at λ, μ̂(λ) = Σ w_j ȳ_j / Σ w_j.
+ *
+ * Source: Searle, Casella & McCulloch (1992), *Variance Components*, ch. 3.
+ *
+ * @param groups non-empty per-group moments
+ * @param lambda variance ratio τ²/σ² (≥ 0)
+ * @returns μ̂(λ)
+ */
+export function glsMean(groups: readonly GroupMoments[], lambda: number): number {
+  let weighted = 0;
+  let total = 0;
+  for (const g of groups) {
+    const w = g.n / (1 + g.n * lambda);
+    weighted += w * g.mean;
+    total += w;
+  }
+  return weighted / total;
+}
+
+/**
+ * Sum of the group-mean precision weights Σ w_j = Σ n_j / (1 + n_j λ), which is σ²·X′V⁻¹X.
+ *
+ * Source: Searle, Casella & McCulloch (1992), *Variance Components*, ch. 3.
+ *
+ * @param groups non-empty per-group moments
+ * @param lambda variance ratio τ²/σ² (≥ 0)
+ * @returns Σ w_j
+ */
+export function sumWeights(groups: readonly GroupMoments[], lambda: number): number {
+  return groups.reduce((sum, g) => sum + g.n / (1 + g.n * lambda), 0);
+}
+
+/**
+ * Log-determinant of the scaled covariance, log|V/σ²| = Σ log(1 + n_j λ).
+ *
+ * Each group's covariance σ²(I + λ11′) has determinant σ^{2n_j}(1 + n_j λ); log1p keeps the
+ * term accurate for the tiny λ the optimiser probes near the τ² = 0 boundary.
+ * Source: Searle, Casella & McCulloch (1992), *Variance Components*, ch. 3.
+ *
+ * @param groups non-empty per-group moments
+ * @param lambda variance ratio τ²/σ² (≥ 0)
+ * @returns Σ log(1 + n_j λ)
+ */
+export function logDetRatio(groups: readonly GroupMoments[], lambda: number): number {
+  return groups.reduce((sum, g) => sum + Math.log1p(g.n * lambda), 0);
+}
+
+/**
+ * Scaled residual quadratic form Q(λ) = W + Σ w_j (ȳ_j − μ̂(λ))², i.e. σ²·r′V⁻¹r at the GLS mean.
+ *
+ * Source: Searle, Casella & McCulloch (1992), *Variance Components*, ch. 3; Q/σ² is the
+ * Sherman–Morrison form of the quadratic per group.
+ *
+ * @param groups non-empty per-group moments
+ * @param lambda variance ratio τ²/σ² (≥ 0)
+ * @returns Q(λ)
+ */
+export function profiledQ(groups: readonly GroupMoments[], lambda: number): number {
+  const mu = glsMean(groups, lambda);
+  const between = groups.reduce(
+    (sum, g) => sum + (g.n / (1 + g.n * lambda)) * (g.mean - mu) ** 2,
+    0,
+  );
+  return withinSumOfSquares(groups) + between;
+}

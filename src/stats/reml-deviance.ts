@@ -1,0 +1,28 @@
+import type { GroupMoments } from './types.js';
+import { logDetRatio, profiledQ, sumWeights } from './profile-terms.js';
+import { totalCount } from './sums.js';
+
+/**
+ * Profiled REML criterion of the one-way random-intercept model,
+ * −2ℓ_R(λ) = (N−1) log(Q/(N−1)) + Σ log(1 + n_j λ) + log Σ w_j + (N−1)(1 + log 2π),
+ * with σ² = Q/(N−1) profiled out.
+ *
+ * The log Σ w_j term is log|X′V⁻¹X| (up to σ²): it accounts for the degree of freedom spent on
+ * μ, which is what makes REML σ̂² unbiased in balanced designs. Source: Searle, Casella &
+ * McCulloch (1992), *Variance Components*, ch. 6; lme4's REML criterion (Bates, Mächler, Bolker &
+ * Walker 2015, *J. Stat. Softw.* 67(1)).
+ *
+ * @param groups non-empty per-group moments (J ≥ 2, N − J ≥ 1 for a meaningful value)
+ * @param lambda variance ratio τ²/σ² (≥ 0)
+ * @returns the REML criterion at λ
+ */
+export function remlDeviance(groups: readonly GroupMoments[], lambda: number): number {
+  const dfResidual = totalCount(groups) - 1;
+  const q = profiledQ(groups, lambda);
+  return (
+    dfResidual * Math.log(q / dfResidual) +
+    logDetRatio(groups, lambda) +
+    Math.log(sumWeights(groups, lambda)) +
+    dfResidual * (1 + Math.log(2 * Math.PI))
+  );
+}

@@ -1,0 +1,45 @@
+/** Sufficient statistics of one group for one numeric variable. */
+export interface GroupMoments {
+  /** non-missing values in the group */
+  n: number;
+  /** group mean of those values */
+  mean: number;
+  /** within-group sum of squares about the group mean, Σ (y_ij − ȳ_j)² */
+  ss: number;
+}
+
+/** Variance components of the one-way random-intercept ("null") model. */
+export interface VarianceComponents {
+  tau2: number;
+  sigma2: number;
+  icc: number;
+  mean: number;
+  logLik: number;
+}
+
+/** One-way ANOVA decomposition and the ICC(1) / ICC(2) it gives. */
+export interface AnovaIcc {
+  msb: number;
+  msw: number;
+  f: number;
+  df1: number;
+  df2: number;
+  p: number;
+  n0: number;
+  icc: number;
+  icc2: number;
+  ci95: [number, number];
+}
+
+/** What the report carries for one outcome (shared/design.md, `outcomes`). */
+export interface OutcomeStats {
+  n: number;
+  groups: number;
+  mean: number;
+  reml: VarianceComponents;
+  ml: VarianceComponents;
+  anova: AnovaIcc;
+  designEffect: number;
+  effectiveN: number;
+  meanReliability: number;
+}

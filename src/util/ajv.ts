@@ -1,0 +1,31 @@
+import { Ajv } from 'ajv';
+import type { ErrorObject } from 'ajv';
+
+/** The one Ajv factory: all errors, defaults filled in, unknown keywords tolerated in docs. */
+export function createAjv() {
+  return new Ajv({ allErrors: true, useDefaults: true, strict: false });
+}
+
+/** One readable fragment for an ajv error, e.g. `rules.few-groups.warn_below must be >= 1`. */
+export function describeAjvError(error: ErrorObject, prefix: string[] = []): string {
+  const path = [...prefix, ...pointerToPath(error.instancePath)];
+  const where = path.length ? path.join('.') : 'the role map';
+  if (error.keyword === 'additionalProperties') {
+    const extra = (error.params as { additionalProperty: string }).additionalProperty;
+    return `${where}: unknown key "${extra}"`;
+  }
+  if (error.keyword === 'enum') {
+    const allowed = (error.params as { allowedValues: unknown[] }).allowedValues;
+    return `${where} must be one of ${allowed.map((v) => JSON.stringify(v)).join(', ')}`;
+  }
+  return `${where} ${error.message ?? 'is invalid'}`;
+}
+
+/** JSON pointer (`/a/b~1c`) to path segments. */
+export function pointerToPath(pointer: string): string[] {
+  if (!pointer) return [];
+  return pointer
+    .slice(1)
+    .split('/')
+    .map((s) => s.replace(/~1/g, '/').replace(/~0/g, '~'));
+}
