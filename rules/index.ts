@@ -4,6 +4,14 @@ import level2Varies from './level2-varies.js';
 import lowIcc from './low-icc.js';
 import missingGroupId from './missing-group-id.js';
 import singletonGroups from './singleton-groups.js';
+import unreadableLines from './unreadable-lines.js';
 
 /** The built-in catalogue, alphabetical by id (a test checks it against the files in rules/). */
-export const catalogue: readonly AnyRule[] = [fewGroups, level2Varies, lowIcc, missingGroupId, singletonGroups];
+export const catalogue: readonly AnyRule[] = [
+  fewGroups,
+  level2Varies,
+  lowIcc,
+  missingGroupId,
+  singletonGroups,
+  unreadableLines,
+];
