@@ -30,7 +30,7 @@ export default defineRule<Params>({
         },
         note_below: {
           type: 'integer', minimum: 1, default: 50,
-          description: 'note below this many groups (Maas & Hox 2005: 50 or fewer bias level-2 standard errors)',
+          description: 'note at or below this many groups (Maas & Hox 2005: 50 or fewer bias level-2 standard errors)',
         },
       },
       additionalProperties: false,

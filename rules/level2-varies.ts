@@ -45,9 +45,11 @@ export default defineRule<Params>({
       const col = profile.column(column);
       const numericType = col.numericProfiled && col.type !== 'categorical';
       const ids = profile.groups.array('group') as string[];
-      const lo = profile.groups.array(key(column, numericType ? 'nmin' : 'nd')) as number[];
-      const hi = numericType ? (profile.groups.array(key(column, 'nmax')) as number[]) : [];
-      const groups = ids.filter((_, i) => (numericType ? hi[i] - lo[i] > params.tolerance : lo[i] > 1));
+      const lo = profile.groups.array(key(column, numericType ? 'nmin' : 'min')) as (number | string | null)[];
+      const hi = profile.groups.array(key(column, numericType ? 'nmax' : 'max')) as (number | string | null)[];
+      const groups = ids.filter((_, i) =>
+        numericType ? (hi[i] as number) - (lo[i] as number) > params.tolerance : lo[i] !== hi[i],
+      );
       if (groups.length === 0) continue;
       const seen = await lookup.valuesInGroups(column, groups.slice(0, 20));
       const values = groups

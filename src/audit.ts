@@ -29,7 +29,7 @@ export interface AuditOptions {
 export async function audit(path: string, roleMap: LoadedRoles | Roles, options: AuditOptions = {}): Promise<Report> {
   const loaded: LoadedRoles = 'roles' in roleMap ? roleMap : { roles: roleMap, file: 'role map', locate: () => 'role map' };
   const { roles } = loaded;
-  const source = await openDelivery(path, {
+  const source = await openDelivery(path, roles, {
     missing: roles.missing,
     memoryLimit: options.memoryLimit,
     threads: options.threads,

@@ -3,31 +3,42 @@ import type { Roles } from '../roles/types.js';
 import type { Source } from '../source/open.js';
 import type { GroupMoments } from '../stats/types.js';
 import { key, profileQuery } from './sql.js';
+import type { Storage } from '../source/sql.js';
 import type { ProfileColumnPlan } from './sql.js';
 import { columnProfile } from './columns.js';
 import { roleOf } from './role-of.js';
 import type { ColumnProfile, Profile } from './types.js';
 
-/** Which statistics each column needs: numbers for variables, distinct counts where constancy matters. */
-export function planColumns(header: readonly string[], roles: Roles, sniffedNumeric: Set<string>): ProfileColumnPlan[] {
+/** Which statistics each column needs: numbers for every numeric column and declared variable. */
+export function planColumns(header: readonly string[], roles: Roles, storage: Map<string, Storage>): ProfileColumnPlan[] {
   return header
     .filter((name) => name !== roles.group)
     .map((name) => {
       const role = roleOf(name, roles);
-      const declared = roles.types[name];
-      const isId = role === 'unit' || role === 'parent';
       const isVariable = role === 'outcome' || role === 'level1' || role === 'level2';
-      const numeric =
-        declared === 'numeric' || declared === 'binary' || (declared !== 'categorical' && !isId && (isVariable || sniffedNumeric.has(name)));
-      return { name, numeric, distinct: role === 'level2' || role === 'parent' };
+      const s = storage.get(name) ?? 'text';
+      const numeric = s === 'double' || (isVariable && roles.types[name] !== 'categorical');
+      return { name, storage: s, numeric };
     });
 }
 
-/** Run the one profiling pass and hold its result as arquero tables. */
+/**
+ * Run the one profiling pass and hold its result as arquero tables. When a value in a column
+ * read as DOUBLE is not a number, its line is rejected by the reader; those columns are then
+ * read as text and the pass is run again, so no line is lost to a type guess.
+ */
 export async function buildProfile(source: Source, roles: Roles): Promise<Profile> {
-  const plan = planColumns(source.header, roles, source.sniffedNumeric);
-  const reader = await source.con.runAndReadAll(profileQuery(source.view, roles.group, plan));
-  const rejected = await source.rejects();
+  let plan: ProfileColumnPlan[];
+  let reader;
+  let rejected;
+  for (;;) {
+    plan = planColumns(source.header, roles, source.storage);
+    reader = await source.con.runAndReadAll(profileQuery(source.view, roles.group, plan));
+    rejected = await source.rejects();
+    const retype = [...new Set(rejected.filter((r) => r.column && source.storage.get(r.column) === 'double').map((r) => r.column!))];
+    if (retype.length === 0) break;
+    await source.readAsText(retype);
+  }
   const raw = aq.table(reader.getColumnsObjectJS() as Record<string, unknown[]>);
 
   const rows = (Array.from(raw.array('n')) as number[]).reduce((a, b) => a + b, 0);

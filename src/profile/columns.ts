@@ -18,12 +18,13 @@ export function columnProfile(
   if (!plan) {
     // the group column itself: it is the key of the profile
     const ids = raw.array('group').filter((g) => g !== null) as string[];
-    return base(name, role, 'categorical', rows - missingGroupRows, rows, minOf(ids), maxOf(ids));
+    return base(name, role, 'categorical', 'text', rows - missingGroupRows, rows, minOf(ids), maxOf(ids));
   }
   const nonMissing = sum(raw.array(key(name, 'nn')) as number[]);
-  const mins = (raw.array(key(name, 'min')) as (string | null)[]).filter(notNull);
-  const maxs = (raw.array(key(name, 'max')) as (string | null)[]).filter(notNull);
-  const p = base(name, role, 'categorical', nonMissing, rows, minOf(mins), maxOf(maxs));
+  const text = plan.storage === 'text';
+  const mins = text ? (raw.array(key(name, 'min')) as (string | null)[]).filter(notNull) : [];
+  const maxs = text ? (raw.array(key(name, 'max')) as (string | null)[]).filter(notNull) : [];
+  const p = base(name, role, 'categorical', plan.storage, nonMissing, rows, minOf(mins), maxOf(maxs));
   if (!plan.numeric) return { ...p, type: roles.types[name] ?? 'categorical' };
 
   const num = raw.array(key(name, 'num')) as number[];
@@ -48,20 +49,23 @@ export function columnProfile(
   const mostlyNumeric = numeric > 0 && (numeric === nonMissing || (isVariable && numeric >= 0.95 * nonMissing));
   const inferred: ValueType = mostlyNumeric ? (zeroOne ? 'binary' : 'numeric') : 'categorical';
   const type = roles.types[name] ?? inferred;
-  return { ...p, type, numericProfiled: true, numeric, numMin, numMax, mean };
+  const asText = (x: number | null) => (x === null ? null : String(x));
+  const range = text ? {} : { min: asText(numMin), max: asText(numMax) };
+  return { ...p, ...range, type, numericProfiled: true, numeric, numMin, numMax, mean };
 }
 
 function base(
   name: string,
   role: ColumnProfile['role'],
   type: ValueType,
+  storage: ColumnProfile['storage'],
   nonMissing: number,
   rows: number,
   min: string | null,
   max: string | null,
 ): ColumnProfile {
   return {
-    name, role, type, numericProfiled: false, nonMissing, missing: rows - nonMissing,
+    name, role, type, storage, numericProfiled: false, nonMissing, missing: rows - nonMissing,
     numeric: 0, min, max, numMin: null, numMax: null, mean: null,
   };
 }

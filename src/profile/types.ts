@@ -2,6 +2,7 @@ import type { ColumnTable } from 'arquero';
 import type { ValueType } from '../roles/types.js';
 import type { GroupMoments } from '../stats/types.js';
 import type { RejectedLine } from '../source/open.js';
+import type { Storage } from '../source/sql.js';
 
 export type ColumnRole = 'group' | 'unit' | 'parent' | 'outcome' | 'level1' | 'level2' | 'other';
 
@@ -12,6 +13,8 @@ export interface ColumnProfile {
   type: ValueType;
   /** whether per-group numeric statistics were computed for this column */
   numericProfiled: boolean;
+  /** how the reader holds it: text, or DOUBLE when every value is a number */
+  storage: Storage;
   nonMissing: number;
   missing: number;
   /** non-missing values that read as numbers (only when numericProfiled) */
@@ -33,9 +36,9 @@ export interface Profile {
   missingGroupRows: number;
   /**
    * One row per group with a non-missing ID. Columns: `group` (the ID as text), `n` (records),
-   * and per profiled column c: `c:nn` non-missing, `c:min`, `c:max` (as text); for numeric-profiled
-   * columns also `c:num` (numeric values), `c:nmin`, `c:nmax`, `c:mean`, `c:ss` (within-group sum of
-   * squares); for level-2 and parent columns `c:nd` (distinct non-missing values).
+   * and per column c other than the group: `c:nn` non-missing; for columns read as text `c:min`,
+   * `c:max` (text; equal ⇔ constant in the group); for numeric-profiled columns `c:num` (values
+   * that are numbers), `c:nmin`, `c:nmax`, `c:mean`, `c:ss` (within-group sum of squares).
    */
   groups: ColumnTable;
   /** one row per column, the fields of ColumnProfile */

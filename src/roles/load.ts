@@ -35,7 +35,10 @@ export function parseRoles(text: string, file: string, catalogue: readonly AnyRu
     const { line, col } = lineCounter.linePos(offset);
     return `${file}:${line}:${col}`;
   };
-  const locate = (path: (string | number)[]) => locateIn(doc, path, at, file);
+  // a single `outcome: y` is normalised to outcomes: [y]; errors about outcomes[0] point at it
+  let singleOutcome = false;
+  const locate = (path: (string | number)[]) =>
+    locateIn(doc, singleOutcome && path[0] === 'outcomes' ? ['outcome'] : path, at, file);
 
   const yamlError = doc.errors[0];
   if (yamlError) {
@@ -53,6 +56,7 @@ export function parseRoles(text: string, file: string, catalogue: readonly AnyRu
   if (map.outcome !== undefined && map.outcomes !== undefined) {
     throw new InputError(`${locate(['outcome'])}: give either outcome or outcomes, not both`);
   }
+  singleOutcome = map.outcome !== undefined;
   const rules = validateRuleSettings((map.rules ?? {}) as Record<string, RuleSetting>, catalogue, locate);
   const roles: Roles = {
     group: map.group as string,
@@ -101,8 +105,12 @@ function validateRuleSettings(
 }
 
 function schemaError(errors: ErrorObject[], locate: LoadedRoles['locate'], prefix: string[]): InputError {
-  // the most specific error first: ajv reports anyOf parents after their branches
-  const first = errors.find((e) => e.keyword !== 'anyOf') ?? errors[0];
+  // the most specific error first: the deepest instance path (e.g. a bad `severity` inside a rule
+  // setting, not the `off` branch of its anyOf); at equal depth a failed constraint (`uniqueItems`
+  // on a list) before a type mismatch with another anyOf branch (`must be string`)
+  const rank = (e: ErrorObject) => 2 * pointerToPath(e.instancePath).length + (e.keyword === 'type' ? 0 : 1);
+  const specific = errors.filter((e) => e.keyword !== 'anyOf');
+  const first = specific.reduce<ErrorObject | undefined>((best, e) => (!best || rank(e) > rank(best) ? e : best), undefined) ?? errors[0];
   const path = [...prefix, ...pointerToPath(first.instancePath)];
   if (first.keyword === 'additionalProperties') {
     path.push((first.params as { additionalProperty: string }).additionalProperty);
@@ -144,11 +152,12 @@ function locateIn(
 ): string {
   // walk down as far as the path exists; point at the key when there is one
   for (let depth = path.length; depth > 0; depth--) {
-    const node = doc.getIn(path.slice(0, depth), true);
-    if (isNode(node) && node.range) return at(node.range[0]);
     const parent = doc.getIn(path.slice(0, depth - 1), true) as unknown;
     const pair = findPair(parent, path[depth - 1]);
-    if (pair) return at(pair);
+    if (pair !== undefined) return at(pair);
+    // a sequence item has no key: point at the item itself
+    const node = doc.getIn(path.slice(0, depth), true);
+    if (isNode(node) && node.range) return at(node.range[0]);
   }
   const contents = doc.contents;
   return isNode(contents) && contents.range ? at(contents.range[0]) : file;

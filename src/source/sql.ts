@@ -1,7 +1,10 @@
 /**
- * Every piece of SQL nestready sends lives in this folder, so that another engine can be
- * added as a dialect later. Values are always quoted by these helpers, never by callers.
+ * Every piece of SQL nestready sends lives in src/source and src/profile, so that another
+ * engine can be added as a dialect later. Values are always quoted by these helpers.
  */
+import type { Roles } from '../roles/types.js';
+
+export type Storage = 'text' | 'double';
 
 /** Quote an identifier: "col ""x""". */
 export function ident(name: string): string {
@@ -13,20 +16,50 @@ export function literal(value: string): string {
   return `'${value.replace(/'/g, "''")}'`;
 }
 
-/** A column with the role map's missing tokens (compared after trimming) turned into NULL. */
-export function cleaned(column: string, missing: readonly string[]): string {
-  const c = ident(column);
-  if (missing.length === 0) return c;
-  const tokens = missing.map(literal).join(', ');
-  return `CASE WHEN trim(${c}) IN (${tokens}) THEN NULL ELSE ${c} END`;
-}
-
-/** The numeric reading of a (cleaned) text column: NULL when it is not a number. */
+/** The numeric reading of a text column: NULL when it is not a number. */
 export function numeric(column: string): string {
   return numericExpr(ident(column));
 }
 
-/** The numeric reading of any text expression. */
+/** The numeric reading of any expression. */
 export function numericExpr(expr: string): string {
-  return `TRY_CAST(trim(${expr}) AS DOUBLE)`;
+  return `TRY_CAST(${expr} AS DOUBLE)`;
+}
+
+/**
+ * read_csv over the delivery. 'sniff': let DuckDB guess types from a sample (for the header
+ * and type hints); a map: text or DOUBLE per column. Missing
+ * tokens are read as NULL by the reader itself (nullstr), which is far cheaper than a CASE per cell.
+ */
+export function readCsv(path: string, missing: readonly string[], storage: Map<string, Storage> | 'sniff'): string {
+  const nullstr = `nullstr = [${missing.map(literal).join(', ')}]`;
+  if (storage === 'sniff') return `read_csv(${literal(path)}, header = true, ${nullstr}, ignore_errors = true)`;
+  const types = [...storage].map(([c, s]) => `${literal(c)}: '${s === 'double' ? 'DOUBLE' : 'VARCHAR'}'`).join(', ');
+  return (
+    `read_csv(${literal(path)}, header = true, ${nullstr}, types = {${types}}, ` +
+    `store_rejects = true, rejects_table = 'nr_rejects', rejects_scan = 'nr_scans')`
+  );
+}
+
+const NUMERIC_TYPES = /^(TINYINT|SMALLINT|INTEGER|BIGINT|HUGEINT|UTINYINT|USMALLINT|UINTEGER|UBIGINT|FLOAT|DOUBLE|DECIMAL)/;
+
+/**
+ * Read a column as DOUBLE when the role map or the sniffer says it is numeric; IDs and
+ * categorical columns always as text (an ID "007" must not become 7). A value that then
+ * fails to convert rejects its line, and the profile re-reads that column as text.
+ */
+export function typedColumns(
+  header: readonly string[],
+  roles: Roles,
+  sniffed: readonly { column_name: string; column_type: string }[],
+): Map<string, Storage> {
+  const sniffedNumeric = new Set(sniffed.filter((t) => NUMERIC_TYPES.test(t.column_type)).map((t) => t.column_name));
+  const ids = new Set([roles.group, roles.unit, roles.parent]);
+  const storage = new Map<string, Storage>();
+  for (const c of header) {
+    const declared = roles.types[c];
+    const isNumber = declared === 'numeric' || declared === 'binary' || (declared === undefined && sniffedNumeric.has(c));
+    storage.set(c, !ids.has(c) && isNumber ? 'double' : 'text');
+  }
+  return storage;
 }

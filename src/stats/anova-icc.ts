@@ -5,7 +5,12 @@ import { icc1Interval } from './icc1-interval.js';
 import { icc2 } from './icc2.js';
 import { effectiveGroupSize } from './n0.js';
 import { nonEmptyGroups } from './non-empty-groups.js';
-import { betweenSumOfSquares, componentsEstimable, totalCount, withinSumOfSquares } from './sums.js';
+import {
+  betweenSumOfSquares,
+  componentsEstimable,
+  totalCount,
+  withinSumOfSquares,
+} from './sums.js';
 
 const UNDEFINED_ANOVA: AnovaIcc = {
   msb: NaN,

@@ -19,7 +19,7 @@ export interface BrentOptions {
   maxIterations?: number;
 }
 
-// (3 − √5)/2: the golden-section fraction, so the bracket shrinks by at least this each fallback step.
+// (3 − √5)/2: the golden-section fraction; each fallback step shrinks the bracket by this much.
 const GOLDEN_FRACTION = (3 - Math.sqrt(5)) / 2;
 
 /**

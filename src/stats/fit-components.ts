@@ -4,6 +4,12 @@ import { minimizeOverLambda } from './minimize-over-lambda.js';
 import { glsMean, profiledQ } from './profile-terms.js';
 import { componentsEstimable, grandMean, totalCount } from './sums.js';
 
+/** A profiled deviance in λ = τ²/σ² together with its derivative. */
+export interface ProfiledCriterion {
+  deviance: (groups: readonly GroupMoments[], lambda: number) => number;
+  derivative: (groups: readonly GroupMoments[], lambda: number) => number;
+}
+
 /**
  * Fit τ², σ² and μ of the one-way random-intercept model by minimising a profiled deviance over
  * λ = τ²/σ², then recovering σ̂² = Q(λ̂)/df and τ̂² = λ̂ σ̂².
@@ -15,13 +21,13 @@ import { componentsEstimable, grandMean, totalCount } from './sums.js';
  * Source: Searle, Casella & McCulloch (1992), *Variance Components*, ch. 6.
  *
  * @param groups non-empty, validated per-group moments
- * @param deviance the profiled ML or REML deviance
+ * @param criterion the profiled ML or REML deviance and its derivative in λ
  * @param residualDf N for ML, N − 1 for REML (the divisor of Q in σ̂²)
  * @returns the fitted components
  */
 export function fitComponents(
   groups: readonly GroupMoments[],
-  deviance: (groups: readonly GroupMoments[], lambda: number) => number,
+  criterion: ProfiledCriterion,
   residualDf: (n: number) => number,
 ): VarianceComponents {
   const mean = grandMean(groups);
@@ -33,7 +39,10 @@ export function fitComponents(
   if (profiledQ(groups, 0) === 0) {
     return { tau2: 0, sigma2: 0, icc: NaN, mean, logLik: NaN };
   }
-  const optimum = minimizeOverLambda((lambda) => deviance(groups, lambda));
+  const optimum = minimizeOverLambda(
+    (lambda) => criterion.deviance(groups, lambda),
+    (lambda) => criterion.derivative(groups, lambda),
+  );
   const sigma2 = profiledQ(groups, optimum.lambda) / df;
   const tau2 = optimum.lambda * sigma2;
   return {

@@ -7,9 +7,9 @@ export { nonEmptyGroups } from './non-empty-groups.js';
 
 // one-way random-intercept model (ML / REML)
 export { mlComponents } from './ml-components.js';
-export { mlDeviance } from './ml-deviance.js';
+export { mlDeviance, mlDevianceDerivative } from './ml-deviance.js';
 export { remlComponents } from './reml-components.js';
-export { remlDeviance } from './reml-deviance.js';
+export { remlDeviance, remlDevianceDerivative } from './reml-deviance.js';
 export { iccFromComponents } from './icc.js';
 export { brentMinimize } from './brent.js';
 export type { BrentOptions, BrentResult } from './brent.js';

@@ -1,6 +1,6 @@
 import type { GroupMoments, VarianceComponents } from './types.js';
 import { fitComponents } from './fit-components.js';
-import { mlDeviance } from './ml-deviance.js';
+import { mlDeviance, mlDevianceDerivative } from './ml-deviance.js';
 import { nonEmptyGroups } from './non-empty-groups.js';
 
 /**
@@ -17,5 +17,9 @@ import { nonEmptyGroups } from './non-empty-groups.js';
  * @throws on invalid moments (see nonEmptyGroups)
  */
 export function mlComponents(groups: readonly GroupMoments[]): VarianceComponents {
-  return fitComponents(nonEmptyGroups(groups), mlDeviance, (n) => n);
+  return fitComponents(
+    nonEmptyGroups(groups),
+    { deviance: mlDeviance, derivative: mlDevianceDerivative },
+    (n) => n,
+  );
 }

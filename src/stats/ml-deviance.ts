@@ -1,5 +1,5 @@
 import type { GroupMoments } from './types.js';
-import { logDetRatio, profiledQ } from './profile-terms.js';
+import { logDetRatio, profiledQ, profiledQDerivative, sumWeights } from './profile-terms.js';
 import { totalCount } from './sums.js';
 
 /**
@@ -18,4 +18,22 @@ export function mlDeviance(groups: readonly GroupMoments[], lambda: number): num
   const n = totalCount(groups);
   const q = profiledQ(groups, lambda);
   return n * Math.log(q / n) + logDetRatio(groups, lambda) + n * (1 + Math.log(2 * Math.PI));
+}
+
+/**
+ * Derivative of the profiled ML deviance, d(−2ℓ)/dλ = N Q′/Q + Σ n_j/(1 + n_j λ).
+ *
+ * The optimiser uses it only to polish Brent's answer: a zero of the derivative can be located
+ * to rounding level, whereas the deviance is flat to within its own rounding over a range of λ
+ * about √ε wide. Note Σ n_j/(1 + n_j λ) = Σ w_j. Source: differentiation of mlDeviance;
+ * Searle, Casella & McCulloch (1992), *Variance Components*, ch. 6 (ML score equations).
+ *
+ * @param groups non-empty per-group moments
+ * @param lambda variance ratio τ²/σ² (≥ 0)
+ * @returns the derivative at λ
+ */
+export function mlDevianceDerivative(groups: readonly GroupMoments[], lambda: number): number {
+  const n = totalCount(groups);
+  const q = profiledQ(groups, lambda);
+  return (n * profiledQDerivative(groups, lambda)) / q + sumWeights(groups, lambda);
 }

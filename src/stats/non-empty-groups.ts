@@ -4,7 +4,9 @@ import type { GroupMoments } from './types.js';
  * Check each group's moments and return the groups that hold at least one value.
  *
  * Empty groups carry no information about either variance component, so every estimator
- * drops them first; their `mean` is not checked because an empty mean is undefined.
+ * drops them first; their `mean` is not checked because an empty mean is undefined. This is
+ * input checking, not a formula, so it has no citation beyond the GroupMoments definition
+ * (ss_j = Σ (y_ij − ȳ_j)² ≥ 0, and 0 for a single value).
  *
  * @param groups per-group moments as supplied by the caller
  * @returns the groups with n ≥ 1, in their original order

@@ -72,3 +72,35 @@ export function profiledQ(groups: readonly GroupMoments[], lambda: number): numb
   );
   return withinSumOfSquares(groups) + between;
 }
+
+/**
+ * Sum of squared precision weights Σ w_j², which is −d(Σ w_j)/dλ because dw_j/dλ = −w_j².
+ *
+ * Source: differentiation of w_j = n_j / (1 + n_j λ); Searle, Casella & McCulloch (1992),
+ * *Variance Components*, ch. 6 (ML/REML score equations).
+ *
+ * @param groups non-empty per-group moments
+ * @param lambda variance ratio τ²/σ² (≥ 0)
+ * @returns Σ w_j²
+ */
+export function sumSquaredWeights(groups: readonly GroupMoments[], lambda: number): number {
+  return groups.reduce((sum, g) => sum + (g.n / (1 + g.n * lambda)) ** 2, 0);
+}
+
+/**
+ * Derivative of the profiled quadratic form, dQ/dλ = −Σ w_j² (ȳ_j − μ̂(λ))².
+ *
+ * μ̂ minimises Q, so ∂Q/∂μ = 0 there and only the weights' own derivative −w_j² remains
+ * (envelope theorem). Source: Searle, Casella & McCulloch (1992), *Variance Components*, ch. 6.
+ *
+ * @param groups non-empty per-group moments
+ * @param lambda variance ratio τ²/σ² (≥ 0)
+ * @returns dQ/dλ (≤ 0)
+ */
+export function profiledQDerivative(groups: readonly GroupMoments[], lambda: number): number {
+  const mu = glsMean(groups, lambda);
+  return -groups.reduce(
+    (sum, g) => sum + (g.n / (1 + g.n * lambda)) ** 2 * (g.mean - mu) ** 2,
+    0,
+  );
+}

@@ -1,5 +1,11 @@
 import type { GroupMoments } from './types.js';
-import { logDetRatio, profiledQ, sumWeights } from './profile-terms.js';
+import {
+  logDetRatio,
+  profiledQ,
+  profiledQDerivative,
+  sumSquaredWeights,
+  sumWeights,
+} from './profile-terms.js';
 import { totalCount } from './sums.js';
 
 /**
@@ -24,5 +30,29 @@ export function remlDeviance(groups: readonly GroupMoments[], lambda: number): n
     logDetRatio(groups, lambda) +
     Math.log(sumWeights(groups, lambda)) +
     dfResidual * (1 + Math.log(2 * Math.PI))
+  );
+}
+
+/**
+ * Derivative of the profiled REML criterion,
+ * d(−2ℓ_R)/dλ = (N−1) Q′/Q + Σ w_j − Σ w_j² / Σ w_j.
+ *
+ * The optimiser uses it only to polish Brent's answer: a zero of the derivative can be located
+ * to rounding level, whereas the criterion is flat to within its own rounding over a range of λ
+ * about √ε wide. Source: differentiation of remlDeviance (d log(1 + n_j λ)/dλ = w_j,
+ * dw_j/dλ = −w_j²); Searle, Casella & McCulloch (1992), *Variance Components*, ch. 6.
+ *
+ * @param groups non-empty per-group moments
+ * @param lambda variance ratio τ²/σ² (≥ 0)
+ * @returns the derivative at λ
+ */
+export function remlDevianceDerivative(groups: readonly GroupMoments[], lambda: number): number {
+  const dfResidual = totalCount(groups) - 1;
+  const q = profiledQ(groups, lambda);
+  const weights = sumWeights(groups, lambda);
+  return (
+    (dfResidual * profiledQDerivative(groups, lambda)) / q +
+    weights -
+    sumSquaredWeights(groups, lambda) / weights
   );
 }

@@ -3,6 +3,8 @@ import type { GroupMoments } from './types.js';
 /**
  * Total number of values, N = Σ n_j.
  *
+ * Source: notation of Searle (1971), *Linear Models*, ch. 9 (one-way classification).
+ *
  * @param groups per-group moments
  * @returns N
  */
@@ -11,7 +13,9 @@ export function totalCount(groups: readonly GroupMoments[]): number {
 }
 
 /**
- * Grand (unweighted-by-group) mean ȳ = Σ n_j ȳ_j / N, the ordinary mean of all values.
+ * Grand mean of all values, ȳ = Σ n_j ȳ_j / N, so each value (not each group) counts equally.
+ *
+ * Source: Searle (1971), *Linear Models*, ch. 9 (one-way classification).
  *
  * @param groups per-group moments
  * @returns ȳ, or NaN when N = 0
@@ -48,6 +52,9 @@ export function betweenSumOfSquares(groups: readonly GroupMoments[]): number {
 /**
  * Whether both variance components are estimable: at least two groups (J ≥ 2) and at least one
  * within-group degree of freedom (N − J ≥ 1); without them τ² and σ² are confounded.
+ *
+ * Source: Searle, Casella & McCulloch (1992), *Variance Components*, ch. 3 (the one-way
+ * classification needs both mean squares to have degrees of freedom).
  *
  * @param groups non-empty per-group moments
  * @returns true when J ≥ 2 and N − J ≥ 1

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { brentMinimize } from '../../src/stats/index.js';
+import { secantRefine } from '../../src/stats/secant-refine.js';
 
 describe('brentMinimize', () => {
   it('finds the vertex of a parabola', () => {
@@ -37,5 +38,19 @@ describe('brentMinimize', () => {
   it('rejects an empty interval', () => {
     expect(() => brentMinimize((x) => x, 1, 1)).toThrow(/lower < upper/);
     expect(() => brentMinimize((x) => x, 0, Infinity)).toThrow(/finite/);
+  });
+});
+
+describe('secantRefine', () => {
+  it('polishes a zero to rounding level', () => {
+    // zero of x² − 2 is √2; start 1e-4 away, as after a derivative-free minimiser
+    const x = secantRefine((t) => t * t - 2, Math.SQRT2 + 1e-4, { step: 1e-7, maxShift: 1e-2 });
+    expect(Math.abs(x - Math.SQRT2)).toBeLessThan(1e-15);
+  });
+
+  it('stays put when the secant would leave the allowed window', () => {
+    // g has no zero near 0 (g = 1 + t²), so any step is a run-off and the start is kept
+    const x = secantRefine((t) => 1 + t * t, 0, { step: 1e-7, maxShift: 1e-3 });
+    expect(Math.abs(x)).toBeLessThanOrEqual(1e-3);
   });
 });

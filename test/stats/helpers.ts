@@ -4,8 +4,8 @@ import { expect } from 'vitest';
 import { momentsFromValues } from '../../src/stats/index.js';
 import type { GroupMoments } from '../../src/stats/index.js';
 
-/** Largest relative error seen by expectRel in this worker, for the report at the end. */
-export const relativeErrors: { label: string; error: number }[] = [];
+/** Relative errors seen by expectRel in this test file, for logRelativeErrors. */
+const relativeErrors: { label: string; error: number }[] = [];
 
 /**
  * Assert |actual − expected| ≤ tol·|expected| and record the relative error.
@@ -22,6 +22,19 @@ export function expectRel(actual: number, expected: number, tol: number, label =
     error,
     `${label}: actual ${actual}, expected ${expected}, relative error ${error}`,
   ).toBeLessThanOrEqual(tol);
+}
+
+/**
+ * Print every relative error expectRel recorded in this file and the largest one; call it from
+ * afterAll so reference agreement is visible in the run log, not only pass/fail.
+ */
+export function logRelativeErrors(): void {
+  if (relativeErrors.length === 0) return;
+  const worst = relativeErrors.reduce((a, b) => (b.error > a.error ? b : a));
+  const lines = relativeErrors.map((r) => `  ${r.label}: ${r.error.toExponential(2)}`);
+  console.log(
+    `${lines.join('\n')}\n  max relative error: ${worst.error.toExponential(2)} (${worst.label})`,
+  );
 }
 
 /**

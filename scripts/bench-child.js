@@ -1,0 +1,139 @@
+#!/usr/bin/env node
+// One audit run for scripts/bench.js, as its own process: the real CLI entry
+// (`main` from dist/src/cli.js) called in-process, report written with --out.
+//
+//   NESTREADY_BENCH_RESULT=/tmp/r.json node scripts/bench-child.js FILE ROLES.yaml OUT.json [MEMORY_LIMIT]
+//
+// When main() returns it writes one JSON object to $NESTREADY_BENCH_RESULT (or, without
+// that variable, one JSON line to stderr):
+//   { maxRssMB, exitCode, timings: {...}, queries: [...] }
+//   maxRssMB = process.resourceUsage().maxRSS / 1024  (peak RSS of this whole process)
+//   exitCode = process.exitCode set by main (0/1 = gate result, 2 = input error, 3 = bug)
+// The parent times the whole process (Node start-up included); the timings here only
+// split that time up. They come from this script alone: it wraps DuckDBConnection.run and
+// .runAndReadAll (prototype methods of @duckdb/node-api) to timestamp every query that
+// nestready issues; nothing in src/ is touched. Times are ms since process start
+// (performance.timeOrigin), so they line up with the parent's wall time.
+
+import { writeFileSync } from 'node:fs';
+
+const scriptStartMs = performance.now(); // Node bootstrap + loading this module
+
+const [file, roles, out, memoryLimit] = process.argv.slice(2);
+if (!file || !roles || !out) {
+  process.stderr.write('usage: node scripts/bench-child.js FILE ROLES.yaml OUT.json [MEMORY_LIMIT]\n');
+  process.exit(2);
+}
+
+const rssMB = () => process.resourceUsage().maxRSS / 1024;
+const r1 = (x) => Math.round(x * 10) / 10;
+
+// ---- load the DuckDB binding first (so its cost is visible), then instrument it ------
+const t0 = performance.now();
+const duck = await import('@duckdb/node-api');
+const duckImportedMs = performance.now();
+
+const queries = [];
+let inReadAll = 0;
+const proto = duck.DuckDBConnection.prototype;
+const origRun = proto.run;
+const origReadAll = proto.runAndReadAll;
+function label(sql) {
+  const s = String(sql).replace(/\s+/g, ' ').trim();
+  if (/ AS "group", count\(\*\)::DOUBLE AS n\b/.test(s)) return 'profile';
+  if (/^CREATE VIEW/i.test(s)) return 'create-view';
+  if (/^DESCRIBE/i.test(s)) return /read_csv\(/.test(s) && /nullstr/.test(s) ? 'sniff' : 'describe';
+  if (/FROM nr_rejects/.test(s)) return 'rejects';
+  return 'lookup';
+}
+proto.run = async function run(sql, ...rest) {
+  if (inReadAll) return origRun.call(this, sql, ...rest); // timed by runAndReadAll below
+  const q = { kind: label(sql), sql: String(sql).slice(0, 120), startMs: performance.now() };
+  try {
+    return await origRun.call(this, sql, ...rest);
+  } catch (e) {
+    q.error = String(e?.message ?? e).split('\n')[0];
+    throw e;
+  } finally {
+    q.endMs = performance.now();
+    q.maxRssMB = rssMB();
+    queries.push(q);
+  }
+};
+proto.runAndReadAll = async function runAndReadAll(sql, ...rest) {
+  const q = { kind: label(sql), sql: String(sql).slice(0, 120), startMs: performance.now() };
+  inReadAll++;
+  try {
+    return await origReadAll.call(this, sql, ...rest);
+  } catch (e) {
+    q.error = String(e?.message ?? e).split('\n')[0];
+    throw e;
+  } finally {
+    inReadAll--;
+    q.endMs = performance.now();
+    q.maxRssMB = rssMB();
+    queries.push(q);
+  }
+};
+
+const { main } = await import('../dist/src/cli.js');
+const cliImportedMs = performance.now();
+const rssAfterImportMB = rssMB();
+
+// ---- the audit itself ----------------------------------------------------------------
+const argv = ['node', 'nestready', 'audit', file, '--roles', roles, '--format', 'json', '--out', out];
+if (memoryLimit) argv.push('--memory-limit', memoryLimit);
+const mainStartMs = performance.now();
+await main(argv);
+const mainEndMs = performance.now();
+
+// ---- summarise -----------------------------------------------------------------------
+queries.sort((a, b) => a.startMs - b.startMs);
+const sumKind = (kind) => queries.filter((q) => q.kind === kind).reduce((s, q) => s + (q.endMs - q.startMs), 0);
+const profile = queries.find((q) => q.kind === 'profile');
+const after = profile ? queries.filter((q) => q.startMs >= profile.endMs) : [];
+const firstAfter = after[0];
+const timings = {
+  nodeStartupMs: r1(scriptStartMs), // process start -> this script's body runs
+  importDuckdbMs: r1(duckImportedMs - t0),
+  importCliMs: r1(cliImportedMs - duckImportedMs),
+  mainMs: r1(mainEndMs - mainStartMs),
+  // inside main: before the profiling query (role map load, DuckDB instance, views, sniff)
+  toProfileQueryMs: profile ? r1(profile.startMs - mainStartMs) : null,
+  sniffMs: r1(sumKind('sniff')),
+  profileQueryMs: profile ? r1(profile.endMs - profile.startMs) : null,
+  // after the profiling query: arquero tables, stats, rules (lookups), grade, render, write
+  afterProfileMs: profile ? r1(mainEndMs - profile.endMs) : null,
+  // JS work between the profiling query and the next query (result -> arquero, column profiles)
+  profileToNextQueryMs: profile && firstAfter ? r1(firstAfter.startMs - profile.endMs) : null,
+  lookupQueries: queries.filter((q) => q.kind === 'lookup').length,
+  lookupMs: r1(sumKind('lookup')),
+  rejectsMs: r1(sumKind('rejects')),
+  lastQueryToEndMs: queries.length ? r1(mainEndMs - queries[queries.length - 1].endMs) : null,
+  totalInProcessMs: r1(mainEndMs), // process start -> main returned
+  maxRssAfterImportMB: r1(rssAfterImportMB),
+  maxRssAfterProfileMB: profile ? r1(profile.maxRssMB) : null,
+};
+
+// the fatal query: the last one that threw, when main ended in an error (a caught throw,
+// e.g. the rejects table not existing, is not a failure)
+const failed = (process.exitCode ?? 0) >= 2 ? [...queries].reverse().find((q) => q.error) : null;
+const result = {
+  maxRssMB: r1(rssMB()),
+  exitCode: process.exitCode ?? 0,
+  // the first query that threw, if any (main turns that into exit 2 or 3)
+  failedQuery: failed ? { kind: failed.kind, atMs: r1(failed.endMs), error: failed.error } : null,
+  timings,
+  queries: queries.map((q) => ({
+    kind: q.kind,
+    startMs: r1(q.startMs),
+    ms: r1(q.endMs - q.startMs),
+    maxRssMB: r1(q.maxRssMB),
+    sql: q.sql,
+    ...(q.error ? { error: q.error } : {}),
+  })),
+};
+const line = JSON.stringify(result);
+if (process.env.NESTREADY_BENCH_RESULT) writeFileSync(process.env.NESTREADY_BENCH_RESULT, line + '\n');
+else process.stderr.write(line + '\n');
+// exit code stays whatever main set (process.exitCode)

@@ -1,0 +1,399 @@
+#!/usr/bin/env node
+// `npm run bench`: how does a full `nestready audit` compare with a bare DuckDB group-by
+// over the same CSV, in wall time and peak memory?
+//
+//   node scripts/bench.js [--rows 1000000] [--groups 5000] [--seed 1] [--repeat 3]
+//                         [--sizes 1e6,1e7] [--groups-list 1000,100000,1000000]
+//                         [--memory-limit 200MB] [--keep]
+//
+//   --sizes        several row counts (each at --groups)
+//   --groups-list  several group counts (each at --rows); with --sizes too, every pair runs
+//   --memory-limit passed to `nestready audit --memory-limit` (default: the CLI's own, 200MB)
+//   --keep         keep the generated CSVs and the audit reports
+//
+// For every (rows, groups) case it generates a synthetic delivery (scripts/synth.js) under
+// os.tmpdir()/nestready-bench — reusing synth-r<rows>-g<groups>-s<seed>.csv if an earlier
+// run kept it — writes the matching role map, then runs, alternately and --repeat times:
+//   baseline  node scripts/bench-groupby.js FILE site_code   (threads=2, memory_limit=200MB)
+//   audit     node scripts/bench-child.js FILE ROLES OUT      (main() of dist/src/cli.js, --format json)
+// Both are timed the same way: wall clock around the spawned process, from spawn to exit,
+// Node start-up included. Peak RSS is each process's own process.resourceUsage().maxRSS.
+//
+// Targets: audit median wall <= 2x baseline median wall (judged at 1M rows) and audit peak
+// RSS <= 300 MB (judged everywhere). The script reports; it does not gate: it exits 0 when
+// targets are MISSED or an audit run FAILS (exit 2/3, e.g. DuckDB out of memory), and 1 only
+// when the bench itself broke (the baseline failed, or bench-child.js gave no result).
+// Results also go to bench-output/bench.json.
+
+import { spawn } from 'node:child_process';
+import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { cpus, tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { parseArgs } from 'node:util';
+import { writeSynthetic } from './synth.js';
+
+const here = dirname(fileURLToPath(import.meta.url));
+const root = join(here, '..');
+const BASELINE = join(here, 'bench-groupby.js');
+const CHILD = join(here, 'bench-child.js');
+const CLI = join(root, 'dist/src/cli.js');
+const WORK = join(tmpdir(), 'nestready-bench');
+const OUT_DIR = join(root, 'bench-output');
+
+const TARGET_RATIO = 2;
+const TARGET_RSS_MB = 300;
+const RATIO_AT_ROWS = 1_000_000;
+
+// ---- options --------------------------------------------------------------------------
+const { values: opt } = parseArgs({
+  options: {
+    rows: { type: 'string', default: '1000000' },
+    groups: { type: 'string', default: '5000' },
+    seed: { type: 'string', default: '1' },
+    repeat: { type: 'string', default: '3' },
+    sizes: { type: 'string' },
+    'groups-list': { type: 'string' },
+    'memory-limit': { type: 'string' },
+    keep: { type: 'boolean', default: false },
+    help: { type: 'boolean', short: 'h', default: false },
+  },
+  strict: true,
+});
+if (opt.help) {
+  const lines = readFileSync(fileURLToPath(import.meta.url), 'utf8').split('\n').slice(1);
+  const head = lines.slice(0, lines.findIndex((l) => !l.startsWith('//')));
+  process.stdout.write(head.map((l) => l.replace(/^\/\/ ?/, '')).join('\n') + '\n');
+  process.exit(0);
+}
+
+function count(name, s, min = 1) {
+  const n = Number(String(s).replace(/_/g, ''));
+  if (!Number.isFinite(n) || !Number.isInteger(n) || n < min) {
+    process.stderr.write(`bench: --${name} must be an integer >= ${min} (got "${s}")\n`);
+    process.exit(2);
+  }
+  return n;
+}
+const list = (name, s) => String(s).split(',').map((x) => x.trim()).filter(Boolean).map((x) => count(name, x));
+
+const seed = count('seed', opt.seed, 0);
+const repeat = count('repeat', opt.repeat);
+const rowsList = opt.sizes ? list('sizes', opt.sizes) : [count('rows', opt.rows, 0)];
+const groupsList = opt['groups-list'] ? list('groups-list', opt['groups-list']) : [count('groups', opt.groups)];
+const cases = rowsList.flatMap((rows) => groupsList.map((groups) => ({ rows, groups })));
+
+if (!existsSync(CLI)) {
+  process.stderr.write(`bench: ${CLI} not found; run \`npm run build\` first (npm run bench does)\n`);
+  process.exit(2);
+}
+mkdirSync(WORK, { recursive: true });
+mkdirSync(OUT_DIR, { recursive: true });
+
+// ---- helpers --------------------------------------------------------------------------
+const median = (xs) => {
+  const s = xs.filter((x) => Number.isFinite(x)).sort((a, b) => a - b);
+  if (!s.length) return null;
+  const m = s.length >> 1;
+  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+};
+const max = (xs) => (xs.filter(Number.isFinite).length ? Math.max(...xs.filter(Number.isFinite)) : null);
+const r1 = (x) => (x == null ? null : Math.round(x * 10) / 10);
+const r2 = (x) => (x == null ? null : Math.round(x * 100) / 100);
+const fmtInt = (n) => n.toLocaleString('en-US');
+
+/** Spawn `node args…`, time it from spawn to exit, collect its output. */
+function timed(args, env = {}) {
+  return new Promise((resolvePromise) => {
+    const t0 = performance.now();
+    const child = spawn(process.execPath, args, { cwd: root, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+    let stdout = '';
+    let stderr = '';
+    child.stdout.on('data', (d) => (stdout += d));
+    child.stderr.on('data', (d) => (stderr += d));
+    child.on('error', (e) => resolvePromise({ wallMs: performance.now() - t0, code: null, stdout, stderr: String(e) }));
+    child.on('close', (code, signal) =>
+      resolvePromise({ wallMs: performance.now() - t0, code, signal, stdout, stderr }),
+    );
+  });
+}
+
+const ROLES_YAML = `# nestready role map for scripts/synth.js deliveries (written by scripts/bench.js)
+group: site_code
+unit: record_id
+parent: region_code
+outcomes: [wait_minutes]
+level1: [age_band, visits, distance_km]
+level2: [site_type, staff, opened_year]
+`;
+
+/** The synthetic delivery for (rows, groups, seed): reused if present, else generated. */
+async function delivery(rows, groups) {
+  const path = join(WORK, `synth-r${rows}-g${groups}-s${seed}.csv`);
+  if (existsSync(path)) return { path, generated: false, bytes: statSync(path).size, genMs: 0 };
+  const part = `${path}.${process.pid}.part`; // renamed only once complete, so a present file is whole
+  process.stderr.write(`bench: generating ${fmtInt(rows)} rows x ${fmtInt(groups)} groups -> ${path}\n`);
+  try {
+    const res = await writeSynthetic({ path: part, rows, groups, seed });
+    renameSync(part, path);
+    return { path, generated: true, bytes: res.bytes, genMs: res.ms };
+  } catch (e) {
+    rmSync(part, { force: true });
+    throw e;
+  }
+}
+
+async function runBaseline(file) {
+  const p = await timed([BASELINE, file, 'site_code']);
+  let inner = null;
+  try {
+    inner = JSON.parse(p.stdout.trim().split('\n').pop());
+  } catch {
+    // reported as an error below
+  }
+  if (p.code !== 0 || !inner) return { ok: false, wallMs: p.wallMs, error: `exit ${p.code ?? p.signal}: ${p.stderr.trim().slice(0, 500)}` };
+  return { ok: true, wallMs: p.wallMs, maxRssMB: inner.maxRssMB, innerWallMs: inner.wallMs, groups: inner.groups };
+}
+
+async function runAudit(file, roles, tag) {
+  const out = join(WORK, `report-${tag}.json`);
+  const resultFile = join(WORK, `child-${tag}.json`);
+  rmSync(resultFile, { force: true });
+  const args = [CHILD, file, roles, out];
+  if (opt['memory-limit']) args.push(opt['memory-limit']);
+  const p = await timed(args, { NESTREADY_BENCH_RESULT: resultFile });
+  let res = null;
+  try {
+    res = JSON.parse(readFileSync(resultFile, 'utf8'));
+  } catch {
+    // reported below
+  }
+  rmSync(resultFile, { force: true });
+  if (!res) {
+    // no result line at all: the harness itself broke (bench-child.js did not get past main)
+    return { ok: false, harness: true, wallMs: p.wallMs, error: `no result from bench-child.js (exit ${p.code ?? p.signal}): ${p.stderr.trim().slice(0, 500)}` };
+  }
+  // 0 and 1 are gate results (1 = a blocker finding); 2/3 mean the audit did not run through
+  if (res.exitCode !== 0 && res.exitCode !== 1) {
+    if (!opt.keep) rmSync(out, { force: true });
+    const msg = (p.stderr.trim().split('\n')[0] || '').replace(/^nestready: /, '');
+    return {
+      ok: false,
+      wallMs: p.wallMs,
+      maxRssMB: res.maxRssMB,
+      exitCode: res.exitCode,
+      failedQuery: res.failedQuery,
+      timings: res.timings,
+      queries: res.queries,
+      error: `exit ${res.exitCode}: ${msg}`,
+    };
+  }
+  let report = null;
+  try {
+    const r = JSON.parse(readFileSync(out, 'utf8'));
+    report = { rows: r.input?.rows, groups: r.groups?.count, grade: r.grade ?? null, verdict: r.verdict ?? null, findings: (r.findings ?? []).map((f) => f.rule ?? f.id) };
+  } catch {
+    // a report is not needed for the figures
+  }
+  if (!opt.keep) rmSync(out, { force: true });
+  return { ok: true, wallMs: p.wallMs, maxRssMB: res.maxRssMB, exitCode: res.exitCode, timings: res.timings, queries: res.queries, report };
+}
+
+// ---- run --------------------------------------------------------------------------------
+const rolesPath = join(WORK, 'roles.yaml');
+writeFileSync(rolesPath, ROLES_YAML);
+const generated = [];
+const results = [];
+let failures = 0;
+
+for (const { rows, groups } of cases) {
+  const d = await delivery(rows, groups);
+  if (d.generated) generated.push(d.path);
+  const base = [];
+  const aud = [];
+  for (let i = 0; i < repeat; i++) {
+    process.stderr.write(`bench: ${fmtInt(rows)} x ${fmtInt(groups)}  run ${i + 1}/${repeat}: baseline`);
+    const b = await runBaseline(d.path);
+    base.push(b);
+    process.stderr.write(` ${(b.wallMs / 1000).toFixed(2)}s, audit`);
+    const a = await runAudit(d.path, rolesPath, `r${rows}-g${groups}-s${seed}-${i + 1}`);
+    aud.push(a);
+    process.stderr.write(` ${(a.wallMs / 1000).toFixed(2)}s${a.ok ? '' : ' (FAILED)'}\n`);
+    for (const [what, x] of [['baseline', b], ['audit', a]]) {
+      if (x.ok) continue;
+      if (what === 'baseline' || x.harness) failures++;
+      process.stderr.write(`bench: ${what} run failed (${x.error.split('\n')[0]})\n`);
+    }
+  }
+  const okB = base.filter((x) => x.ok);
+  const okA = aud.filter((x) => x.ok);
+  const baseWall = median(okB.map((x) => x.wallMs));
+  const auditWall = median(okA.map((x) => x.wallMs));
+  const ratio = baseWall && auditWall ? auditWall / baseWall : null;
+  const auditRss = max(okA.map((x) => x.maxRssMB));
+  const timeJudged = rows === RATIO_AT_ROWS;
+  const auditFailed = aud.filter((x) => !x.ok && !x.harness);
+  const phaseKeys = okA.length ? Object.keys(okA[0].timings) : [];
+  const phases = Object.fromEntries(phaseKeys.map((k) => [k, r1(median(okA.map((x) => x.timings[k])))]));
+  const failure = auditFailed.length
+    ? {
+        runs: auditFailed.length,
+        of: repeat,
+        error: auditFailed[0].error.split('\n')[0],
+        failedQuery: auditFailed[0].failedQuery ?? null,
+        maxRssMB: r1(max(auditFailed.map((x) => x.maxRssMB))),
+        medianWallMs: r1(median(auditFailed.map((x) => x.wallMs))),
+        queries: auditFailed[0].queries ?? [],
+      }
+    : null;
+  // a case where every audit run failed misses both targets: the audit did not complete
+  const verdictOf = (ok) => (okA.length ? (ok ? 'ok' : 'MISSED') : auditFailed.length ? 'FAILED' : 'ERROR');
+  results.push({
+    rows,
+    groups,
+    seed,
+    file: d.path,
+    fileMB: r1(d.bytes / 2 ** 20),
+    generated: d.generated,
+    generateMs: d.genMs,
+    baseline: {
+      medianWallMs: r1(baseWall),
+      medianInnerWallMs: r1(median(okB.map((x) => x.innerWallMs))),
+      peakRssMB: r1(max(okB.map((x) => x.maxRssMB))),
+      medianRssMB: r1(median(okB.map((x) => x.maxRssMB))),
+      groupsSeen: okB[0]?.groups ?? null,
+      runs: base.map(({ ok, wallMs, maxRssMB, innerWallMs, error }) => ({ ok, wallMs: r1(wallMs), maxRssMB, innerWallMs, error })),
+    },
+    audit: {
+      medianWallMs: r1(auditWall),
+      peakRssMB: r1(auditRss),
+      medianRssMB: r1(median(okA.map((x) => x.maxRssMB))),
+      exitCode: okA[0]?.exitCode ?? null,
+      report: okA[0]?.report ?? null,
+      medianPhasesMs: phases,
+      queriesOfMedianRun: okA.length ? [...okA].sort((x, y) => x.wallMs - y.wallMs)[okA.length >> 1].queries : [],
+      failure,
+      runs: aud.map(({ ok, wallMs, maxRssMB, exitCode, error }) => ({ ok, wallMs: r1(wallMs), maxRssMB, exitCode, error })),
+    },
+    ratio: r2(ratio),
+    targets: {
+      time: timeJudged ? (ratio == null ? verdictOf(false) : verdictOf(ratio <= TARGET_RATIO)) : 'n/a',
+      rss: verdictOf(auditRss != null && auditRss <= TARGET_RSS_MB),
+    },
+  });
+}
+
+if (!opt.keep) for (const p of generated) rmSync(p, { force: true });
+
+// ---- report -----------------------------------------------------------------------------
+function table(head, body) {
+  const w = head.map((h, i) => Math.max(h.length, ...body.map((r) => String(r[i]).length)));
+  const line = (r) => r.map((c, i) => (i === r.length - 1 ? String(c) : String(c).padStart(w[i]))).join('  ');
+  return [line(head), w.map((n) => '-'.repeat(n)).join('  '), ...body.map(line)].join('\n');
+}
+const s = (ms) => (ms == null ? '-' : (ms / 1000).toFixed(2));
+const mb = (x) => (x == null ? '-' : x.toFixed(1));
+const verdict = (r) => {
+  const t =
+    r.targets.time === 'n/a' ? `time n/a (judged at ${fmtInt(RATIO_AT_ROWS)} rows)` : `time<=${TARGET_RATIO}x ${r.targets.time}`;
+  const f = r.audit.failure;
+  return `${t}; rss<=${TARGET_RSS_MB}MB ${r.targets.rss}` + (f ? `; audit FAILED ${f.runs}/${f.of} runs` : '');
+};
+
+console.log(
+  `\nnestready bench — node ${process.version}, ${cpus().length} CPU(s), repeat ${repeat}, seed ${seed}` +
+    `, audit memory limit ${opt['memory-limit'] ?? '200MB (CLI default)'}; wall = whole spawned process\n`,
+);
+console.log(
+  table(
+    ['rows', 'groups', 'baseline s', 'audit s', 'ratio', 'base RSS MB', 'audit RSS MB', 'targets'],
+    results.map((r) => [
+      fmtInt(r.rows),
+      fmtInt(r.groups),
+      s(r.baseline.medianWallMs),
+      r.audit.medianWallMs == null && r.audit.failure ? 'FAILED' : s(r.audit.medianWallMs),
+      r.ratio == null ? '-' : `${r.ratio.toFixed(2)}x`,
+      mb(r.baseline.peakRssMB),
+      r.audit.peakRssMB == null && r.audit.failure ? `(${mb(r.audit.failure.maxRssMB)} at failure)` : mb(r.audit.peakRssMB),
+      verdict(r),
+    ]),
+  ),
+);
+
+console.log('\nwhere the audit process spends its time (medians, seconds; from scripts/bench-child.js):\n');
+console.log(
+  table(
+    ['rows', 'groups', 'node start', 'import duckdb', 'import cli', 'main', 'to profile q', 'profile q', 'after profile', 'lookups n/s', 'exit', 'total', 'base inner'],
+    results.map((r) => {
+      const p = r.audit.medianPhasesMs;
+      return [
+        fmtInt(r.rows),
+        fmtInt(r.groups),
+        s(p.nodeStartupMs),
+        s(p.importDuckdbMs),
+        s(p.importCliMs),
+        s(p.mainMs),
+        s(p.toProfileQueryMs),
+        s(p.profileQueryMs),
+        s(p.afterProfileMs),
+        p.lookupQueries == null ? '-' : `${p.lookupQueries} / ${s(p.lookupMs)}`,
+        r.audit.medianWallMs == null || p.totalInProcessMs == null ? '-' : s(Math.max(0, r.audit.medianWallMs - p.totalInProcessMs)),
+        s(r.audit.medianWallMs),
+        s(r.baseline.medianInnerWallMs),
+      ];
+    }),
+  ),
+);
+console.log(
+  '\n  node start    = process start -> bench-child.js body runs; import cli = dist/src/cli.js and its deps (commander, ajv, arquero, yaml, ...)' +
+    '\n  main          = the audit itself: to profile q + profile q + after profile' +
+    '\n  to profile q  = main() start -> profiling GROUP BY issued (role map, DuckDB instance, views, dialect/type sniff)' +
+    '\n  profile q     = the one profiling GROUP BY incl. fetching its result into JS' +
+    '\n  after profile = result -> arquero, stats, rules and their lookups, grade, render, write' +
+    '\n  lookups n/s   = number of rule lookup queries / their seconds (part of after profile)' +
+    '\n  exit          = parent wall minus the child\'s in-process time: DuckDB/Node teardown and spawn overhead (approx.)' +
+    '\n  base inner    = baseline group-by from DuckDB instance creation to fetched result (its own wallMs)',
+);
+
+const bad = (v) => v === 'MISSED' || v === 'FAILED';
+const missed = results.filter((r) => bad(r.targets.time) || bad(r.targets.rss) || r.audit.failure);
+const errored = results.filter((r) => r.targets.rss === 'ERROR' || r.baseline.medianWallMs == null);
+console.log('');
+for (const r of missed) {
+  const what = [];
+  const f = r.audit.failure;
+  if (f) {
+    const where = f.failedQuery ? ` in the ${f.failedQuery.kind} query at ${s(f.failedQuery.atMs)}s` : '';
+    what.push(`audit FAILED in ${f.runs}/${f.of} runs (${f.error}${where}; peak RSS ${mb(f.maxRssMB)} MB)`);
+  }
+  if (r.targets.time === 'MISSED') what.push(`audit ${r.ratio}x baseline > ${TARGET_RATIO}x`);
+  if (r.targets.rss === 'MISSED') what.push(`audit peak RSS ${r.audit.peakRssMB} MB > ${TARGET_RSS_MB} MB`);
+  console.log(`MISSED  ${fmtInt(r.rows)} rows x ${fmtInt(r.groups)} groups: ${what.join('; ')}`);
+}
+for (const r of errored) console.log(`ERROR   ${fmtInt(r.rows)} rows x ${fmtInt(r.groups)} groups: the bench could not measure this case, see stderr`);
+if (!missed.length && !errored.length) console.log('all targets met');
+
+const jsonPath = join(OUT_DIR, 'bench.json');
+writeFileSync(
+  jsonPath,
+  JSON.stringify(
+    {
+      date: new Date().toISOString(),
+      node: process.version,
+      cpus: cpus().length,
+      cpuModel: cpus()[0]?.model ?? null,
+      repeat,
+      seed,
+      auditMemoryLimit: opt['memory-limit'] ?? null,
+      failedRuns: failures,
+      targets: { ratioMax: TARGET_RATIO, ratioJudgedAtRows: RATIO_AT_ROWS, auditPeakRssMaxMB: TARGET_RSS_MB },
+      results,
+    },
+    null,
+    2,
+  ) + '\n',
+);
+console.log(`\nresults: ${jsonPath}${opt.keep ? `; files kept in ${WORK}` : ''}`);
+// missed targets and audit failures (exit 2/3, e.g. DuckDB out of memory) are results and
+// exit 0; exit 1 only when the bench itself broke (baseline failed, or no result from the child)
+process.exitCode = failures ? 1 : 0;

@@ -1,0 +1,21 @@
+// The public library API: what the CLI calls, and nothing internal.
+export { audit } from './audit.js';
+export type { AuditOptions } from './audit.js';
+export { InputError } from './errors.js';
+export { exitCode, grade, PENALTY, GRADE_FLOORS } from './grade.js';
+export type { FailOn, Grade, Graded, Verdict } from './grade.js';
+export { loadRoles, parseRoles } from './roles/load.js';
+export type { LoadedRoles } from './roles/load.js';
+export { roleMapSchema, DEFAULT_MISSING } from './roles/schema.js';
+export type { Roles, RuleSetting, Severity, ValueType } from './roles/types.js';
+export { renderJson } from './report/json.js';
+export { renderText } from './report/text.js';
+export type { TextOptions } from './report/text.js';
+export { catalogueJson, catalogueMarkdown, catalogueText } from './report/catalogue.js';
+export { REPORT_SCHEMA } from './report/types.js';
+export type { Report } from './report/types.js';
+export { defineRule } from './rules/define.js';
+export type { AnyRule } from './rules/define.js';
+export type { Finding, FindingDraft, Rule, RuleContext, RuleMeta } from './rules/types.js';
+export * as stats from './stats/index.js';
+export { catalogue } from '../rules/index.js';

@@ -1,0 +1,65 @@
+import { formatNumber } from '../../util/format.js';
+import { PALETTE } from '../palette.js';
+import type { GroupMeans } from '../types.js';
+import { CHART_CONFIG, CHART_SIZE } from './theme.js';
+import type { Chart } from './types.js';
+
+/**
+ * Group means of one outcome sorted from lowest to highest, each with its interval
+ * mean ± 1.96·SE (SE from the REML within-group variance), and the overall REML mean: the spread
+ * the ICC summarises, as a "caterpillar" plot.
+ */
+export function groupMeansChart(outcome: string, means: GroupMeans, index: number): Chart | null {
+  const values = means.points
+    .filter((p) => Number.isFinite(p.mean))
+    .map((p) => {
+      const half = Number.isFinite(p.se) ? 1.96 * p.se : 0;
+      return { rank: p.rank, mean: p.mean, lo: p.mean - half, hi: p.mean + half };
+    });
+  if (!values.length) return null;
+  const shown = values.length < means.total ? `${values.length} of ${means.total} groups shown (lowest, highest and an even sample)` : `${means.total} groups`;
+  const lo = values[0];
+  const hi = values[values.length - 1];
+  const subtitle = `${shown}; overall mean ${formatNumber(means.mean, 2)} (REML); bars: mean ± 1.96·SE`;
+  const layers: unknown[] = [
+    {
+      data: { values },
+      mark: { type: 'rule', color: PALETTE.accentSoft, strokeWidth: values.length > 400 ? 0.6 : 1.2 },
+      encoding: {
+        x: { field: 'rank', type: 'quantitative', title: 'groups, sorted by mean', scale: { domain: [0, means.total + 1], nice: false } },
+        y: { field: 'lo', type: 'quantitative', title: `${outcome}: group mean`, scale: { zero: false } },
+        y2: { field: 'hi' },
+      },
+    },
+    {
+      data: { values },
+      mark: { type: 'point', filled: true, color: PALETTE.accent, size: values.length > 400 ? 8 : 22 },
+      encoding: { x: { field: 'rank', type: 'quantitative' }, y: { field: 'mean', type: 'quantitative' } },
+    },
+  ];
+  if (Number.isFinite(means.mean)) {
+    const rule = { values: [{ y: means.mean, label: `overall mean ${formatNumber(means.mean, 2)}` }] };
+    layers.push(
+      { data: rule, mark: { type: 'rule', color: PALETTE.highlight, strokeDash: [5, 3] }, encoding: { y: { field: 'y', type: 'quantitative' } } },
+      {
+        data: rule,
+        mark: { type: 'text', align: 'left', baseline: 'bottom', x: 4, dy: -3, color: PALETTE.highlight, fontSize: 11 },
+        encoding: { y: { field: 'y', type: 'quantitative' }, text: { field: 'label' } },
+      },
+    );
+  }
+  return {
+    id: `chart-means-${index}`,
+    title: `Group means of ${outcome}`,
+    description:
+      `Group means of ${outcome}, sorted from lowest to highest, with 95% intervals (mean ± 1.96·SE). ${shown}. ` +
+      `Lowest mean ${formatNumber(lo.mean, 2)}, highest ${formatNumber(hi.mean, 2)}, overall mean ${formatNumber(means.mean, 2)}.`,
+    spec: {
+      $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
+      config: CHART_CONFIG,
+      title: { text: `Group means: ${outcome}`, subtitle },
+      ...CHART_SIZE,
+      layer: layers,
+    } as Chart['spec'],
+  };
+}

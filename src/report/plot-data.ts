@@ -1,0 +1,56 @@
+import { catalogue } from '../../rules/index.js';
+import type { Profile } from '../profile/types.js';
+import type { Roles } from '../roles/types.js';
+import { resolveParams } from '../rules/engine.js';
+import { outcomeStats } from '../stats/index.js';
+import type { OutcomeStats } from '../stats/types.js';
+import { groupMeans } from './plots/group-means.js';
+import { sizeHistogram } from './plots/size-histogram.js';
+import type { PlotData } from './types.js';
+
+/**
+ * Groups with fewer records than this are marked small on the size plot: Clarke (2008) found
+ * valid estimates with an average of five records per group and biased ones at two.
+ */
+export const SMALL_GROUP_THRESHOLD = 5;
+
+/**
+ * What the HTML plots need, built once from the profile so that renderers never read data:
+ * a histogram of group sizes, per outcome the sorted group means with standard errors (capped,
+ * see groupMeans), per numeric level-1 column its between-group share (REML ICC and ANOVA
+ * ICC(1), the centering advice), and the thresholds to mark.
+ *
+ * @param profile the one profiling pass
+ * @param roles the normalised role map (the low-icc threshold is read from its rule settings)
+ * @param outcomes the statistics of each numeric outcome, as the report carries them
+ */
+export function buildPlotData(profile: Profile, roles: Roles, outcomes: Record<string, OutcomeStats>): PlotData {
+  const groupMeansByOutcome: PlotData['groupMeans'] = {};
+  for (const [name, stats] of Object.entries(outcomes)) groupMeansByOutcome[name] = groupMeans(profile, name, stats);
+
+  const predictorShares: PlotData['predictorShares'] = {};
+  for (const name of roles.level1) {
+    const col = profile.column(name);
+    if (!col.numericProfiled || col.type === 'categorical') continue;
+    const s = outcomeStats(profile.moments(name));
+    predictorShares[name] = { reml: s.reml.icc, anova: s.anova.icc };
+  }
+
+  const data: PlotData = {
+    groupSizes: sizeHistogram(profile.groups.array('n') as number[]),
+    groupMeans: groupMeansByOutcome,
+    predictorShares,
+    smallGroupThreshold: SMALL_GROUP_THRESHOLD,
+  };
+  const lowIcc = lowIccThreshold(roles);
+  if (lowIcc !== undefined) data.lowIccThreshold = lowIcc;
+  return data;
+}
+
+/** icc_below of the low-icc rule with the role map's settings, or undefined when it is off. */
+function lowIccThreshold(roles: Roles): number | undefined {
+  const rule = catalogue.find((r) => r.meta.id === 'low-icc');
+  if (!rule) return undefined;
+  const params = resolveParams(rule, roles);
+  return params === 'off' || typeof params.icc_below !== 'number' ? undefined : params.icc_below;
+}

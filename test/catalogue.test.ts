@@ -1,0 +1,84 @@
+import { readdirSync } from 'node:fs';
+import { basename, dirname, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { catalogue } from '../rules/index.js';
+import { createAjv } from '../src/util/ajv.js';
+import type { AnyRule } from '../src/rules/define.js';
+
+const rulesDir = join(dirname(fileURLToPath(import.meta.url)), '..', 'rules');
+const ruleFiles = readdirSync(rulesDir)
+  .filter((f) => f.endsWith('.ts') && !f.endsWith('.test.ts') && f !== 'index.ts')
+  .sort();
+const ids = ruleFiles.map((f) => basename(f, '.ts'));
+
+describe('rule catalogue', () => {
+  it('has the foundation rules', () => {
+    expect(ids).toEqual(expect.arrayContaining(['few-groups', 'level2-varies', 'low-icc', 'missing-group-id', 'singleton-groups']));
+  });
+
+  it('holds every rules/<id>.ts, in alphabetical order, each once', () => {
+    const listed = catalogue.map((r) => r.meta.id);
+    expect(listed).toEqual(ids);
+    expect([...listed].sort()).toEqual(listed);
+    expect(new Set(listed).size).toBe(listed.length);
+  });
+
+  it.each(ruleFiles)('%s: the catalogue entry is the file\'s default export and meta.id is its basename', async (file) => {
+    const mod = (await import(pathToFileURL(join(rulesDir, file)).href)) as { default: AnyRule };
+    const id = basename(file, '.ts');
+    expect(mod.default.meta.id).toBe(id);
+    expect(catalogue.find((r) => r.meta.id === id)).toBe(mod.default);
+    expect(typeof mod.default.check).toBe('function');
+  });
+
+  describe.each(catalogue.map((r) => [r.meta.id, r] as const))('%s', (id, rule) => {
+    const { meta } = rule;
+
+    it('is kebab-case with a title, level, default severity and description', () => {
+      expect(id).toMatch(/^[a-z0-9]+(-[a-z0-9]+)*$/);
+      expect(meta.title.trim()).not.toBe('');
+      expect(['data', 'structure', 'variance']).toContain(meta.level);
+      expect(['blocker', 'warning', 'note']).toContain(meta.defaultSeverity);
+      expect(meta.description.trim().length).toBeGreaterThan(20);
+    });
+
+    it('params: an object schema that the project ajv compiles, closed, every property with default and description', () => {
+      const schema = meta.params as { type?: string; properties?: Record<string, Record<string, unknown>>; additionalProperties?: unknown };
+      expect(schema.type).toBe('object');
+      expect(schema.additionalProperties).toBe(false);
+      expect(schema.properties).toBeTypeOf('object');
+      const validate = createAjv().compile(schema);
+      for (const [name, prop] of Object.entries(schema.properties ?? {})) {
+        expect(prop, `${id}.${name} default`).toHaveProperty('default');
+        expect(typeof prop.description, `${id}.${name} description`).toBe('string');
+        expect((prop.description as string).trim(), `${id}.${name} description`).not.toBe('');
+        // each default is itself a valid value of its property
+        expect(validate({ [name]: prop.default }), `${id}.${name} default is valid`).toBe(true);
+      }
+      // an empty setting is valid and gets every default filled in
+      const filled: Record<string, unknown> = {};
+      expect(validate(filled)).toBe(true);
+      expect(Object.keys(filled).sort()).toEqual(Object.keys(schema.properties ?? {}).sort());
+      // unknown params are refused
+      expect(validate({ no_such_param: 1 })).toBe(false);
+    });
+
+    it('every message has a message and a fix', () => {
+      const messages = Object.entries(meta.messages);
+      expect(messages.length).toBeGreaterThan(0);
+      for (const [messageId, m] of messages) {
+        expect(typeof m.message, `${id}/${messageId}.message`).toBe('string');
+        expect(m.message.trim(), `${id}/${messageId}.message`).not.toBe('');
+        expect(typeof m.fix, `${id}/${messageId}.fix`).toBe('string');
+        expect(m.fix.trim(), `${id}/${messageId}.fix`).not.toBe('');
+      }
+    });
+
+    it('cites its sources', () => {
+      expect(Array.isArray(meta.sources)).toBe(true);
+      expect(meta.sources.length).toBeGreaterThan(0);
+      for (const s of meta.sources) expect(s.trim()).not.toBe('');
+    });
+  });
+});
