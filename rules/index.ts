@@ -1,17 +1,53 @@
 import type { AnyRule } from '../src/rules/define.js';
+import binaryOutcome from './binary-outcome.js';
+import duplicateUnitId from './duplicate-unit-id.js';
 import fewGroups from './few-groups.js';
+import groupCodeReused from './group-code-reused.js';
+import groupInSeveralParents from './group-in-several-parents.js';
+import groupsPerLevel2Predictor from './groups-per-level2-predictor.js';
+import idVariants from './id-variants.js';
+import level1ConstantWithin from './level1-constant-within.js';
+import level2PartlyMissing from './level2-partly-missing.js';
 import level2Varies from './level2-varies.js';
+import lowGroupMeanReliability from './low-group-mean-reliability.js';
 import lowIcc from './low-icc.js';
+import missingByGroup from './missing-by-group.js';
 import missingGroupId from './missing-group-id.js';
+import nonNumericValues from './non-numeric-values.js';
+import outcomeConstantWithin from './outcome-constant-within.js';
+import predictorBetweenShare from './predictor-between-share.js';
+import sentinelValues from './sentinel-values.js';
 import singletonGroups from './singleton-groups.js';
+import smallGroups from './small-groups.js';
+import unbalancedGroups from './unbalanced-groups.js';
+import undeclaredLevel2 from './undeclared-level2.js';
+import unitInSeveralGroups from './unit-in-several-groups.js';
 import unreadableLines from './unreadable-lines.js';
 
 /** The built-in catalogue, alphabetical by id (a test checks it against the files in rules/). */
 export const catalogue: readonly AnyRule[] = [
+  binaryOutcome,
+  duplicateUnitId,
   fewGroups,
+  groupCodeReused,
+  groupInSeveralParents,
+  groupsPerLevel2Predictor,
+  idVariants,
+  level1ConstantWithin,
+  level2PartlyMissing,
   level2Varies,
+  lowGroupMeanReliability,
   lowIcc,
+  missingByGroup,
   missingGroupId,
+  nonNumericValues,
+  outcomeConstantWithin,
+  predictorBetweenShare,
+  sentinelValues,
   singletonGroups,
+  smallGroups,
+  unbalancedGroups,
+  undeclaredLevel2,
+  unitInSeveralGroups,
   unreadableLines,
 ];

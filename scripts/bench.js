@@ -25,9 +25,9 @@
 // when the bench itself broke (the baseline failed, or bench-child.js gave no result).
 // Results also go to bench-output/bench.json.
 
-import { spawn } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
-import { cpus, tmpdir } from 'node:os';
+import { cpus, loadavg, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
@@ -90,6 +90,17 @@ if (!existsSync(CLI)) {
 mkdirSync(WORK, { recursive: true });
 mkdirSync(OUT_DIR, { recursive: true });
 
+// the code being measured: src/ may change between runs, so every result names its commit
+function codeVersion() {
+  const git = (...a) => spawnSync('git', a, { cwd: root, encoding: 'utf8' });
+  const head = git('rev-parse', '--short', 'HEAD');
+  if (head.status !== 0) return { commit: null, dirty: null };
+  const st = git('status', '--porcelain', '--', 'src', 'rules');
+  return { commit: head.stdout.trim(), dirty: st.stdout.trim() ? st.stdout.trim().split('\n').length : 0 };
+}
+const code = codeVersion();
+const distBuiltAt = statSync(CLI).mtime.toISOString();
+
 // ---- helpers --------------------------------------------------------------------------
 const median = (xs) => {
   const s = xs.filter((x) => Number.isFinite(x)).sort((a, b) => a - b);
@@ -102,19 +113,35 @@ const r1 = (x) => (x == null ? null : Math.round(x * 10) / 10);
 const r2 = (x) => (x == null ? null : Math.round(x * 100) / 100);
 const fmtInt = (n) => n.toLocaleString('en-US');
 
-/** Spawn `node args…`, time it from spawn to exit, collect its output. */
+// CPU seconds (user+sys) of a spawned process, via GNU time when the system has it: less
+// sensitive than wall time to other load on the machine, and taken the same way for both sides
+const GNU_TIME = existsSync('/usr/bin/time') ? '/usr/bin/time' : null;
+const TIME_TAG = 'NRBENCH_TIME';
+
+/** Spawn `node args…`, time it from spawn to exit, collect its output (and CPU time if we can). */
 function timed(args, env = {}) {
   return new Promise((resolvePromise) => {
+    const load1 = loadavg()[0];
+    const [cmd, argv] = GNU_TIME
+      ? [GNU_TIME, ['-f', `${TIME_TAG} %U %S`, process.execPath, ...args]]
+      : [process.execPath, args];
     const t0 = performance.now();
-    const child = spawn(process.execPath, args, { cwd: root, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+    const child = spawn(cmd, argv, { cwd: root, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
     let stdout = '';
     let stderr = '';
     child.stdout.on('data', (d) => (stdout += d));
     child.stderr.on('data', (d) => (stderr += d));
-    child.on('error', (e) => resolvePromise({ wallMs: performance.now() - t0, code: null, stdout, stderr: String(e) }));
-    child.on('close', (code, signal) =>
-      resolvePromise({ wallMs: performance.now() - t0, code, signal, stdout, stderr }),
-    );
+    child.on('error', (e) => resolvePromise({ wallMs: performance.now() - t0, code: null, stdout, stderr: String(e), load1 }));
+    child.on('close', (code, signal) => {
+      const wallMs = performance.now() - t0;
+      let cpuMs = null;
+      const m = new RegExp(`^${TIME_TAG} ([\\d.]+) ([\\d.]+)$`, 'm').exec(stderr);
+      if (m) {
+        cpuMs = (Number(m[1]) + Number(m[2])) * 1000;
+        stderr = stderr.replace(m[0], '').replace(/^Command exited with non-zero status \d+$/m, '').trim();
+      }
+      resolvePromise({ wallMs, cpuMs, code, signal, stdout, stderr, load1 });
+    });
   });
 }
 
@@ -151,8 +178,8 @@ async function runBaseline(file) {
   } catch {
     // reported as an error below
   }
-  if (p.code !== 0 || !inner) return { ok: false, wallMs: p.wallMs, error: `exit ${p.code ?? p.signal}: ${p.stderr.trim().slice(0, 500)}` };
-  return { ok: true, wallMs: p.wallMs, maxRssMB: inner.maxRssMB, innerWallMs: inner.wallMs, groups: inner.groups };
+  if (p.code !== 0 || !inner) return { ok: false, wallMs: p.wallMs, load1: p.load1, error: `exit ${p.code ?? p.signal}: ${p.stderr.trim().slice(0, 500)}` };
+  return { ok: true, wallMs: p.wallMs, cpuMs: p.cpuMs, load1: p.load1, maxRssMB: inner.maxRssMB, innerWallMs: inner.wallMs, groups: inner.groups };
 }
 
 async function runAudit(file, roles, tag) {
@@ -171,7 +198,7 @@ async function runAudit(file, roles, tag) {
   rmSync(resultFile, { force: true });
   if (!res) {
     // no result line at all: the harness itself broke (bench-child.js did not get past main)
-    return { ok: false, harness: true, wallMs: p.wallMs, error: `no result from bench-child.js (exit ${p.code ?? p.signal}): ${p.stderr.trim().slice(0, 500)}` };
+    return { ok: false, harness: true, wallMs: p.wallMs, load1: p.load1, error: `no result from bench-child.js (exit ${p.code ?? p.signal}): ${p.stderr.trim().slice(0, 500)}` };
   }
   // 0 and 1 are gate results (1 = a blocker finding); 2/3 mean the audit did not run through
   if (res.exitCode !== 0 && res.exitCode !== 1) {
@@ -180,6 +207,8 @@ async function runAudit(file, roles, tag) {
     return {
       ok: false,
       wallMs: p.wallMs,
+      cpuMs: p.cpuMs,
+      load1: p.load1,
       maxRssMB: res.maxRssMB,
       exitCode: res.exitCode,
       failedQuery: res.failedQuery,
@@ -196,7 +225,7 @@ async function runAudit(file, roles, tag) {
     // a report is not needed for the figures
   }
   if (!opt.keep) rmSync(out, { force: true });
-  return { ok: true, wallMs: p.wallMs, maxRssMB: res.maxRssMB, exitCode: res.exitCode, timings: res.timings, queries: res.queries, report };
+  return { ok: true, wallMs: p.wallMs, cpuMs: p.cpuMs, load1: p.load1, maxRssMB: res.maxRssMB, exitCode: res.exitCode, timings: res.timings, queries: res.queries, report };
 }
 
 // ---- run --------------------------------------------------------------------------------
@@ -259,23 +288,31 @@ for (const { rows, groups } of cases) {
     baseline: {
       medianWallMs: r1(baseWall),
       medianInnerWallMs: r1(median(okB.map((x) => x.innerWallMs))),
+      medianCpuMs: r1(median(okB.map((x) => x.cpuMs))),
       peakRssMB: r1(max(okB.map((x) => x.maxRssMB))),
       medianRssMB: r1(median(okB.map((x) => x.maxRssMB))),
       groupsSeen: okB[0]?.groups ?? null,
-      runs: base.map(({ ok, wallMs, maxRssMB, innerWallMs, error }) => ({ ok, wallMs: r1(wallMs), maxRssMB, innerWallMs, error })),
+      runs: base.map(({ ok, wallMs, cpuMs, load1, maxRssMB, innerWallMs, error }) => ({ ok, wallMs: r1(wallMs), cpuMs: r1(cpuMs), load1, maxRssMB, innerWallMs, error })),
     },
     audit: {
       medianWallMs: r1(auditWall),
       peakRssMB: r1(auditRss),
       medianRssMB: r1(median(okA.map((x) => x.maxRssMB))),
+      medianCpuMs: r1(median(okA.map((x) => x.cpuMs))),
       exitCode: okA[0]?.exitCode ?? null,
       report: okA[0]?.report ?? null,
       medianPhasesMs: phases,
       queriesOfMedianRun: okA.length ? [...okA].sort((x, y) => x.wallMs - y.wallMs)[okA.length >> 1].queries : [],
       failure,
-      runs: aud.map(({ ok, wallMs, maxRssMB, exitCode, error }) => ({ ok, wallMs: r1(wallMs), maxRssMB, exitCode, error })),
+      runs: aud.map(({ ok, wallMs, cpuMs, load1, maxRssMB, exitCode, error }) => ({ ok, wallMs: r1(wallMs), cpuMs: r1(cpuMs), load1, maxRssMB, exitCode, error })),
     },
     ratio: r2(ratio),
+    cpuRatio: (() => {
+      const b = median(okB.map((x) => x.cpuMs));
+      const a = median(okA.map((x) => x.cpuMs));
+      return b && a ? r2(a / b) : null;
+    })(),
+    load1: { min: Math.min(...[...base, ...aud].map((x) => x.load1)), max: Math.max(...[...base, ...aud].map((x) => x.load1)) },
     targets: {
       time: timeJudged ? (ratio == null ? verdictOf(false) : verdictOf(ratio <= TARGET_RATIO)) : 'n/a',
       rss: verdictOf(auditRss != null && auditRss <= TARGET_RSS_MB),
@@ -302,7 +339,8 @@ const verdict = (r) => {
 
 console.log(
   `\nnestready bench — node ${process.version}, ${cpus().length} CPU(s), repeat ${repeat}, seed ${seed}` +
-    `, audit memory limit ${opt['memory-limit'] ?? '200MB (CLI default)'}; wall = whole spawned process\n`,
+    `, audit memory limit ${opt['memory-limit'] ?? 'CLI default'}; wall = whole spawned process` +
+    `\ncode: ${code.commit ?? 'unknown'}${code.dirty ? ` + ${code.dirty} uncommitted file(s) in src/ rules/` : ''}, dist built ${distBuiltAt}\n`,
 );
 console.log(
   table(
@@ -323,7 +361,7 @@ console.log(
 console.log('\nwhere the audit process spends its time (medians, seconds; from scripts/bench-child.js):\n');
 console.log(
   table(
-    ['rows', 'groups', 'node start', 'import duckdb', 'import cli', 'main', 'to profile q', 'profile q', 'after profile', 'lookups n/s', 'exit', 'total', 'base inner'],
+    ['rows', 'groups', 'node start', 'import duckdb', 'import cli', 'main', 'to profile q', 'profile q', 'after profile', 'lookups n/s', 'exit', 'total', 'base inner', 'cpu s base/audit'],
     results.map((r) => {
       const p = r.audit.medianPhasesMs;
       return [
@@ -334,12 +372,13 @@ console.log(
         s(p.importCliMs),
         s(p.mainMs),
         s(p.toProfileQueryMs),
-        s(p.profileQueryMs),
+        p.profileQueries > 1 ? `${s(p.profileQueryMs)} (${p.profileQueries} passes)` : s(p.profileQueryMs),
         s(p.afterProfileMs),
         p.lookupQueries == null ? '-' : `${p.lookupQueries} / ${s(p.lookupMs)}`,
         r.audit.medianWallMs == null || p.totalInProcessMs == null ? '-' : s(Math.max(0, r.audit.medianWallMs - p.totalInProcessMs)),
         s(r.audit.medianWallMs),
         s(r.baseline.medianInnerWallMs),
+        r.baseline.medianCpuMs == null ? '-' : `${s(r.baseline.medianCpuMs)} / ${s(r.audit.medianCpuMs)}` + (r.cpuRatio ? ` (${r.cpuRatio.toFixed(2)}x)` : ''),
       ];
     }),
   ),
@@ -352,7 +391,8 @@ console.log(
     '\n  after profile = result -> arquero, stats, rules and their lookups, grade, render, write' +
     '\n  lookups n/s   = number of rule lookup queries / their seconds (part of after profile)' +
     '\n  exit          = parent wall minus the child\'s in-process time: DuckDB/Node teardown and spawn overhead (approx.)' +
-    '\n  base inner    = baseline group-by from DuckDB instance creation to fetched result (its own wallMs)',
+    '\n  base inner    = baseline group-by from DuckDB instance creation to fetched result (its own wallMs)' +
+    '\n  cpu s         = user+sys CPU seconds of each whole process (GNU time), less sensitive than wall to other load',
 );
 
 const bad = (v) => v === 'MISSED' || v === 'FAILED';
@@ -373,6 +413,12 @@ for (const r of missed) {
 for (const r of errored) console.log(`ERROR   ${fmtInt(r.rows)} rows x ${fmtInt(r.groups)} groups: the bench could not measure this case, see stderr`);
 if (!missed.length && !errored.length) console.log('all targets met');
 
+const loads = results.flatMap((r) => [r.load1.min, r.load1.max]).filter(Number.isFinite);
+if (loads.length) console.log(`system load (1-min avg) at run starts: ${Math.min(...loads).toFixed(2)}..${Math.max(...loads).toFixed(2)} on ${cpus().length} CPU(s)`);
+if (loads.length && Math.max(...loads) > cpus().length) console.log('WARNING the machine was busy during the runs: wall times are inflated and noisy; compare the cpu s columns too');
+const distChanged = statSync(CLI).mtime.toISOString() !== distBuiltAt;
+if (distChanged) console.log(`WARNING dist/ was rebuilt while the bench ran (now ${statSync(CLI).mtime.toISOString()}): runs may mix code versions`);
+
 const jsonPath = join(OUT_DIR, 'bench.json');
 writeFileSync(
   jsonPath,
@@ -385,6 +431,7 @@ writeFileSync(
       repeat,
       seed,
       auditMemoryLimit: opt['memory-limit'] ?? null,
+      code: { ...code, distBuiltAt, distChangedDuringRun: distChanged },
       failedRuns: failures,
       targets: { ratioMax: TARGET_RATIO, ratioJudgedAtRows: RATIO_AT_ROWS, auditPeakRssMaxMB: TARGET_RSS_MB },
       results,

@@ -5,13 +5,20 @@ import type { Profile } from './profile/types.js';
 import { checkColumns } from './roles/check-columns.js';
 import type { LoadedRoles } from './roles/load.js';
 import type { Roles } from './roles/types.js';
+import { buildPlotData } from './report/plot-data.js';
+import { rulesRun } from './report/rules-run.js';
 import { REPORT_SCHEMA } from './report/types.js';
 import type { Report } from './report/types.js';
 import type { AnyRule } from './rules/define.js';
 import { runRules } from './rules/engine.js';
 import { createLookup } from './rules/lookup.js';
+import { InputError } from './errors.js';
 import { openDelivery } from './source/open.js';
+import type { Encoding, InputFormat, Source } from './source/open.js';
+import { openPostgres } from './source/postgres.js';
+import type { PostgresInput } from './source/postgres.js';
 import { outcomeStats } from './stats/index.js';
+import { binaryGroupsFromMoments, logisticNullModel, momentsAreZeroOne } from './stats/logistic-null-model.js';
 import type { OutcomeStats } from './stats/types.js';
 import { median } from './util/median.js';
 import { TOOL } from './version.js';
@@ -23,20 +30,49 @@ export interface AuditOptions {
   memoryLimit?: string;
   threads?: number;
   catalogue?: readonly AnyRule[];
+  /** the delivery's format when not detected from its name and content */
+  inputFormat?: InputFormat;
+  /** text encoding of a CSV/TSV delivery (default UTF-8) */
+  encoding?: Encoding;
+  /** Excel: the worksheet to read (default the first) */
+  sheet?: string;
+  /** any line that cannot be read is an input error instead of a finding */
+  strict?: boolean;
+  /** what the report calls a file input (default its path; the CLI passes "-" for a spooled stdin) */
+  displayPath?: string;
+}
+
+/** A delivery: a file path (`-` for standard input), or a table or query in PostgreSQL. */
+export type AuditInput = string | PostgresInput;
+
+async function openInput(input: AuditInput, roles: Roles, options: AuditOptions): Promise<Source> {
+  const common = { missing: roles.missing, memoryLimit: options.memoryLimit, threads: options.threads };
+  if (typeof input !== 'string') return openPostgres(input, roles, common);
+  return openDelivery(input, roles, {
+    ...common,
+    format: options.inputFormat,
+    encoding: options.encoding,
+    sheet: options.sheet,
+    displayPath: options.displayPath,
+  });
 }
 
 /** Audit one delivery against a role map: open, profile once, run the rules, grade. */
-export async function audit(path: string, roleMap: LoadedRoles | Roles, options: AuditOptions = {}): Promise<Report> {
+export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, options: AuditOptions = {}): Promise<Report> {
   const loaded: LoadedRoles = 'roles' in roleMap ? roleMap : { roles: roleMap, file: 'role map', locate: () => 'role map' };
   const { roles } = loaded;
-  const source = await openDelivery(path, roles, {
-    missing: roles.missing,
-    memoryLimit: options.memoryLimit,
-    threads: options.threads,
-  });
+  const source = await openInput(input, roles, options);
+  const path = source.path;
   try {
     checkColumns(roles, source.header, loaded.locate, path);
     const profile = await buildProfile(source, roles);
+    if (options.strict && profile.rejected.length) {
+      const first = profile.rejected[0];
+      throw new InputError(
+        `${path}: ${profile.rejected.length} line(s) could not be read (first: line ${first.line}, ${first.reason}); ` +
+          'with --strict any unreadable line is an input error',
+      );
+    }
     const outcomes = outcomeStatistics(profile, roles);
     const findings = await runRules(
       options.catalogue ?? builtIn,
@@ -52,9 +88,11 @@ export async function audit(path: string, roleMap: LoadedRoles | Roles, options:
       outcomes,
       findings,
       ...grade(findings),
+      plots: buildPlotData(profile, roles, outcomes),
+      rulesRun: rulesRun(options.catalogue ?? builtIn, roles),
     };
   } finally {
-    source.close();
+    await source.close();
   }
 }
 
@@ -64,7 +102,11 @@ function outcomeStatistics(profile: Profile, roles: Roles): Record<string, Outco
   for (const name of roles.outcomes) {
     const col = profile.column(name);
     if (!col.numericProfiled || col.type === 'categorical') continue;
-    out[name] = outcomeStats(profile.moments(name));
+    const moments = profile.moments(name);
+    out[name] = outcomeStats(moments);
+    // a 0/1 outcome also gets the logistic null model (the binary-outcome rule reads it)
+    const zeroOne = col.type === 'binary' && (col.numMin ?? 0) >= 0 && (col.numMax ?? 1) <= 1 && momentsAreZeroOne(moments);
+    if (zeroOne) out[name].logistic = logisticNullModel(binaryGroupsFromMoments(moments));
   }
   return out;
 }

@@ -1,41 +1,79 @@
-import { writeFileSync } from 'node:fs';
-import { Command, CommanderError, Option } from 'commander';
+import { rmSync } from 'node:fs';
+import { Command, CommanderError, InvalidArgumentError, Option } from 'commander';
 import { catalogue } from '../rules/index.js';
 import { audit } from './audit.js';
 import { InputError } from './errors.js';
 import { exitCode } from './grade.js';
 import type { FailOn } from './grade.js';
+import { planOutputs, writeOutput } from './cli-output.js';
+import { startProgress } from './cli-progress.js';
+import { problemsCsv } from './problems/csv.js';
+import { problemRows } from './problems/collect.js';
+import { DEFAULT_MAX_ROWS } from './problems/types.js';
 import { catalogueJson, catalogueMarkdown, catalogueText } from './report/catalogue.js';
-import { renderJson } from './report/json.js';
-import { renderText } from './report/text.js';
-import type { Report } from './report/types.js';
+import { REPORT_FORMATS, renderReport } from './report/render.js';
+import type { ReportFormat } from './report/render.js';
+import { PRESETS } from './presets/index.js';
+import type { PresetName } from './presets/index.js';
 import { loadRoles } from './roles/load.js';
 import { roleMapSchema } from './roles/schema.js';
+import { ENCODINGS, INPUT_FORMATS, STDIN } from './source/open.js';
+import type { Encoding, InputFormat } from './source/open.js';
+import { spoolStdin } from './source/stdin.js';
 import { TOOL } from './version.js';
 
-const REPORT_FORMATS = { text: true, json: true } satisfies Record<string, true>;
 const CATALOGUE_FORMATS = { text: catalogueText, json: catalogueJson, md: catalogueMarkdown };
 const FAIL_ON = { blocker: true, warning: true, never: true } satisfies Record<FailOn, true>;
 
 interface AuditFlags {
   roles: string;
-  format: keyof typeof REPORT_FORMATS;
-  out?: string;
+  preset?: PresetName;
+  format: ReportFormat;
+  out: string[];
+  withPlotData?: boolean;
+  problems?: string;
+  maxRows: number;
+  quiet?: boolean;
   failOn: FailOn;
   values: boolean;
   color?: boolean;
   memoryLimit: string;
+  inputFormat?: InputFormat;
+  encoding?: Encoding;
+  sheet?: string;
+  source?: string;
+  table?: string;
+  query?: string;
+  strict?: boolean;
+}
+
+/** The delivery the flags name: a file, `-` (stdin, spooled once so every reader sees the same bytes), or PostgreSQL. */
+async function deliveryInput(delivery: string | undefined, flags: AuditFlags) {
+  if (flags.source !== undefined) {
+    if (delivery !== undefined) throw new InputError('give either a delivery file or --source, not both');
+    if (!/^postgres(ql)?:\/\//.test(flags.source)) throw new InputError(`--source: expected a postgres:// URL`);
+    if ((flags.table === undefined) === (flags.query === undefined)) throw new InputError('--source needs exactly one of --table or --query');
+    if (flags.problems) throw new InputError('--problems needs a delivery file (not --source)');
+    return { input: { url: flags.source, table: flags.table, query: flags.query }, label: flags.table ?? 'query', done: () => {} };
+  }
+  if (delivery === undefined) throw new InputError('no delivery: give a file, - for stdin, or --source postgres://… --table NAME');
+  if (flags.table !== undefined || flags.query !== undefined) throw new InputError('--table and --query go with --source');
+  if (delivery !== STDIN) return { input: delivery, label: delivery, done: () => {} };
+  const { file, dir } = await spoolStdin();
+  return { input: file, label: STDIN, displayPath: STDIN, done: () => rmSync(dir, { recursive: true, force: true }) };
 }
 
 /** Colour only for a terminal, never when NO_COLOR is set or output goes to a file. */
-function colorLevel(flags: AuditFlags): 0 | 1 | 2 | 3 {
-  if (flags.color === false || flags.out || process.env.NO_COLOR) return 0;
+function colorLevel(flags: AuditFlags, toFile: boolean): 0 | 1 | 2 | 3 {
+  if (flags.color === false || toFile || process.env.NO_COLOR) return 0;
   if (flags.color === true) return 2;
   return process.stdout.isTTY ? 2 : 0;
 }
 
-function render(report: Report, flags: AuditFlags): string {
-  return flags.format === 'json' ? renderJson(report) : renderText(report, { color: colorLevel(flags) });
+const collect = (value: string, previous: string[]) => [...previous, value];
+function count(value: string): number {
+  if (!/^\d+$/.test(value)) throw new InvalidArgumentError('expected a whole number');
+  return Number(value);
 }
 
 function buildProgram(): Command {
@@ -48,22 +86,62 @@ function buildProgram(): Command {
   program
     .command('audit')
     .description('profile a delivery, run the rule catalogue, grade it and print the report')
-    .argument('<delivery>', 'the data file (CSV or TSV)')
+    .argument('[delivery]', 'the data file (CSV, TSV, Parquet, Arrow IPC, JSON, NDJSON, .xlsx; CSV/JSON may be .gz), or - for stdin')
     .requiredOption('-r, --roles <file>', 'the YAML role map')
-    .addOption(new Option('-f, --format <format>', 'report format').choices(Object.keys(REPORT_FORMATS)).default('text'))
-    .option('-o, --out <file>', 'write the report to a file instead of stdout')
+    .addOption(new Option('--preset <name>', 'rule settings merged under the role map\'s own (README: Presets)').choices(Object.keys(PRESETS)))
+    .addOption(new Option('-f, --format <format>', 'report format on stdout, or for --out files without a known extension').choices(REPORT_FORMATS).default('text'))
+    .option('-o, --out <file>', 'write the report to this file instead of stdout; repeatable, format from the extension (.html .json .md .xml=JUnit .txt)', collect, [])
+    .option('--with-plot-data', 'JSON: also write the plot data and the rules that ran (the whole report object)')
+    .option('--problems <file>', 'write every offending record to this CSV (record, group, unit, rule, severity, column, reason)')
+    .option('--max-rows <n>', 'at most this many problem rows; a last "#" line counts the rest', count, DEFAULT_MAX_ROWS)
+    .option('-q, --quiet', 'no progress line and no notes on stderr')
     .addOption(new Option('--fail-on <severity>', 'exit 1 when a finding is at least this severe').choices(Object.keys(FAIL_ON)).default('blocker'))
     .option('--no-values', 'leave raw data values out of the report (IDs and record numbers stay)')
     .option('--color', 'force colour')
     .option('--no-color', 'no colour')
     .option('--memory-limit <size>', 'DuckDB memory before it spills to disk', '200MB')
-    .action(async (delivery: string, flags: AuditFlags) => {
-      const roles = loadRoles(flags.roles, catalogue);
-      const report = await audit(delivery, roles, { includeValues: flags.values, memoryLimit: flags.memoryLimit });
-      const text = render(report, flags);
-      if (flags.out) writeFileSync(flags.out, text);
-      else process.stdout.write(text);
-      process.exitCode = exitCode(report.findings, flags.failOn);
+    .addOption(new Option('--input-format <format>', 'the delivery format (default: from the name and content)').choices(INPUT_FORMATS))
+    .addOption(new Option('--encoding <encoding>', 'text encoding of a CSV/TSV delivery').choices(ENCODINGS).default('utf-8'))
+    .option('--sheet <name>', 'Excel: the worksheet to read (default the first)')
+    .option('--source <url>', 'audit a table or query in PostgreSQL where it lives (postgres://user@host:port/db)')
+    .option('--table <name>', 'with --source: the table or view')
+    .option('--query <sql>', 'with --source: a query whose rows are the delivery')
+    .option('--strict', 'any line that cannot be read is an input error (exit 2), not a finding')
+    .action(async (deliveryArg: string | undefined, flags: AuditFlags) => {
+      const roles = loadRoles(flags.roles, catalogue, { preset: flags.preset });
+      const resolved = await deliveryInput(deliveryArg, flags);
+      const delivery = typeof resolved.input === 'string' ? resolved.input : resolved.label;
+      try {
+        const stop = startProgress(resolved.label, 'auditing', { quiet: flags.quiet === true });
+        const report = await audit(resolved.input, roles, {
+          includeValues: flags.values,
+          memoryLimit: flags.memoryLimit,
+          inputFormat: flags.inputFormat,
+          encoding: flags.encoding,
+          sheet: flags.sheet,
+          strict: flags.strict === true,
+          displayPath: resolved.displayPath,
+        }).finally(stop);
+        for (const target of planOutputs(flags.out, flags.format)) {
+          const options = { color: colorLevel(flags, target.path !== null), failOn: flags.failOn, withPlotData: flags.withPlotData === true };
+          writeOutput(target, await renderReport(report, target.format, options));
+        }
+        if (flags.problems) {
+          const stopRows = startProgress(delivery, 'collecting problem rows of', { quiet: flags.quiet === true });
+          const found = await problemRows(delivery, roles.roles, report.findings, {
+            maxRows: flags.maxRows,
+            includeValues: flags.values,
+            memoryLimit: flags.memoryLimit,
+          }).finally(stopRows);
+          writeOutput(flags.problems, problemsCsv(found));
+          if (found.omitted && !flags.quiet) {
+            process.stderr.write(`nestready: ${flags.problems}: ${found.omitted} of ${found.total} problem rows left out (--max-rows ${flags.maxRows})\n`);
+          }
+        }
+        process.exitCode = exitCode(report.findings, flags.failOn);
+      } finally {
+        resolved.done();
+      }
     });
 
   program

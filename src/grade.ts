@@ -6,6 +6,9 @@ export type Grade = 'A' | 'B' | 'C' | 'D' | 'F';
 /** Points a finding of each severity costs (README, "Grading"). */
 export const PENALTY = { blocker: 25, warning: 8, note: 2 } as const;
 
+/** Notes together cost at most this much: they are worth knowing, never a reason to fail a grade. */
+export const NOTES_CAP = 10;
+
 /** Lowest score for each grade, best first. */
 export const GRADE_FLOORS: [Grade, number][] = [
   ['A', 90],
@@ -22,7 +25,7 @@ export interface Graded {
 }
 
 /**
- * Score = max(0, 100 − 25·blockers − 8·warnings − 2·notes); grade by the floors above, but any
+ * Score = max(0, 100 − 25·blockers − 8·warnings − min(10, 2·notes)); grade by the floors above, but any
  * blocker makes it F; verdict not-ready with a blocker, caveats with a warning, else ready.
  */
 export function grade(findings: readonly Finding[]): Graded {
@@ -30,7 +33,7 @@ export function grade(findings: readonly Finding[]): Graded {
   const blockers = count('blocker');
   const warnings = count('warning');
   const notes = count('note');
-  const score = Math.max(0, 100 - PENALTY.blocker * blockers - PENALTY.warning * warnings - PENALTY.note * notes);
+  const score = Math.max(0, 100 - PENALTY.blocker * blockers - PENALTY.warning * warnings - Math.min(NOTES_CAP, PENALTY.note * notes));
   const byScore = GRADE_FLOORS.find(([, floor]) => score >= floor)![0];
   const g: Grade = blockers > 0 ? 'F' : byScore;
   const verdict: Verdict = blockers > 0 ? 'not-ready' : warnings > 0 ? 'caveats' : 'ready';

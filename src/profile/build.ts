@@ -1,6 +1,7 @@
 import * as aq from 'arquero';
 import type { Roles } from '../roles/types.js';
 import type { Source } from '../source/open.js';
+import { settleProbes } from '../source/probe.js';
 import type { GroupMoments } from '../stats/types.js';
 import { key, profileQuery } from './sql.js';
 import type { Storage } from '../source/sql.js';
@@ -9,15 +10,27 @@ import { columnProfile } from './columns.js';
 import { roleOf } from './role-of.js';
 import type { ColumnProfile, Profile } from './types.js';
 
-/** Which statistics each column needs: numbers for every numeric column and declared variable. */
-export function planColumns(header: readonly string[], roles: Roles, storage: Map<string, Storage>): ProfileColumnPlan[] {
+/**
+ * Which statistics each column needs: numbers for every numeric column and declared variable
+ * (not for a text column whose sample held no number and whose type the role map leaves open),
+ * and for the source's probed columns.
+ */
+export function planColumns(
+  header: readonly string[],
+  roles: Roles,
+  storage: Map<string, Storage>,
+  hints: { probe?: ReadonlySet<string>; textOnly?: ReadonlySet<string> } = {},
+): ProfileColumnPlan[] {
   return header
     .filter((name) => name !== roles.group)
     .map((name) => {
       const role = roleOf(name, roles);
       const isVariable = role === 'outcome' || role === 'level1' || role === 'level2';
       const s = storage.get(name) ?? 'text';
-      const numeric = s === 'double' || (isVariable && roles.types[name] !== 'categorical');
+      const numeric =
+        s === 'double' ||
+        hints.probe?.has(name) === true ||
+        (isVariable && roles.types[name] !== 'categorical' && !hints.textOnly?.has(name));
       return { name, storage: s, numeric };
     });
 }
@@ -29,17 +42,23 @@ export function planColumns(header: readonly string[], roles: Roles, storage: Ma
  */
 export async function buildProfile(source: Source, roles: Roles): Promise<Profile> {
   let plan: ProfileColumnPlan[];
-  let reader;
+  let result;
   let rejected;
   for (;;) {
-    plan = planColumns(source.header, roles, source.storage);
-    reader = await source.con.runAndReadAll(profileQuery(source.view, roles.group, plan));
+    plan = planColumns(source.header, roles, source.storage, source);
+    result = await source.columns(profileQuery(source.view, roles.group, plan, source.dialect));
     rejected = await source.rejects();
     const retype = [...new Set(rejected.filter((r) => r.column && source.storage.get(r.column) === 'double').map((r) => r.column!))];
     if (retype.length === 0) break;
     await source.readAsText(retype);
   }
-  const raw = aq.table(reader.getColumnsObjectJS() as Record<string, unknown[]>);
+  if (source.probe.size) {
+    const textOnly = new Set(source.textOnly);
+    plan = await settleProbes(result, plan, source, (name) =>
+      planColumns([name], roles, new Map([[name, 'text']]), { textOnly })[0]?.numeric ?? false,
+    );
+  }
+  const raw = aq.table(result);
 
   const rows = (Array.from(raw.array('n')) as number[]).reduce((a, b) => a + b, 0);
   const missingRow = raw.filter((d: { group: unknown }) => d.group === null);

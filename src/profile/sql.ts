@@ -1,4 +1,6 @@
-import { ident, numeric } from '../source/sql.js';
+import { duckdb } from '../source/dialect.js';
+import type { Dialect } from '../source/dialect.js';
+import { ident } from '../source/sql.js';
 import type { Storage } from '../source/sql.js';
 
 export interface ProfileColumnPlan {
@@ -17,23 +19,24 @@ export function key(column: string, stat: string): string {
  * The single profiling query: one GROUP BY over the delivery computing, per group, the
  * sufficient statistics of every column. Records with a missing group ID form the NULL group.
  * Text columns get non-missing count and min/max (min = max ⇔ constant in the group); numeric
- * readings get count, min, max, mean and the within-group sum of squares.
+ * readings get count, min, max, mean and the within-group sum of squares. The same query runs
+ * in DuckDB and in PostgreSQL: what differs between them goes through the dialect `d`.
  */
-export function profileQuery(view: string, group: string, plan: readonly ProfileColumnPlan[]): string {
+export function profileQuery(view: string, group: string, plan: readonly ProfileColumnPlan[], d: Dialect = duckdb): string {
   const inner = [`${ident(group)} AS "group"`];
-  const aggs = ['count(*)::DOUBLE AS n'];
+  const aggs = [`${d.double('count(*)')} AS n`];
   plan.forEach((col, i) => {
     const as = (stat: string) => ident(key(col.name, stat));
     const c = ident(col.name);
     inner.push(`${c} AS t${i}`);
-    aggs.push(`count(t${i})::DOUBLE AS ${as('nn')}`);
-    if (col.storage === 'text') aggs.push(`min(t${i}) AS ${as('min')}`, `max(t${i}) AS ${as('max')}`);
+    aggs.push(`${d.double(`count(t${i})`)} AS ${as('nn')}`);
+    if (col.storage === 'text') aggs.push(`min(${d.ordered(`t${i}`)}) AS ${as('min')}`, `max(${d.ordered(`t${i}`)}) AS ${as('max')}`);
     if (!col.numeric) return;
     // a text column's numeric reading is cast once here, not once per aggregate
     const x = col.storage === 'double' ? `t${i}` : `x${i}`;
-    if (col.storage === 'text') inner.push(`${numeric(col.name)} AS x${i}`);
+    if (col.storage === 'text') inner.push(`${d.numeric(c)} AS x${i}`);
     aggs.push(
-      `count(${x})::DOUBLE AS ${as('num')}`,
+      `${d.double(`count(${x})`)} AS ${as('num')}`,
       `min(${x}) AS ${as('nmin')}`,
       `max(${x}) AS ${as('nmax')}`,
       `avg(${x}) AS ${as('mean')}`,
@@ -41,5 +44,5 @@ export function profileQuery(view: string, group: string, plan: readonly Profile
       `var_pop(${x}) * count(${x}) AS ${as('ss')}`,
     );
   });
-  return `SELECT "group", ${aggs.join(', ')} FROM (SELECT ${inner.join(', ')} FROM ${view}) GROUP BY "group"`;
+  return `SELECT "group", ${aggs.join(', ')} FROM (SELECT ${inner.join(', ')} FROM ${view}) AS nr_rows GROUP BY "group"`;
 }

@@ -9,8 +9,9 @@ import { sizeHistogram } from './plots/size-histogram.js';
 import type { PlotData } from './types.js';
 
 /**
- * Groups with fewer records than this are marked small on the size plot: Clarke (2008) found
- * valid estimates with an average of five records per group and biased ones at two.
+ * Groups with fewer records than this are marked small on the size plot when the catalogue has
+ * no small-groups rule to take it from: Clarke (2008) found valid estimates with an average of
+ * five records per group and biased ones at two.
  */
 export const SMALL_GROUP_THRESHOLD = 5;
 
@@ -40,17 +41,22 @@ export function buildPlotData(profile: Profile, roles: Roles, outcomes: Record<s
     groupSizes: sizeHistogram(profile.groups.array('n') as number[]),
     groupMeans: groupMeansByOutcome,
     predictorShares,
-    smallGroupThreshold: SMALL_GROUP_THRESHOLD,
   };
-  const lowIcc = lowIccThreshold(roles);
+  const small = ruleParam(roles, 'small-groups', 'size_below', SMALL_GROUP_THRESHOLD);
+  if (small !== undefined) data.smallGroupThreshold = small;
+  const lowIcc = ruleParam(roles, 'low-icc', 'icc_below', undefined);
   if (lowIcc !== undefined) data.lowIccThreshold = lowIcc;
   return data;
 }
 
-/** icc_below of the low-icc rule with the role map's settings, or undefined when it is off. */
-function lowIccThreshold(roles: Roles): number | undefined {
-  const rule = catalogue.find((r) => r.meta.id === 'low-icc');
-  if (!rule) return undefined;
+/**
+ * A numeric param of a catalogue rule with the role map's settings (defaults filled in);
+ * undefined when the rule is off, `fallback` when the catalogue has no such rule.
+ */
+function ruleParam(roles: Roles, id: string, param: string, fallback: number | undefined): number | undefined {
+  const rule = catalogue.find((r) => r.meta.id === id);
+  if (!rule) return fallback;
   const params = resolveParams(rule, roles);
-  return params === 'off' || typeof params.icc_below !== 'number' ? undefined : params.icc_below;
+  if (params === 'off') return undefined;
+  return typeof params[param] === 'number' ? (params[param] as number) : fallback;
 }

@@ -1,18 +1,15 @@
 import { Chalk } from 'chalk';
 import type { ChalkInstance } from 'chalk';
-import type { Severity } from '../roles/types.js';
 import type { Finding } from '../rules/types.js';
 import { formatNumber } from '../util/format.js';
+import { listed, shownValues } from './finding-parts.js';
+import { HEADINGS, MARKS, SEVERITIES, THRESHOLD_CAVEAT, VERDICT_TEXT } from './labels.js';
 import type { Report } from './types.js';
 
 export interface TextOptions {
   /** chalk colour level: 0 none … 3 truecolor */
   color: 0 | 1 | 2 | 3;
 }
-
-const HEADINGS: Record<Severity, string> = { blocker: 'Blockers', warning: 'Warnings', note: 'Notes' };
-const MARKS: Record<Severity, string> = { blocker: '[X]', warning: '[!]', note: '[i]' };
-const VERDICT_TEXT = { ready: 'READY', caveats: 'READY WITH CAVEATS', 'not-ready': 'NOT READY' } as const;
 
 /** Terminal report, read top-down: verdict, then findings with the fix to ask for, then statistics. */
 export function renderText(report: Report, options: TextOptions): string {
@@ -29,7 +26,7 @@ export function renderText(report: Report, options: TextOptions): string {
     ),
   );
   out.push('');
-  for (const severity of ['blocker', 'warning', 'note'] as const) {
+  for (const severity of SEVERITIES) {
     const list = report.findings.filter((f) => f.severity === severity);
     if (!list.length) continue;
     out.push(c.bold(`${HEADINGS[severity]} (${list.length})`));
@@ -39,12 +36,7 @@ export function renderText(report: Report, options: TextOptions): string {
   if (!report.findings.length) out.push(tone.ok('No findings.'), '');
   out.push(...statisticsLines(report, c));
   out.push('');
-  out.push(
-    tone.dim(
-      'Thresholds are published rules of thumb, not law: where the study analysis plan or the data ' +
-        "owner's rules say otherwise, they take precedence.",
-    ),
-  );
+  out.push(tone.dim(THRESHOLD_CAVEAT));
   return `${out.join('\n')}\n`;
 }
 
@@ -64,15 +56,9 @@ function findingLines(f: Finding, tone: (s: string) => string, dim: (s: string) 
   lines.push(`      ask for: ${f.fix}`);
   if (f.groups?.length) lines.push(dim(`      groups: ${listed(f.groups, f.count)}`));
   if (f.rows?.length) lines.push(dim(`      records: ${listed(f.rows.map(String), undefined)}`));
-  if (f.values?.length && f.values.join('').length && !f.message.includes(f.values[0])) {
-    lines.push(dim(`      values: ${f.values.join('; ')}`));
-  }
+  const values = shownValues(f);
+  if (values.length) lines.push(dim(`      values: ${values.join('; ')}`));
   return lines;
-}
-
-function listed(items: string[], total: number | undefined): string {
-  const more = total !== undefined && total > items.length ? ` … (+${total - items.length} more)` : '';
-  return items.join(', ') + more;
 }
 
 function statisticsLines(report: Report, c: ChalkInstance): string[] {

@@ -7,6 +7,8 @@ import { createAjv, describeAjvError, pointerToPath } from '../util/ajv.js';
 import { DEFAULT_MISSING, roleMapSchema } from './schema.js';
 import type { Roles, RuleSetting, ValueType } from './types.js';
 import type { AnyRule } from '../rules/define.js';
+import { mergeRuleSettings, PRESETS } from '../presets/index.js';
+import type { PresetName } from '../presets/index.js';
 
 /** A parsed role map plus a way to point at any of its keys (for later errors). */
 export interface LoadedRoles {
@@ -16,19 +18,25 @@ export interface LoadedRoles {
   locate(path: (string | number)[]): string;
 }
 
+/** Options of loadRoles / parseRoles. */
+export interface RoleOptions {
+  /** a named preset (src/presets) whose rule settings are merged under the role map's own */
+  preset?: PresetName;
+}
+
 /** Read, validate and normalise a role map file. Errors are one line naming file:line:col. */
-export function loadRoles(file: string, catalogue: readonly AnyRule[]): LoadedRoles {
+export function loadRoles(file: string, catalogue: readonly AnyRule[], options: RoleOptions = {}): LoadedRoles {
   let text: string;
   try {
     text = readFileSync(file, 'utf8');
   } catch (e) {
     throw new InputError(`${file}: cannot read the role map (${(e as NodeJS.ErrnoException).code ?? e})`);
   }
-  return parseRoles(text, file, catalogue);
+  return parseRoles(text, file, catalogue, options);
 }
 
 /** Validate and normalise role-map text; `file` is only used in messages. */
-export function parseRoles(text: string, file: string, catalogue: readonly AnyRule[]): LoadedRoles {
+export function parseRoles(text: string, file: string, catalogue: readonly AnyRule[], options: RoleOptions = {}): LoadedRoles {
   const lineCounter = new LineCounter();
   const doc = parseDocument(text, { lineCounter, prettyErrors: false, uniqueKeys: true });
   const at = (offset: number) => {
@@ -57,7 +65,9 @@ export function parseRoles(text: string, file: string, catalogue: readonly AnyRu
     throw new InputError(`${locate(['outcome'])}: give either outcome or outcomes, not both`);
   }
   singleOutcome = map.outcome !== undefined;
-  const rules = validateRuleSettings((map.rules ?? {}) as Record<string, RuleSetting>, catalogue, locate);
+  const own = (map.rules ?? {}) as Record<string, RuleSetting>;
+  const settings = options.preset ? mergeRuleSettings(presetRules(options.preset), own) : own;
+  const rules = validateRuleSettings(settings, catalogue, locate);
   const roles: Roles = {
     group: map.group as string,
     ...(map.unit !== undefined && { unit: map.unit as string }),
@@ -71,6 +81,12 @@ export function parseRoles(text: string, file: string, catalogue: readonly AnyRu
   };
   checkRoleOverlap(roles, locate, map.outcome !== undefined);
   return { roles, file, locate };
+}
+
+function presetRules(name: string): Record<string, RuleSetting> {
+  const preset = (PRESETS as Record<string, { rules: Record<string, RuleSetting> }>)[name];
+  if (!preset) throw new InputError(`unknown preset "${name}" (known: ${Object.keys(PRESETS).join(', ')})`);
+  return structuredClone(preset.rules);
 }
 
 function toList(v: unknown): string[] {

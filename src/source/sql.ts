@@ -16,6 +16,13 @@ export function literal(value: string): string {
   return `'${value.replace(/'/g, "''")}'`;
 }
 
+/** A text column with values that are blank or a missing token once trimmed read as NULL. */
+export function blankAsNull(column: string, missing: readonly string[]): string {
+  const c = ident(column);
+  const tokens = [...new Set(['', ...missing])].map(literal).join(', ');
+  return `CASE WHEN trim(${c}) IN (${tokens}) THEN NULL ELSE ${c} END`;
+}
+
 /** The numeric reading of a text column: NULL when it is not a number. */
 export function numeric(column: string): string {
   return numericExpr(ident(column));
@@ -26,22 +33,58 @@ export function numericExpr(expr: string): string {
   return `TRY_CAST(${expr} AS DOUBLE)`;
 }
 
+/** How the CSV reader is told what the sniffer cannot guess (or the user said). */
+export interface CsvOptions {
+  /** field delimiter; sniffed when absent */
+  delim?: string;
+  /** 'utf-8' (default; a byte-order mark is skipped) or 'latin-1' */
+  encoding?: 'utf-8' | 'latin-1';
+  /** 'gzip' for a compressed file whose name does not end in .gz (stdin) */
+  compression?: 'gzip';
+  /**
+   * Read with RFC 4180 quoting ('"', doubled to escape) and no sniffing: for a file the sniffer
+   * reads without quoting because some of its quotes are broken, which would keep the quotes of
+   * every well-quoted field as part of its value and accept the broken lines.
+   */
+  rfcQuoting?: boolean;
+}
+
+function csvOptions(o: CsvOptions): string {
+  const parts = [];
+  if (o.delim !== undefined) parts.push(`delim = ${literal(o.delim)}`);
+  if (o.encoding && o.encoding !== 'utf-8') parts.push(`encoding = ${literal(o.encoding)}`);
+  if (o.compression) parts.push(`compression = ${literal(o.compression)}`);
+  return parts.map((p) => `, ${p}`).join('');
+}
+
 /**
  * read_csv over the delivery. 'sniff': let DuckDB guess types from a sample (for the header
  * and type hints); a map: text or DOUBLE per column. Missing
  * tokens are read as NULL by the reader itself (nullstr), which is far cheaper than a CASE per cell.
  */
-export function readCsv(path: string, missing: readonly string[], storage: Map<string, Storage> | 'sniff'): string {
-  const nullstr = `nullstr = [${missing.map(literal).join(', ')}]`;
+export function readCsv(
+  path: string,
+  missing: readonly string[],
+  storage: Map<string, Storage> | 'sniff',
+  options: CsvOptions = {},
+  sample = false,
+): string {
+  const nullstr = `nullstr = [${missing.map(literal).join(', ')}]${csvOptions(options)}`;
   if (storage === 'sniff') return `read_csv(${literal(path)}, header = true, ${nullstr}, ignore_errors = true)`;
   const types = [...storage].map(([c, s]) => `${literal(c)}: '${s === 'double' ? 'DOUBLE' : 'VARCHAR'}'`).join(', ');
+  if (options.rfcQuoting) {
+    const fixed = `read_csv(${literal(path)}, auto_detect = false, header = true, quote = '"', escape = '"', ${nullstr}, columns = {${types}}, `;
+    return sample ? `${fixed}ignore_errors = true)` : `${fixed}store_rejects = true, rejects_table = 'nr_rejects', rejects_scan = 'nr_scans')`;
+  }
+  // a sample read (LIMIT) logs no rejects: DuckDB 1.5 fails inside a limited scan that stores them
+  if (sample) return `read_csv(${literal(path)}, header = true, ${nullstr}, types = {${types}}, ignore_errors = true)`;
   return (
     `read_csv(${literal(path)}, header = true, ${nullstr}, types = {${types}}, ` +
     `store_rejects = true, rejects_table = 'nr_rejects', rejects_scan = 'nr_scans')`
   );
 }
 
-const NUMERIC_TYPES = /^(TINYINT|SMALLINT|INTEGER|BIGINT|HUGEINT|UTINYINT|USMALLINT|UINTEGER|UBIGINT|FLOAT|DOUBLE|DECIMAL)/;
+export const NUMERIC_TYPES = /^(TINYINT|SMALLINT|INTEGER|BIGINT|HUGEINT|UTINYINT|USMALLINT|UINTEGER|UBIGINT|FLOAT|DOUBLE|DECIMAL)/;
 
 /**
  * Read a column as DOUBLE when the role map or the sniffer says it is numeric; IDs and

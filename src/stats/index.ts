@@ -28,3 +28,17 @@ export { groupMeanReliability, meanReliability } from './reliability.js';
 
 // everything for one outcome
 export { outcomeStats } from './outcome-stats.js';
+
+// binary outcomes: random-intercept logistic null model
+export { gaussHermite } from './gauss-hermite.js';
+export type { QuadratureRule } from './gauss-hermite.js';
+export { binaryGroupsFromMoments, logisticMarginalLogLik, logisticNullModel, momentsAreZeroOne } from './logistic-null-model.js';
+export type { BinaryGroup, LogisticNullModel, LogisticOptions } from './logistic-null-model.js';
+export { latentIcc, LOGISTIC_LEVEL1_VARIANCE } from './latent-icc.js';
+export { medianOddsRatio } from './median-odds-ratio.js';
+
+// group sizes and missingness
+export { clusterSizeVariation } from './cluster-size-variation.js';
+export type { SizeVariation } from './cluster-size-variation.js';
+export { chiSquareHomogeneity } from './chi-square-homogeneity.js';
+export type { HomogeneityTest } from './chi-square-homogeneity.js';

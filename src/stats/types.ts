@@ -1,3 +1,5 @@
+import type { LogisticNullModel } from './logistic-null-model.js';
+
 /** Sufficient statistics of one group for one numeric variable. */
 export interface GroupMoments {
   /** non-missing values in the group */
@@ -42,4 +44,6 @@ export interface OutcomeStats {
   designEffect: number;
   effectiveN: number;
   meanReliability: number;
+  /** 0/1 outcomes only: the random-intercept logistic null model (ML, adaptive Gauss–Hermite) */
+  logistic?: LogisticNullModel;
 }

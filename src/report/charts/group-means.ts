@@ -27,7 +27,7 @@ export function groupMeansChart(outcome: string, means: GroupMeans, index: numbe
       mark: { type: 'rule', color: PALETTE.accentSoft, strokeWidth: values.length > 400 ? 0.6 : 1.2 },
       encoding: {
         x: { field: 'rank', type: 'quantitative', title: 'groups, sorted by mean', scale: { domain: [0, means.total + 1], nice: false } },
-        y: { field: 'lo', type: 'quantitative', title: `${outcome}: group mean`, scale: { zero: false } },
+        y: { field: 'lo', type: 'quantitative', title: 'group mean (± 1.96·SE)', scale: { zero: false } },
         y2: { field: 'hi' },
       },
     },

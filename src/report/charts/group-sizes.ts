@@ -27,7 +27,7 @@ export function groupSizesChart(plots: PlotData): Chart | null {
   const layers: unknown[] = [
     {
       data: { values },
-      mark: { type: 'bar', stroke: PALETTE.panel, strokeWidth: 0.5 },
+      mark: { type: 'bar' },
       encoding: {
         x: { field: 'size', type: 'quantitative', bin: { maxbins: 40, minstep: 1 }, title: 'records per group' },
         y: { aggregate: 'sum', field: 'count', type: 'quantitative', title: 'groups' },
@@ -37,7 +37,6 @@ export function groupSizesChart(plots: PlotData): Chart | null {
           title: null,
           scale: { domain: kinds, range: [PALETTE.highlight, ...(kinds.length === 3 ? [PALETTE.warning] : []), PALETTE.accent] },
         },
-        order: { field: 'size', type: 'quantitative' },
       },
     },
   ];

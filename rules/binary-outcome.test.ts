@@ -1,0 +1,82 @@
+import { describe, expect, it } from 'vitest';
+import { logisticNullModel } from '../src/stats/logistic-null-model.js';
+import { formatNumber } from '../src/util/format.js';
+import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
+import type { Row } from '../test/helpers/delivery.js';
+
+/** mulberry32: a seeded delivery. */
+function prng(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) | 0;
+    let t = Math.imul(a ^ (a >>> 15), a | 1);
+    t = (t + Math.imul(t ^ (t >>> 7), t | 61)) ^ t;
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+/** `groups` groups of `size` 0/1 records with a logit-scale group effect of variance τ². */
+function binaryDelivery(seed: number, groups: number, size: number, tau2: number): Row[] {
+  const rand = prng(seed);
+  const normal = () => Math.sqrt(-2 * Math.log(1 - rand())) * Math.cos(2 * Math.PI * rand());
+  const effects = Array.from({ length: groups }, () => Math.sqrt(tau2) * normal());
+  return groupedRows(groups, size, (j) => ({ y: rand() < 1 / (1 + Math.exp(-(-0.5 + effects[j]))) ? 1 : 0 }));
+}
+
+function counts(rows: Row[]): { n: number; ones: number }[] {
+  const by = new Map<string, { n: number; ones: number }>();
+  for (const r of rows) {
+    const c = by.get(String(r.g)) ?? { n: 0, ones: 0 };
+    c.n++;
+    c.ones += Number(r.y);
+    by.set(String(r.g), c);
+  }
+  return [...by.values()];
+}
+
+describe('binary-outcome', () => {
+  const rows = binaryDelivery(42, 60, 60, 1);
+
+  it('reports the latent-scale ICC, τ² and MOR of the logistic fit beside the linear ICC', async () => {
+    const report = await auditRows(rows, { group: 'g', outcome: 'y' });
+    const f = onlyFinding(report, 'binary-outcome');
+    const fit = report.outcomes.y.logistic!;
+    // the report carries the same ML fit as the stats function gives on the per-group counts
+    const expected = logisticNullModel(counts(rows));
+    expect(fit.tau2).toBeCloseTo(expected.tau2, 10);
+    expect(fit.logLik).toBeCloseTo(expected.logLik, 8);
+    expect(fit.converged).toBe(true);
+    expect(fit.tau2).toBeGreaterThan(0.5);
+    expect(fit.tau2).toBeLessThan(1.6);
+    expect(f.severity).toBe('note');
+    expect(f.count).toBe(60);
+    expect(f.message).toContain(`latent-scale ICC ${formatNumber(fit.icc, 3)} (logistic random intercept, ML, τ² = ${formatNumber(fit.tau2, 3)})`);
+    expect(f.message).toContain(`median odds ratio ${formatNumber(fit.mor, 2)}`);
+    expect(f.message).toContain(`linear ICC of the 0/1 values ${formatNumber(report.outcomes.y.reml.icc, 3)}`);
+    // on the latent scale the level-1 variance is π²/3, larger than p(1 − p): the latent ICC is the larger one here
+    expect(fit.icc).toBeGreaterThan(report.outcomes.y.reml.icc);
+    expect(f.fix).toMatch(/logistic \(or probit\) random intercept/);
+  });
+
+  it('says when the delivery is below the guidance for multilevel logistic models (Moineddin et al. 2007)', async () => {
+    const f = onlyFinding(await auditRows(binaryDelivery(7, 12, 20, 1), { group: 'g', outcome: 'y' }), 'binary-outcome');
+    expect(f.message).toContain('with 12 groups of 20.0 records on average, below the 50 groups of 50 recommended');
+    expect(f.fix).toMatch(/between-group variance of y to be biased/);
+  });
+
+  it('a declared binary column with other values, and an outcome that is always 0', async () => {
+    const coded = groupedRows(4, 3, (j, i) => ({ y: (i + j) % 3 }));
+    const bad = onlyFinding(await auditRows(coded, { group: 'g', outcome: 'y', types: { y: 'binary' } }), 'binary-outcome');
+    expect(bad).toMatchObject({ severity: 'warning', column: 'y' });
+    expect(bad.message).toBe('y is declared binary but has values other than 0 and 1 (from 0 to 2)');
+    const zeros = onlyFinding(await auditRows(groupedRows(4, 3, () => ({ y: 0 })), { group: 'g', outcome: 'y', types: { y: 'binary' } }), 'binary-outcome');
+    expect(zeros.message).toContain('every record is 0');
+  });
+
+  it('is silent for numeric outcomes', async () => {
+    const numeric = groupedRows(5, 4, (j, i) => ({ y: j + i / 2 }));
+    const report = await auditRows(numeric, { group: 'g', outcome: 'y' });
+    expect(findingsOf(report, 'binary-outcome')).toEqual([]);
+    expect(report.outcomes.y.logistic).toBeUndefined();
+  });
+});

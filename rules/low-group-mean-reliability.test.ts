@@ -1,0 +1,30 @@
+import { describe, expect, it } from 'vitest';
+import { catalogue } from './index.js';
+import { audit } from '../src/audit.js';
+import { parseRoles } from '../src/roles/load.js';
+import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
+
+// 30 groups of 3: a group effect (SD about 1.3) under within-group noise (SD 1.5)
+const noisy = groupedRows(30, 3, (j, i) => ({ x: ((j % 5) - 2) * 0.9 + [-1.5, 0, 1.5][(i + j) % 3] }));
+
+describe('low-group-mean-reliability', () => {
+  it('notes a level-1 variable whose group means are mostly noise', async () => {
+    const report = await auditRows(noisy, { group: 'g', level1: ['x'] });
+    const f = onlyFinding(report, 'low-group-mean-reliability', 'x');
+    expect(f.severity).toBe('note');
+    expect(f.message).toMatch(/^x: the group means have mean reliability 0\.\d\d \(ICC\(2\) -?\d\.\d\d\), below 0\.7, with 3\.0 records per group on average$/);
+    expect(f.fix).toMatch(/latent-covariate model/);
+  });
+
+  it('HSB: mathach group means are reliable (0.90, Raudenbush & Bryk 2002 Table 4.2) and so are ses means', async () => {
+    const report = await audit('fixtures/reference/hsb.csv', parseRoles('group: school\noutcome: mathach\nlevel1: [ses]\n', 'hsb.yaml', catalogue));
+    // fixtures/reference/README.md: mean reliability 0.9013773 with the REML components
+    expect(report.outcomes.mathach.meanReliability).toBeCloseTo(0.9013773, 5);
+    expect(findingsOf(report, 'low-group-mean-reliability')).toEqual([]);
+  });
+
+  it('the threshold comes from the role map', async () => {
+    const rules = { 'low-group-mean-reliability': { reliability_below: 0.01 } };
+    expect(findingsOf(await auditRows(noisy, { group: 'g', level1: ['x'], rules }), 'low-group-mean-reliability')).toEqual([]);
+  });
+});

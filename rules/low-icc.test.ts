@@ -1,0 +1,94 @@
+import { describe, expect, it } from 'vitest';
+import { audit } from '../src/audit.js';
+import { parseRoles } from '../src/roles/load.js';
+import { catalogue } from './index.js';
+import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
+
+/** 10 groups of 4 with the values 1, 2, 3, 4 each: identical group means, so τ² = 0. */
+const identicalMeans = groupedRows(10, 4, (_, i) => ({ y: i + 1 }));
+
+/**
+ * 20 groups of 50: group j's mean is c·(j − 9.5), records alternate ±1 around it (σ² ≈ 1).
+ * c = 0.035 gives REML ICC ≈ 0.022 with F ≈ 2.10 on (19, 980), p ≈ 0.004 (small but real);
+ * c = 0.03 gives ICC ≈ 0.011, p ≈ 0.064 (no evidence).
+ */
+const shifted = (c: number) => groupedRows(20, 50, (j, i) => ({ y: (c * (j - 9.5) + (i % 2 ? 1 : -1)).toFixed(6) }));
+
+const roles = { group: 'g', outcome: 'y' };
+
+describe('low-icc', () => {
+  it('identical group means (τ² = 0): warning, no evidence of between-group variance', async () => {
+    const report = await auditRows(identicalMeans, roles);
+    expect(report.outcomes.y.reml.tau2).toBe(0);
+    const f = onlyFinding(report, 'low-icc');
+    expect(f.severity).toBe('warning');
+    expect(f.column).toBe('y');
+    expect(f.message).toBe('y: ICC 0.000 (REML), F = 0.000 on (9, 30) df, p = 1.000: no evidence of between-group variance');
+    expect(f.fix).toMatch(/^No change to the delivery; an analyst may compare a single-level model/);
+    expect(f.rows).toBeUndefined();
+    expect(f.groups).toBeUndefined();
+  });
+
+  it('small but significant ICC: a note that clustering still matters', async () => {
+    const report = await auditRows(shifted(0.035), roles);
+    const s = report.outcomes.y;
+    expect(s.reml.icc).toBeGreaterThan(0.01);
+    expect(s.reml.icc).toBeLessThan(0.05);
+    expect(s.anova.p).toBeLessThan(0.05);
+    const f = onlyFinding(report, 'low-icc');
+    expect(f.severity).toBe('note');
+    expect(f.message).toMatch(/^y: ICC 0\.02\d \(REML\) is below 0\.05 but the groups do differ \(F = 2\.10\d, p = 0\.00\d\); design effect 2\.0\d$/);
+    expect(f.fix).toContain('keep the random intercept');
+  });
+
+  it('small and not significant: a warning', async () => {
+    const report = await auditRows(shifted(0.03), roles);
+    expect(report.outcomes.y.anova.p).toBeGreaterThan(0.05);
+    const f = onlyFinding(report, 'low-icc');
+    expect(f.severity).toBe('warning');
+    expect(f.message).toMatch(/^y: ICC 0\.01\d \(REML\), F = 1\.54\d on \(19, 980\) df, p = 0\.06\d: no evidence/);
+  });
+
+  it('HSB (Raudenbush & Bryk 2002): ICC ≈ 0.18 is strong clustering, no finding', async () => {
+    const loaded = parseRoles('group: school\noutcome: mathach\nlevel1: [ses]\nlevel2: [sector, size]\n', 'hsb.roles.yaml', catalogue);
+    const report = await audit('fixtures/reference/hsb.csv', loaded);
+    expect(report.outcomes.mathach.reml.icc).toBeCloseTo(0.1803518, 4); // lme4 REML (fixtures/reference/README.md)
+    expect(findingsOf(report, 'low-icc')).toEqual([]);
+    expect(report.groups.count).toBe(160);
+    expect(report.findings).toEqual([]);
+  });
+
+  it('icc_below and alpha come from the role map', async () => {
+    // shifted(0.04) has ICC ≈ 0.034 (p < 0.001): below the limit 0.1, not below 0.03
+    const strict = await auditRows(shifted(0.04), { ...roles, rules: { 'low-icc': { icc_below: 0.03 } } });
+    expect(findingsOf(strict, 'low-icc')).toEqual([]);
+    const loose = await auditRows(shifted(0.04), { ...roles, rules: { 'low-icc': { icc_below: 0.1 } } });
+    expect(onlyFinding(loose, 'low-icc').message).toContain('is below 0.1 but the groups do differ');
+    // p ≈ 0.004 is not below alpha = 0.001: no evidence, so a warning
+    const alpha = await auditRows(shifted(0.035), { ...roles, rules: { 'low-icc': { alpha: 0.001 } } });
+    expect(onlyFinding(alpha, 'low-icc').severity).toBe('warning');
+  });
+
+  it('off, and severity override', async () => {
+    const off = await auditRows(identicalMeans, { ...roles, rules: { 'low-icc': 'off' } });
+    expect(findingsOf(off, 'low-icc')).toEqual([]);
+    const noted = await auditRows(identicalMeans, { ...roles, rules: { 'low-icc': { severity: 'note' } } });
+    expect(onlyFinding(noted, 'low-icc').severity).toBe('note');
+  });
+
+  it('only numeric outcomes, and only when the ICC is defined', async () => {
+    const categorical = groupedRows(10, 4, (_, i) => ({ y: ['a', 'b', 'c', 'd'][i] }));
+    expect(findingsOf(await auditRows(categorical, roles), 'low-icc')).toEqual([]);
+    // one group: the variance components are not identifiable (NaN), nothing to say about the ICC
+    const oneGroup = groupedRows(1, 5, (_, i) => ({ y: i }));
+    const report = await auditRows(oneGroup, roles);
+    expect(Number.isNaN(report.outcomes.y.reml.icc)).toBe(true);
+    expect(findingsOf(report, 'low-icc')).toEqual([]);
+  });
+
+  it('one finding per outcome, in column order', async () => {
+    const rows = groupedRows(10, 4, (_, i) => ({ b: i + 1, a: 5 - i }));
+    const report = await auditRows(rows, { group: 'g', outcomes: ['b', 'a'] });
+    expect(findingsOf(report, 'low-icc').map((f) => f.column)).toEqual(['a', 'b']);
+  });
+});

@@ -1,0 +1,33 @@
+import { describe, expect, it } from 'vitest';
+import { catalogue } from './index.js';
+import { audit } from '../src/audit.js';
+import { parseRoles } from '../src/roles/load.js';
+import { auditRows, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
+
+describe('predictor-between-share', () => {
+  it('HSB ses: 26.5% between schools, advise within-group centering plus the school mean', async () => {
+    const report = await audit('fixtures/reference/hsb.csv', parseRoles('group: school\noutcome: mathach\nlevel1: [ses, minority]\n', 'hsb.yaml', catalogue));
+    const f = onlyFinding(report, 'predictor-between-share', 'ses');
+    // fixtures/reference/README.md (R 4.2.2 + lme4 1.1-31): ses REML ICC 0.2649104, ANOVA ICC(1) 0.2665809
+    expect(f.severity).toBe('note');
+    expect(f.message).toBe('ses: 26.5% of its variance lies between groups (REML ICC 0.265, ANOVA ICC(1) 0.267)');
+    expect(f.fix).toContain('Centre ses within groups (x − group mean) and add its group mean as a level-2 (contextual) variable');
+  });
+
+  it('a predictor with no between-group part: grand-mean centering loses little', async () => {
+    // every group holds the same values 1, 2, 3, 4
+    const rows = groupedRows(10, 4, (_, i) => ({ x: i + 1 }));
+    const f = onlyFinding(await auditRows(rows, { group: 'g', level1: ['x'] }), 'predictor-between-share', 'x');
+    expect(f.message).toBe('x: only 0.0% of its variance lies between groups (REML ICC 0.000, ANOVA ICC(1) -0.333)');
+    expect(f.fix).toMatch(/Grand-mean centering loses little/);
+  });
+
+  it('decompose_from comes from the role map', async () => {
+    const rows = groupedRows(10, 4, (j, i) => ({ x: i + (j % 2) * 2 }));
+    const base = onlyFinding(await auditRows(rows, { group: 'g', level1: ['x'] }), 'predictor-between-share', 'x');
+    expect(base.fix).toMatch(/^Centre x/);
+    const rules = { 'predictor-between-share': { decompose_from: 0.99 } };
+    const high = onlyFinding(await auditRows(rows, { group: 'g', level1: ['x'], rules }), 'predictor-between-share', 'x');
+    expect(high.fix).toMatch(/Grand-mean centering/);
+  });
+});

@@ -1,0 +1,91 @@
+import { describe, expect, it } from 'vitest';
+import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
+import type { Row } from '../test/helpers/delivery.js';
+
+const roles = { group: 'g' };
+/** `groups` groups, the last `singles` of which hold one record, the others two. */
+const delivery = (groups: number, singles: number) => groupedRows(groups, (j) => (j >= groups - singles ? 1 : 2));
+
+describe('singleton-groups', () => {
+  it('lists the single-record groups and their records', async () => {
+    const rows: Row[] = [
+      { g: 'A', y: 1 },
+      { g: 'B', y: 2 },
+      { g: 'A', y: 3 },
+      { g: 'C', y: 4 },
+      { g: 'D', y: 5 },
+      { g: 'C', y: 6 },
+      { g: 'E', y: 7 },
+      { g: 'C', y: 8 },
+      { g: 'A', y: 9 },
+      { g: 'F', y: 10 },
+      { g: 'F', y: 11 },
+    ];
+    const report = await auditRows(rows, roles);
+    const f = onlyFinding(report, 'singleton-groups');
+    expect(f.count).toBe(3);
+    expect(f.groups).toEqual(['B', 'D', 'E']);
+    expect(f.rows).toEqual([2, 5, 7]);
+    expect(f.column).toBeUndefined();
+    expect(f.message).toBe('3 of 6 groups (50.0%) have a single record');
+    expect(f.fix).toContain('whether the listed groups are complete');
+    expect(f.fix).toContain('mistyped variants of other groups');
+    expect(report.groups.singletons).toBe(3);
+  });
+
+  it('is silent when every group has two records or more', async () => {
+    expect(findingsOf(await auditRows(delivery(10, 0), roles), 'singleton-groups')).toEqual([]);
+  });
+
+  it.each([
+    // groups, singletons → severity (defaults: warning at ≥ 10%, blocker at ≥ 50%, under 400 groups)
+    [20, 1, 'note'], // 5%
+    [11, 1, 'note'], // 9.1%
+    [10, 1, 'warning'], // exactly 10%
+    [10, 4, 'warning'], // 40%
+    [10, 5, 'blocker'], // exactly 50%
+    [10, 10, 'blocker'],
+  ] as const)('%i groups, %i singletons → %s', async (groups, singles, severity) => {
+    const report = await auditRows(delivery(groups, singles), roles);
+    const f = onlyFinding(report, 'singleton-groups');
+    expect(f.severity).toBe(severity);
+    expect(f.count).toBe(singles);
+    expect(f.message).toContain(`${singles} of ${groups} groups (${((100 * singles) / groups).toFixed(1)}%)`);
+  });
+
+  it('with at least many_groups groups singletons are only noted (default 400)', async () => {
+    const at400 = await auditRows(groupedRows(400, 1), roles);
+    expect(onlyFinding(at400, 'singleton-groups')).toMatchObject({ severity: 'note', count: 400 });
+    const at399 = await auditRows(groupedRows(399, 1), roles);
+    expect(onlyFinding(at399, 'singleton-groups')).toMatchObject({ severity: 'blocker', count: 399 });
+  });
+
+  it('lists the first 20 groups and records, counts all', async () => {
+    const f = onlyFinding(await auditRows(groupedRows(399, 1), roles), 'singleton-groups');
+    expect(f.groups).toEqual(Array.from({ length: 20 }, (_, j) => `G${String(j + 1).padStart(3, '0')}`));
+    expect(f.rows).toEqual(Array.from({ length: 20 }, (_, k) => k + 1));
+  });
+
+  it('takes share thresholds and many_groups from the role map', async () => {
+    const rules = { 'singleton-groups': { warn_share: 0.3, block_share: 0.8, many_groups: 20 } };
+    const sev = async (groups: number, singles: number) =>
+      onlyFinding(await auditRows(delivery(groups, singles), { group: 'g', rules }), 'singleton-groups').severity;
+    expect(await sev(10, 2)).toBe('note');
+    expect(await sev(10, 3)).toBe('warning');
+    expect(await sev(10, 8)).toBe('blocker');
+    expect(await sev(20, 20)).toBe('note'); // many_groups reached
+  });
+
+  it('severity override from the role map, and off', async () => {
+    const forced = await auditRows(delivery(20, 1), { group: 'g', rules: { 'singleton-groups': { severity: 'blocker' } } });
+    expect(onlyFinding(forced, 'singleton-groups')).toMatchObject({ severity: 'blocker', count: 1 });
+    expect(forced.verdict).toBe('not-ready');
+    const off = await auditRows(delivery(10, 10), { group: 'g', rules: { 'singleton-groups': 'off' } });
+    expect(findingsOf(off, 'singleton-groups')).toEqual([]);
+  });
+
+  it('records with a missing group ID are not a singleton group', async () => {
+    const rows = [...delivery(10, 0), { g: '' }];
+    expect(findingsOf(await auditRows(rows, roles), 'singleton-groups')).toEqual([]);
+  });
+});

@@ -1,0 +1,32 @@
+import type { ProblemRows } from './types.js';
+
+/** Columns of the problem-rows file, in order. */
+export const PROBLEM_COLUMNS = ['record', 'group', 'unit', 'rule', 'severity', 'column', 'reason'] as const;
+
+/**
+ * One CSV field (RFC 4180): quoted when it holds a comma, quote, CR or LF, quotes doubled. A
+ * field that starts with `=`, `+`, `-`, `@`, a tab or CR gets a leading single quote first, so a
+ * spreadsheet shows it as text instead of running it as a formula (OWASP, "CSV Injection").
+ */
+export function csvField(value: string | number | null | undefined): string {
+  if (value === null || value === undefined) return '';
+  let s = String(value);
+  if (typeof value === 'string' && /^[=+\-@\t\r]/.test(s)) s = `'${s}`;
+  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/**
+ * The problem rows as CSV: a header, one line per row (CRLF line ends), and, when rows were
+ * left out by the bound, a last line starting with `#` that says how many. Record numbers are
+ * numbers and written as such; every text field is neutralised against formula injection.
+ */
+export function problemsCsv(result: ProblemRows): string {
+  const lines = [PROBLEM_COLUMNS.join(',')];
+  for (const r of result.rows) {
+    lines.push([r.record, r.group, r.unit, r.rule, r.severity, r.column, r.reason].map(csvField).join(','));
+  }
+  if (result.omitted > 0) {
+    lines.push(`# ${result.omitted} more problem rows of ${result.total} not written (at most ${result.maxRows}; raise --max-rows)`);
+  }
+  return `${lines.join('\r\n')}\r\n`;
+}

@@ -1,0 +1,19 @@
+import type { Severity } from '../roles/types.js';
+import type { Finding } from '../rules/types.js';
+
+/** "a, b, c … (+7 more)": the listed items and how many the finding counts beyond them. */
+export function listed(items: readonly string[], total?: number): string {
+  const more = total !== undefined && total > items.length ? ` … (+${total - items.length} more)` : '';
+  return items.join(', ') + more;
+}
+
+/** Raw values worth showing beside the message (not when the message already quotes them). */
+export function shownValues(f: Finding): string[] {
+  if (!f.values?.length || !f.values.join('').length || f.message.includes(f.values[0])) return [];
+  return f.values;
+}
+
+/** Findings of one severity, in report order. */
+export function bySeverity(findings: readonly Finding[], severity: Severity): Finding[] {
+  return findings.filter((f) => f.severity === severity);
+}

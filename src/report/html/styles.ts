@@ -1,0 +1,65 @@
+import { PALETTE as P } from '../palette.js';
+import { CHART_FONT } from '../charts/theme.js';
+
+/** The report's inline stylesheet: our own look, readable on screen and on paper. */
+export const STYLES = `
+:root { color-scheme: light; }
+* { box-sizing: border-box; }
+body { margin: 0; background: ${P.paper}; color: ${P.ink}; font: 15px/1.5 ${CHART_FONT}; }
+a { color: ${P.accent}; }
+code { font-family: ui-monospace, SFMono-Regular, Menlo, Consolas, monospace; font-size: 0.92em; background: ${P.grid}; padding: 0 0.25em; border-radius: 3px; }
+.wrap { max-width: 72rem; margin: 0 auto; padding: 0 1.25rem; }
+header.top { background: ${P.accent}; color: #fff; padding: 1.5rem 0 1.25rem; }
+header.top .eyebrow { margin: 0; text-transform: uppercase; letter-spacing: 0.08em; font-size: 0.8rem; opacity: 0.9; }
+header.top h1 { margin: 0.15rem 0 0.35rem; font-size: 1.9rem; line-height: 1.2; }
+header.top .source { margin: 0; opacity: 0.95; overflow-wrap: anywhere; }
+.verdict { display: flex; flex-wrap: wrap; gap: 1rem; align-items: stretch; margin: -1rem 0 1.5rem; }
+.verdict > div { background: ${P.panel}; border: 1px solid ${P.line}; border-radius: 8px; padding: 0.9rem 1.1rem; }
+.verdict .state { flex: 1 1 20rem; border-left: 8px solid var(--tone); }
+.verdict p { margin: 0; }
+.verdict .state .word { font-size: 1.45rem; font-weight: 700; color: var(--tone); }
+.verdict .grade { text-align: center; min-width: 7rem; }
+.verdict .grade .letter { display: block; font-size: 2.4rem; font-weight: 800; line-height: 1; color: var(--tone); }
+.verdict .counts { flex: 1 1 16rem; }
+.verdict .counts ul { margin: 0.2rem 0 0; padding: 0; list-style: none; }
+.tone-ready { --tone: ${P.ok}; }
+.tone-caveats { --tone: ${P.warning}; }
+.tone-not-ready { --tone: ${P.blocker}; }
+nav.toc { margin: 0 0 1.5rem; font-size: 0.95rem; }
+nav.toc ul { display: flex; flex-wrap: wrap; gap: 0.4rem 1.25rem; padding: 0; margin: 0; list-style: none; }
+h2 { font-size: 1.4rem; margin: 2rem 0 0.75rem; padding-bottom: 0.3rem; border-bottom: 2px solid ${P.line}; }
+h3 { font-size: 1.12rem; margin: 1.5rem 0 0.6rem; }
+.sev-heading { display: flex; align-items: center; gap: 0.5rem; }
+ol.findings { list-style: none; margin: 0; padding: 0; display: grid; gap: 0.75rem; }
+.finding { background: ${P.panel}; border: 1px solid ${P.line}; border-left: 6px solid var(--tone); border-radius: 6px; padding: 0.75rem 1rem; }
+.finding p { margin: 0.25rem 0; }
+.finding .head { display: flex; flex-wrap: wrap; gap: 0.5rem; align-items: baseline; }
+.finding .ask { background: ${P.paper}; border-radius: 4px; padding: 0.4rem 0.6rem; }
+.finding dl { margin: 0.4rem 0 0; display: grid; grid-template-columns: max-content 1fr; gap: 0.15rem 0.8rem; font-size: 0.92rem; }
+.finding dt { font-weight: 600; color: ${P.muted}; }
+.finding dd { margin: 0; overflow-wrap: anywhere; }
+.finding dd ul { margin: 0; padding-left: 1.1rem; }
+.sev-blocker { --tone: ${P.blocker}; --soft: ${P.blockerSoft}; }
+.sev-warning { --tone: ${P.warning}; --soft: ${P.warningSoft}; }
+.sev-note { --tone: ${P.note}; --soft: ${P.noteSoft}; }
+.badge { display: inline-flex; align-items: center; gap: 0.3rem; font-size: 0.78rem; font-weight: 700; text-transform: uppercase; letter-spacing: 0.04em; color: var(--tone); background: var(--soft); border: 1px solid var(--tone); border-radius: 999px; padding: 0.05rem 0.55rem; }
+.none { background: ${P.okSoft}; border: 1px solid ${P.ok}; border-radius: 6px; padding: 0.75rem 1rem; }
+table { border-collapse: collapse; background: ${P.panel}; margin: 0.5rem 0 1rem; font-size: 0.93rem; min-width: 20rem; }
+caption { text-align: left; font-weight: 600; padding: 0.3rem 0; color: ${P.ink}; caption-side: top; }
+th, td { border: 1px solid ${P.line}; padding: 0.3rem 0.6rem; text-align: left; vertical-align: top; }
+thead th { background: ${P.grid}; }
+td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
+.tables { display: flex; flex-wrap: wrap; gap: 0 1.5rem; align-items: flex-start; }
+.table-scroll { max-width: 100%; overflow-x: auto; }
+figure.chart { margin: 0.75rem 0 1.25rem; background: ${P.panel}; border: 1px solid ${P.line}; border-radius: 6px; padding: 0.5rem; max-width: 100%; overflow-x: auto; }
+figure.chart svg { display: block; max-width: 100%; height: auto; }
+figure.chart figcaption { font-size: 0.88rem; color: ${P.muted}; padding: 0.35rem 0.25rem 0; }
+.muted { color: ${P.muted}; }
+footer { margin: 2.5rem 0 2rem; padding-top: 0.75rem; border-top: 1px solid ${P.line}; font-size: 0.88rem; color: ${P.muted}; }
+@media print {
+  body { background: #fff; }
+  header.top { background: #fff; color: ${P.ink}; border-bottom: 3px solid ${P.accent}; }
+  .finding, figure.chart { break-inside: avoid; }
+  nav.toc { display: none; }
+}
+`;

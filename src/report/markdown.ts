@@ -1,0 +1,73 @@
+import { formatNumber } from '../util/format.js';
+import { bySeverity, listed, shownValues } from './finding-parts.js';
+import { HEADINGS, MARKS, SEVERITIES, THRESHOLD_CAVEAT, VERDICT_TEXT } from './labels.js';
+import { mdText as m } from './md-escape.js';
+import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from './stat-tables.js';
+import type { StatTable } from './stat-tables.js';
+import type { Report } from './types.js';
+
+/**
+ * The report as Markdown for a ticket or pull request: the same content as the HTML report
+ * (verdict, findings by severity with the fix to ask for, statistics), as tables, no plots.
+ * Every data value is escaped (see mdText).
+ */
+export function renderMarkdown(report: Report): string {
+  const out: string[] = [];
+  out.push(`# nestready: ${VERDICT_TEXT[report.verdict]} (grade ${report.grade}, score ${formatNumber(report.score, 0)}/100)`, '');
+  out.push(
+    `Delivery ${m(report.input.path)}: ${report.input.rows} records in ${report.groups.count} groups` +
+      (report.input.rowsRejected ? `, ${report.input.rowsRejected} unreadable lines` : '') +
+      ` (group ID: ${m(report.roles.group)})`,
+    '',
+  );
+  out.push(
+    `| ${SEVERITIES.map((s) => HEADINGS[s].toLowerCase()).join(' | ')} |`,
+    `|${SEVERITIES.map(() => '---:').join('|')}|`,
+    `| ${SEVERITIES.map((s) => bySeverity(report.findings, s).length).join(' | ')} |`,
+    '',
+  );
+
+  out.push('## Findings', '');
+  if (!report.findings.length) out.push('No findings: every rule that ran passed.', '');
+  for (const severity of SEVERITIES) {
+    const list = bySeverity(report.findings, severity);
+    if (!list.length) continue;
+    out.push(`### ${MARKS[severity]} ${HEADINGS[severity]} (${list.length})`, '');
+    out.push('| rule | column | finding | ask for | groups | records |', '|---|---|---|---|---|---|');
+    for (const f of list) {
+      const values = shownValues(f);
+      const finding = m(f.message) + (values.length ? ` (values: ${m(values.join('; '))})` : '');
+      out.push(
+        `| \`${f.rule}\` | ${f.column !== undefined ? m(f.column) : ''} | ${finding} | ${m(f.fix)} | ` +
+          `${f.groups?.length ? m(listed(f.groups, f.count)) : ''} | ${f.rows?.length ? m(listed(f.rows.map(String))) : ''} |`,
+      );
+    }
+    out.push('');
+  }
+
+  out.push('## Statistics', '', '### Groups', '', ...table(groupsTable(report)));
+  const sizes = report.plots?.groupSizes;
+  if (sizes?.length && sizes.length <= 30) {
+    out.push(...table({ caption: 'Group sizes', head: ['records per group', 'groups'], rows: sizes.map((s) => [String(s.size), String(s.count)]), numeric: [0, 1] }));
+  }
+  for (const [name, o] of Object.entries(report.outcomes)) {
+    out.push(`### Outcome ${m(name)}`, '', ...table(componentsTable(name, o)), ...table(anovaTable(name, o)));
+    const ext = extremesTable(report, name);
+    if (ext) out.push(...table(ext));
+  }
+  const predictors = predictorsTable(report);
+  if (predictors) out.push('### Level-1 predictors', '', ...table(predictors));
+  out.push('---', '', `_${m(THRESHOLD_CAVEAT)}_`, '', `${m(report.tool.name)} ${m(report.tool.version)} (${m(report.schema)})`);
+  return `${out.join('\n')}\n`;
+}
+
+function table(t: StatTable): string[] {
+  return [
+    `**${m(t.caption)}**`,
+    '',
+    `| ${t.head.map(m).join(' | ')} |`,
+    `|${t.head.map((_, i) => (t.numeric.includes(i) ? '---:' : '---')).join('|')}|`,
+    ...t.rows.map((r) => `| ${r.map(m).join(' | ')} |`),
+    '',
+  ];
+}

@@ -1,0 +1,54 @@
+/**
+ * The SQL dialect layer: the profiling query and the bounded look-ups are written once, and
+ * the few constructs that differ between engines go through a Dialect. DuckDB is the default
+ * (embedded, for files); PostgreSQL runs the same queries where a delivery already lives.
+ *
+ * Identifier and string quoting are the same in both ("col", 'text'); count/min/max/avg/
+ * var_pop, `count(*) FILTER (WHERE …)`, DISTINCT ON and window functions exist in both.
+ */
+
+export type DialectName = 'duckdb' | 'postgres';
+
+export interface Dialect {
+  name: DialectName;
+  /** cast to a double-precision float (DuckDB DOUBLE, PostgreSQL double precision) */
+  double(expr: string): string;
+  /** cast to text */
+  text(expr: string): string;
+  /** the numeric reading of a text expression: NULL when it is not a number (never an error) */
+  numeric(expr: string): string;
+  /** a text expression as min/max/ORDER BY compare it: byte order in both engines */
+  ordered(expr: string): string;
+  /** the first `limit` values of `expr` in `order`, as an array */
+  firstValues(expr: string, order: string, limit: number): string;
+  /** a hash of a record's columns, for telling exact copies apart */
+  rowHash(exprs: readonly string[]): string;
+}
+
+/** A number as both engines' double casts accept it (no hex, no thousands separators). */
+const NUMBER_RE = String.raw`^\s*[-+]?([0-9]{1,250}(\.[0-9]{0,250})?|\.[0-9]{1,250})([eE][-+]?[0-9]{1,3})?\s*$`;
+
+export const duckdb: Dialect = {
+  name: 'duckdb',
+  double: (e) => `${e}::DOUBLE`,
+  text: (e) => `CAST(${e} AS VARCHAR)`,
+  numeric: (e) => `TRY_CAST(${e} AS DOUBLE)`,
+  ordered: (e) => e,
+  firstValues: (e, order, limit) => `list(${e} ORDER BY ${order})[1:${limit}]`,
+  rowHash: (exprs) => `hash(${exprs.join(', ')})`,
+};
+
+export const postgres: Dialect = {
+  name: 'postgres',
+  double: (e) => `CAST(${e} AS double precision)`,
+  text: (e) => `CAST(${e} AS text)`,
+  // PostgreSQL has no TRY_CAST before version 16's pg_input_is_valid: a regular expression
+  // guards the cast. Its bounds keep every accepted value inside double precision's range.
+  numeric: (e) =>
+    `(CASE WHEN ${e} ~ '${NUMBER_RE}' THEN CASE WHEN abs(CAST(${e} AS numeric)) < 1e308 ` +
+    `AND (CAST(${e} AS numeric) = 0 OR abs(CAST(${e} AS numeric)) > 1e-307) THEN CAST(${e} AS double precision) END END)`,
+  // min/max of text follow the database collation in PostgreSQL; "C" is byte order, as DuckDB
+  ordered: (e) => `(${e} COLLATE "C")`,
+  firstValues: (e, order, limit) => `(array_agg(${e} ORDER BY ${order}))[1:${limit}]`,
+  rowHash: (exprs) => `md5(CAST(ROW(${exprs.join(', ')}) AS text))`,
+};

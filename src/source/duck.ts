@@ -1,0 +1,229 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { DuckDBInstance } from '@duckdb/node-api';
+import type { DuckDBConnection } from '@duckdb/node-api';
+import type { Roles } from '../roles/types.js';
+import { duckdb } from './dialect.js';
+import { NUMERIC_TYPES, blankAsNull, ident, literal } from './sql.js';
+import type { Storage } from './sql.js';
+import type { RejectedLine, Source, SourceFormat } from './types.js';
+
+/** An embedded DuckDB with its own spill directory (deleted on close). */
+export interface DuckEngine {
+  con: DuckDBConnection;
+  all<T = Record<string, unknown>>(sql: string): Promise<T[]>;
+  /** close the connection and the instance, delete the spill directory and `extra` temp paths */
+  close(): void;
+  /** paths deleted on close (a spooled stdin, …) */
+  cleanup: string[];
+}
+
+export async function createEngine(options: { memoryLimit?: string; threads?: number }): Promise<DuckEngine> {
+  // DuckDB spills beyond memory_limit; by default an in-memory database spills to ".tmp" in
+  // the working directory, so give it a directory of its own
+  const spill = mkdtempSync(join(tmpdir(), 'nestready-spill-'));
+  let instance: DuckDBInstance;
+  try {
+    instance = await DuckDBInstance.create(':memory:', {
+      threads: String(options.threads ?? 2),
+      memory_limit: options.memoryLimit ?? '512MB',
+      temp_directory: spill,
+    });
+  } catch (e) {
+    rmSync(spill, { recursive: true, force: true });
+    throw e;
+  }
+  const con = await instance.connect();
+  const cleanup: string[] = [spill];
+  let closed = false;
+  return {
+    con,
+    cleanup,
+    all: async <T,>(sql: string) => (await con.runAndReadAll(sql)).getRowObjectsJS() as T[],
+    close() {
+      if (closed) return;
+      closed = true;
+      try {
+        con.closeSync();
+        instance.closeSync();
+      } finally {
+        for (const p of cleanup) rmSync(p, { recursive: true, force: true });
+      }
+    },
+  };
+}
+
+/** How a DuckDB-read delivery is laid out before the shared views are put on it. */
+export interface DuckLayout {
+  path: string;
+  format: SourceFormat;
+  header: string[];
+  storage: Map<string, Storage>;
+  /**
+   * The relation with missing tokens already NULL and each column read per `storage`.
+   * `rowid`: the relation has a `__rec` column (a staged table's rowid + 1); else numbered by a window.
+   */
+  relation(storage: Map<string, Storage>): string;
+  numbering: 'window' | 'rowid';
+  /** a relation to sample the first rows from, when not nr_delivery */
+  sample?(): string;
+  /** a typed reader (CSV) converts while reading and rejects lines; other sources are probed */
+  typedReader: boolean;
+  rejects(): Promise<RejectedLine[]>;
+  /** before the views are redefined with columns read as text (CSV: start the rejects log afresh) */
+  beforeRetype?(): Promise<void>;
+}
+
+/** Rows sampled to tell text columns that hold numbers from those that hold none. */
+export const SAMPLE_ROWS = 20480;
+
+/** The Source over a layout: the views nr_delivery and nr_numbered, the sample hints, the look-up API. */
+export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: Roles, missing: readonly string[]): Promise<Source> {
+  const { con, all } = engine;
+  const { header, storage } = layout;
+  const group = header.includes(roles.group)
+    ? ` REPLACE (${blankAsNull(roles.group, missing)} AS ${ident(roles.group)})`
+    : '';
+  // DuckDB 1.5's CSV reader fails (and invalidates the database) when a line with invalid UTF-8
+  // is met by a scan that reads only some of the columns; once such a line is known, the views
+  // read every column (a filter that uses them all and is always true)
+  const everyColumn = `hash(${header.map(ident).join(', ')}) IS NOT NULL`;
+  let guarded = false;
+  const define = async () => {
+    const rel = layout.relation(storage) + (guarded ? ` WHERE ${everyColumn}` : '');
+    if (layout.numbering === 'rowid') {
+      await con.run(`CREATE OR REPLACE VIEW nr_numbered AS SELECT *${group} FROM ${rel}`);
+      await con.run('CREATE OR REPLACE VIEW nr_delivery AS SELECT * EXCLUDE (__rec) FROM nr_numbered');
+    } else {
+      // a blank-looking group ID (only spaces, or a missing token with spaces around it) is
+      // missing; other IDs keep their spaces ("W-014 " is a variant to report, not W-014)
+      await con.run(`CREATE OR REPLACE VIEW nr_delivery AS SELECT *${group} FROM ${rel}`);
+      await con.run('CREATE OR REPLACE VIEW nr_numbered AS SELECT row_number() OVER () AS __rec, * FROM nr_delivery');
+    }
+  };
+  await define();
+
+  const ids = new Set([roles.group, roles.unit, roles.parent]);
+  const { probe, textOnly } = await sampleHints(all, layout.sample ? `(SELECT * FROM ${layout.sample()} WHERE ${everyColumn})` : 'nr_delivery', header, storage, roles, ids, !layout.typedReader, duckdb.numeric);
+
+  return {
+    path: layout.path,
+    format: layout.format,
+    dialect: duckdb,
+    header,
+    storage,
+    probe,
+    textOnly,
+    view: 'nr_delivery',
+    numbered: 'nr_numbered',
+    all,
+    async columns(sql) {
+      return (await con.runAndReadAll(sql)).getColumnsObjectJS() as Record<string, unknown[]>;
+    },
+    async run(sql) {
+      await con.run(sql);
+    },
+    async rejects() {
+      const rejected = await layout.rejects();
+      if (!guarded && layout.typedReader && rejected.some((r) => r.kind === 'INVALID ENCODING')) {
+        guarded = true;
+        await define();
+      }
+      return rejected;
+    },
+    async readAsText(columns) {
+      for (const c of columns) {
+        storage.set(c, 'text');
+        probe.delete(c);
+      }
+      await layout.beforeRetype?.();
+      await define();
+    },
+    async readAsDouble(columns) {
+      for (const c of columns) {
+        storage.set(c, 'double');
+        probe.delete(c);
+      }
+      await define();
+    },
+    close: () => engine.close(),
+  };
+}
+
+/**
+ * Read the first rows once: a text column whose sampled values are all numbers is probed (the
+ * profile decides whether it is numeric throughout); one whose sampled values hold no number
+ * (and whose type the role map leaves open) gets no numeric reading — converting every value of
+ * a text column such as "18-29" only to fail is the dearest thing a pass can do.
+ */
+export async function sampleHints(
+  all: <T>(sql: string) => Promise<T[]>,
+  view: string,
+  header: readonly string[],
+  storage: Map<string, Storage>,
+  roles: Roles,
+  ids: Set<string | undefined>,
+  probing: boolean,
+  numeric: (expr: string) => string,
+): Promise<{ probe: Set<string>; textOnly: Set<string> }> {
+  const probe = new Set<string>();
+  const textOnly = new Set<string>();
+  const candidates = header.filter((c) => storage.get(c) === 'text' && !ids.has(c) && roles.types[c] !== 'categorical');
+  if (!candidates.length) return { probe, textOnly };
+  const aggs = candidates.map((c, i) => `count(${ident(c)}) AS n${i}, count(${numeric(ident(c))}) AS k${i}`);
+  const [row] = await all<Record<string, unknown>>(
+    `SELECT ${aggs.join(', ')} FROM (SELECT * FROM ${view} LIMIT ${SAMPLE_ROWS}) AS nr_sample`,
+  );
+  candidates.forEach((c, i) => {
+    const n = Number(row[`n${i}`]);
+    const k = Number(row[`k${i}`]);
+    if (probing && n > 0 && k === n) probe.add(c);
+    else if (n > 0 && k === 0 && roles.types[c] === undefined) textOnly.add(c);
+  });
+  return { probe, textOnly };
+}
+
+/** Missing tokens that are numbers, compared as numbers in numeric columns ("-999" ↔ -999.0). */
+export function numericTokens(missing: readonly string[]): number[] {
+  return [...new Set(missing.filter((t) => t.trim() !== '' && Number.isFinite(Number(t))).map(Number))];
+}
+
+/**
+ * The select list of a typed relation (Parquet, JSON, a staged table): each column as text or
+ * DOUBLE per `storage`, missing tokens as NULL (text compared as written, numbers as numbers).
+ */
+export function typedSelect(
+  columns: readonly { name: string; type: string }[],
+  storage: Map<string, Storage>,
+  missing: readonly string[],
+): string {
+  const tokens = missing.map(literal).join(', ');
+  const nums = numericTokens(missing);
+  return columns
+    .map(({ name, type }) => {
+      const c = ident(name);
+      let expr: string;
+      if (NUMERIC_TYPES.test(type)) {
+        const value = storage.get(name) === 'double' ? `CAST(${c} AS DOUBLE)` : `CAST(${c} AS VARCHAR)`;
+        expr = nums.length ? `CASE WHEN ${c} IN (${nums.join(', ')}) THEN NULL ELSE ${value} END` : value;
+      } else {
+        const t = type === 'VARCHAR' ? c : `CAST(${c} AS VARCHAR)`;
+        const nulled = tokens ? `CASE WHEN ${t} IN (${tokens}) THEN NULL ELSE ${t} END` : t;
+        expr = storage.get(name) === 'double' ? `TRY_CAST(${nulled} AS DOUBLE)` : nulled;
+      }
+      return `${expr} AS ${c}`;
+    })
+    .join(', ');
+}
+
+/** Storage of a typed relation's columns: numbers as DOUBLE (IDs always text), the rest text. */
+export function typedStorage(columns: readonly { name: string; type: string }[], roles: Roles): Map<string, Storage> {
+  const ids = new Set([roles.group, roles.unit, roles.parent]);
+  const storage = new Map<string, Storage>();
+  for (const { name, type } of columns) {
+    const declared = roles.types[name];
+    storage.set(name, !ids.has(name) && declared !== 'categorical' && NUMERIC_TYPES.test(type) ? 'double' : 'text');
+  }
+  return storage;
+}

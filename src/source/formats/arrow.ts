@@ -1,0 +1,61 @@
+import { open } from 'node:fs/promises';
+import { DataType, RecordBatchReader } from 'apache-arrow';
+import type { Field } from 'apache-arrow';
+import { InputError } from '../../errors.js';
+import type { Roles } from '../../roles/types.js';
+import type { DuckEngine, DuckLayout } from '../duck.js';
+import { Stager, stagedLayout } from './staged.js';
+import type { StagedColumn, StagedValue } from './staged.js';
+
+function stagedType(f: Field): StagedColumn['type'] {
+  return DataType.isInt(f.type) || DataType.isFloat(f.type) ? 'DOUBLE' : 'VARCHAR';
+}
+
+function toValue(v: unknown, type: StagedColumn['type']): StagedValue {
+  if (v === null || v === undefined) return null;
+  if (type === 'DOUBLE') return typeof v === 'bigint' ? Number(v) : (v as number);
+  if (typeof v === 'string') return v;
+  if (v instanceof Date) return v.toISOString();
+  return String(v);
+}
+
+/**
+ * Arrow IPC (file or stream format): DuckDB has no Arrow reader built in here, so record
+ * batches are read one at a time with apache-arrow and appended to a staged DuckDB table.
+ */
+export async function arrowLayout(
+  engine: DuckEngine,
+  file: string,
+  display: string,
+  roles: Roles,
+  missing: readonly string[],
+): Promise<DuckLayout> {
+  const handle = await open(file, 'r');
+  try {
+    let reader;
+    try {
+      reader = await RecordBatchReader.from(handle);
+      await reader.open();
+    } catch (e) {
+      throw new InputError(`${display}: cannot read as Arrow IPC (${(e as Error).message.split('\n')[0]})`);
+    }
+    const columns: StagedColumn[] = reader.schema.fields.map((f) => ({ name: f.name, type: stagedType(f) }));
+    const stager = new Stager(engine, columns);
+    await stager.open();
+    try {
+      for await (const batch of reader) {
+        const vectors = columns.map((_, i) => batch.getChildAt(i));
+        const row: StagedValue[] = new Array(columns.length);
+        for (let r = 0; r < batch.numRows; r++) {
+          for (let i = 0; i < columns.length; i++) row[i] = toValue(vectors[i]?.get(r), columns[i].type);
+          stager.append(row);
+        }
+      }
+    } finally {
+      stager.close();
+    }
+    return stagedLayout(display, 'arrow', columns, roles, missing, []);
+  } finally {
+    await handle.close();
+  }
+}

@@ -1,0 +1,96 @@
+import { closeSync, openSync, readSync } from 'node:fs';
+import type { Roles } from '../../roles/types.js';
+import { readCsv, typedColumns } from '../sql.js';
+import type { CsvOptions } from '../sql.js';
+import type { DuckEngine, DuckLayout } from '../duck.js';
+import type { RejectedLine, SourceFormat } from '../types.js';
+
+/**
+ * CSV/TSV: one sniff (DESCRIBE) gives the header and DuckDB's type guesses; the delivery is then
+ * read with a type per column (text, or DOUBLE where the sniffer saw numbers) and missing tokens
+ * as NULL (nullstr). Lines that cannot be read go to DuckDB's rejects table, with line numbers.
+ */
+export async function csvLayout(
+  engine: DuckEngine,
+  file: string,
+  display: string,
+  format: SourceFormat,
+  roles: Roles,
+  missing: readonly string[],
+  options: CsvOptions,
+): Promise<DuckLayout> {
+  const { all, con } = engine;
+  let sniffed = await all<{ column_name: string; column_type: string }>(
+    `DESCRIBE SELECT * FROM ${readCsv(file, missing, 'sniff', options)}`,
+  );
+  const [dialect] = await all<{ Delimiter: string; Quote: string }>(
+    `SELECT Delimiter, Quote FROM ${readCsv(file, missing, 'sniff', options).replace(/^read_csv\(/, 'sniff_csv(')}`,
+  );
+  if (dialect && (dialect.Quote === '' || dialect.Quote === '(empty)') && !options.delim?.length && hasQuote(file, options)) {
+    // the sniffer gave up quoting: some quotes are broken. Read as RFC 4180 with the sniffed
+    // delimiter, so that the good quoted fields lose their quotes and the broken lines are rejected
+    options = { ...options, delim: dialect.Delimiter, rfcQuoting: true };
+    sniffed = sniffed.map((d) => ({ ...d, column_name: unquote(d.column_name) }));
+  }
+  const header = sniffed.map((d) => d.column_name);
+  const storage = typedColumns(header, roles, sniffed);
+  return {
+    path: display,
+    format,
+    header,
+    storage,
+    numbering: 'window',
+    typedReader: true,
+    relation: (s) => readCsv(file, missing, s, options),
+    sample: () => readCsv(file, missing, storage, options, true),
+    async rejects(): Promise<RejectedLine[]> {
+      const rows = await all<{ line: bigint; error_message: string; error_type: string; column_name: string | null; lines: bigint }>(
+        "SELECT line, error_message, error_type, column_name, len(string_split(rtrim(csv_line, chr(13) || chr(10)), chr(10))) AS lines FROM nr_rejects " +
+          'WHERE scan_id = (SELECT max(scan_id) FROM nr_rejects) ORDER BY line',
+      ).catch(() => []); // no table: nothing was rejected
+      // DuckDB may log one line more than once (a short line: once per missing field); a line
+      // is listed once, with its first reason, and a CAST error once per column
+      const seen = new Set<string>();
+      const out: RejectedLine[] = [];
+      for (const r of rows) {
+        const cast = r.error_type === 'CAST' && r.column_name;
+        const id = cast ? `${r.line}:cast:${r.column_name}` : `${r.line}`;
+        if (seen.has(id)) continue;
+        seen.add(id);
+        // an unterminated quote runs on over the lines after it: they are part of this record
+        const spans = Number(r.lines ?? 1) > 1 ? ` (it runs on to line ${Number(r.line) + Number(r.lines) - 1})` : '';
+        out.push({
+          line: Number(r.line),
+          reason: r.error_message.split('\n')[0] + spans,
+          kind: r.error_type,
+          ...(cast ? { column: r.column_name! } : {}),
+        });
+      }
+      return out;
+    },
+    async beforeRetype() {
+      // a scan without rejects writes nothing to the rejects tables, so the previous pass's CAST
+      // rejects would still read as the latest: start the log afresh for the re-read
+      await con.run('DROP TABLE IF EXISTS nr_rejects');
+      await con.run('DROP TABLE IF EXISTS nr_scans');
+    },
+  };
+}
+
+/** Whether the first megabyte of a (plain) file holds a double quote. */
+function hasQuote(file: string, options: CsvOptions): boolean {
+  if (options.compression || /\.gz$/i.test(file)) return false;
+  const fd = openSync(file, 'r');
+  try {
+    const buf = Buffer.alloc(1 << 20);
+    const n = readSync(fd, buf, 0, buf.length, 0);
+    return buf.subarray(0, n).includes(0x22);
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/** A header name the quote-less sniff kept its quotes on. */
+function unquote(name: string): string {
+  return /^".*"$/.test(name) ? name.slice(1, -1).replace(/""/g, '"') : name;
+}

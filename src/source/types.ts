@@ -1,0 +1,74 @@
+import type { Dialect } from './dialect.js';
+import type { Storage } from './sql.js';
+
+/** A line of the delivery that could not be read as a record. */
+export interface RejectedLine {
+  line: number;
+  reason: string;
+  /** the column a value failed to convert in (CAST errors only) */
+  column?: string;
+  kind: string;
+}
+
+/** Delivery formats read from files (or stdin); `postgres` is a table or query in a database. */
+export const INPUT_FORMATS = ['csv', 'tsv', 'parquet', 'arrow', 'json', 'ndjson', 'xlsx'] as const;
+export type InputFormat = (typeof INPUT_FORMATS)[number];
+export type SourceFormat = InputFormat | 'postgres';
+
+export const ENCODINGS = ['utf-8', 'latin1'] as const;
+export type Encoding = (typeof ENCODINGS)[number];
+
+/**
+ * An opened delivery: the relations the profile and rules read, in one SQL dialect. The
+ * profile is the only full pass; rules run bounded look-ups through `all`.
+ */
+export interface Source {
+  /** what the report names as the input (a file path, "-" for stdin, or a database relation) */
+  path: string;
+  format: SourceFormat;
+  dialect: Dialect;
+  header: string[];
+  /** how each column is read: text, or double where every value is a number */
+  storage: Map<string, Storage>;
+  /**
+   * Columns read as text whose values all looked like numbers in a sample: the profile computes
+   * their numeric reading too and settles them as double when every value is one (sources
+   * without a typed reader: Parquet/JSON/Excel text columns, PostgreSQL text columns).
+   */
+  probe: Set<string>;
+  /** text columns of undeclared type whose sample held no number at all: no numeric reading */
+  textOnly: Set<string>;
+  /** the delivery with missing tokens read as NULL (a relation name or a parenthesised query) */
+  view: string;
+  /** the same with `__rec`, the 1-based record number (header and rejected lines not counted) */
+  numbered: string;
+  /** run a query and return plain JS rows */
+  all<T = Record<string, unknown>>(sql: string): Promise<T[]>;
+  /** run a query and return its result by column (the profile's group table) */
+  columns(sql: string): Promise<Record<string, unknown[]>>;
+  /** run a statement that returns nothing (e.g. a temp table for a look-up) */
+  run(sql: string): Promise<void>;
+  /** rejected lines of the latest full read */
+  rejects(): Promise<RejectedLine[]>;
+  /** read these columns as text from now on (a value in them was not a number) */
+  readAsText(columns: readonly string[]): Promise<void>;
+  /** read these (probe) columns as double from now on: the profile found only numbers in them */
+  readAsDouble(columns: readonly string[]): Promise<void>;
+  /** release the engine and delete any temp file (a spooled stdin, a staged table) */
+  close(): void | Promise<void>;
+}
+
+export interface OpenOptions {
+  missing: readonly string[];
+  /** DuckDB memory limit, e.g. "512MB"; DuckDB spills to disk beyond it */
+  memoryLimit?: string;
+  threads?: number;
+  /** the format, when not detected from the name and content */
+  format?: InputFormat;
+  /** text encoding of CSV/TSV (default UTF-8, with or without a byte-order mark) */
+  encoding?: Encoding;
+  /** Excel: the worksheet to read (default the first) */
+  sheet?: string;
+  /** what the report calls the input (default the path) */
+  displayPath?: string;
+}

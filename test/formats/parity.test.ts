@@ -1,0 +1,57 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import { catalogue } from '../../rules/index.js';
+import { audit } from '../../src/audit.js';
+import type { AuditOptions } from '../../src/audit.js';
+import type { Report } from '../../src/report/types.js';
+import { loadRoles } from '../../src/roles/load.js';
+import { expectSameAudit } from './same.js';
+
+// every fixture in fixtures/formats is repairs-delivery.csv in another format
+// (scripts/make-format-fixtures.js): each must give the CSV's report
+const CSV = 'fixtures/demo/repairs-delivery.csv';
+const roles = loadRoles('fixtures/demo/repairs-delivery.roles.yaml', catalogue);
+const cases: [string, string, AuditOptions?][] = [
+  ['CSV with a UTF-8 byte-order mark', 'repairs-bom.csv'],
+  ['gzip-compressed CSV', 'repairs.csv.gz'],
+  ['TSV', 'repairs.tsv'],
+  ['Parquet', 'repairs.parquet'],
+  ['Arrow IPC file', 'repairs.arrow'],
+  ['Arrow IPC stream', 'repairs.arrows'],
+  ['JSON array', 'repairs.json'],
+  ['NDJSON', 'repairs.ndjson'],
+  ['Excel (first sheet)', 'repairs.xlsx'],
+  ['Excel (--sheet jobs)', 'repairs.xlsx', { sheet: 'jobs' }],
+  ['format given, not detected', 'repairs.tsv', { inputFormat: 'tsv' }],
+];
+
+describe('every delivery format gives the report of the same data as CSV', () => {
+  let csv: Report;
+  beforeAll(async () => {
+    csv = await audit(CSV, roles);
+  });
+
+  it.each(cases)('%s (%s)', async (_, file, options) => {
+    const path = `fixtures/formats/${file}`;
+    const got = await audit(path, roles, options);
+    expect(got.input.path).toBe(path);
+    expectSameAudit(got, csv);
+  });
+
+  it('Latin-1 with --encoding latin1 reads as the UTF-8 file does', async () => {
+    const utf8 = await audit('fixtures/formats/accents.csv', roles);
+    const latin1 = await audit('fixtures/formats/accents.latin1.csv', roles, { encoding: 'latin1' });
+    expectSameAudit(latin1, utf8);
+    expect(utf8.input.rowsRejected).toBe(0);
+  });
+
+  it('Latin-1 read as UTF-8 is not read silently: its lines are rejected and listed', async () => {
+    const wrong = await audit('fixtures/formats/accents.latin1.csv', roles);
+    expect(wrong.input.rowsRejected).toBeGreaterThan(0);
+    const f = wrong.findings.find((x) => x.rule === 'unreadable-lines');
+    expect(f?.message).toMatch(/not utf-8 encoded/);
+  });
+
+  it('an Excel sheet that is not there is an input error naming the sheets', async () => {
+    await expect(audit('fixtures/formats/repairs.xlsx', roles, { sheet: 'nope' })).rejects.toThrow(/no worksheet named "nope" \(sheets: jobs, notes\)/);
+  });
+});

@@ -1,0 +1,59 @@
+import { describe, expect, it } from 'vitest';
+import { renderMarkdown } from '../../src/report/markdown.js';
+import { mdText } from '../../src/report/md-escape.js';
+import { formatNumber } from '../../src/util/format.js';
+import { HOSTILE, demoReport, hostileReport } from './fixtures/reports.js';
+
+/** Cells of a Markdown table row, honouring `\|` escapes. */
+function cells(line: string): string[] {
+  return line.slice(1, -1).split(/(?<!\\)\|/).map((c) => c.trim());
+}
+
+describe('renderMarkdown', () => {
+  it('has the verdict first, findings per severity as tables, then statistics', () => {
+    const report = demoReport();
+    const md = renderMarkdown(report);
+    expect(md.split('\n')[0]).toBe(`# nestready: NOT READY (grade F, score ${report.score}/100)`);
+    const at = (s: string) => md.indexOf(s);
+    expect(at('### [X] Blockers (3)')).toBeGreaterThan(at('## Findings'));
+    expect(at('### [i] Notes (1)')).toBeGreaterThan(at('### [X] Blockers (3)'));
+    expect(at('## Statistics')).toBeGreaterThan(at('### [i] Notes (1)'));
+    for (const f of report.findings) {
+      expect(md).toContain(mdText(f.message));
+      expect(md).toContain(mdText(f.fix));
+      if (f.rows?.length) expect(md).toContain(f.rows.join(', '));
+    }
+  });
+
+  it('formats the numbers as the HTML report does', () => {
+    const report = demoReport();
+    const md = renderMarkdown(report);
+    const o = report.outcomes.repair_minutes;
+    expect(md).toContain(`| REML | ${formatNumber(o.reml.tau2, 4)} | ${formatNumber(o.reml.sigma2, 4)} | ${formatNumber(o.reml.icc, 4)} |`);
+    expect(md).toContain(`| ICC\\(1\\) 95% interval | ${formatNumber(o.anova.ci95[0], 4)} to ${formatNumber(o.anova.ci95[1], 4)} |`);
+    expect(md).toContain(`| design effect | ${formatNumber(o.designEffect, 3)} |`);
+    expect(md).toContain('| item\\_age\\_years | 0.082 | 0.082 |');
+  });
+
+  it('keeps every table row at its column count and lets no hostile value become markup', () => {
+    const md = renderMarkdown(hostileReport());
+    expect(md).not.toMatch(/<script|<img|<svg/i);
+    expect(md).not.toContain('](javascript:');
+    expect(md).not.toMatch(/(?<!\\)\*\*bold/);
+    expect(md).not.toMatch(/(?<!\\)`code/);
+    const lines = md.split('\n');
+    for (let i = 0; i < lines.length; i++) {
+      if (!/^\|[-:|]+\|$/.test(lines[i])) continue;
+      const width = cells(lines[i - 1]).length;
+      for (let k = i + 1; k < lines.length && lines[k].startsWith('|'); k++) expect(cells(lines[k]), lines[k]).toHaveLength(width);
+    }
+    expect(md).toContain(mdText(HOSTILE.md));
+  });
+
+  it('mdText escapes what Markdown and HTML would read', () => {
+    expect(mdText('a|b')).toBe('a\\|b');
+    expect(mdText('<b>&')).toBe('&lt;b&gt;&amp;');
+    expect(mdText('*x* _y_ [l](u) `c`')).toBe('\\*x\\* \\_y\\_ \\[l\\]\\(u\\) \\`c\\`');
+    expect(mdText('one\ntwo\r\nthree')).toBe('one two three');
+  });
+});
