@@ -1,7 +1,7 @@
 import { defineRule } from '../src/rules/define.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { variableStats } from '../src/rules/variable-stats.js';
-import type { OutcomeStats } from '../src/stats/types.js';
+import type { VariableStats } from '../src/rules/variable-stats.js';
 import { formatNumber } from '../src/util/format.js';
 
 interface Params {
@@ -45,7 +45,7 @@ export default defineRule<Params>({
   },
   check({ profile, roles, outcomes, params }) {
     const findings: FindingDraft[] = [];
-    const stats = new Map<string, OutcomeStats>();
+    const stats = new Map<string, VariableStats>();
     for (const [name, s] of Object.entries(outcomes)) if (profile.column(name).type === 'numeric') stats.set(name, s);
     for (const name of roles.level1) {
       const col = profile.column(name);

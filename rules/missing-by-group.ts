@@ -98,8 +98,9 @@ export default defineRule<Params>({
           df: test.df,
           p: test.p < 0.001 ? '< .001' : formatNumber(test.p, 3),
           rough: smallExpected > 0.2 ? '; rough: many small expected counts' : '',
-          low: percent(Math.min(...rates)),
-          high: percent(Math.max(...rates)),
+          // reduce, not Math.min(...rates): a million groups overflow the call stack as arguments
+          low: percent(rates.reduce((a, b) => Math.min(a, b), Infinity)),
+          high: percent(rates.reduce((a, b) => Math.max(a, b), -Infinity)),
           worst: order.slice(0, 5).map((i) => `${ids[i]} (${missing[i]} of ${sizes[i]})`).join(', '),
         },
       });

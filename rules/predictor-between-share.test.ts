@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { catalogue } from './index.js';
 import { audit } from '../src/audit.js';
 import { parseRoles } from '../src/roles/load.js';
+import { variableStats } from '../src/rules/variable-stats.js';
+import { profileOf } from '../test/helpers/profile-of.js';
 import { auditRows, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 
 describe('predictor-between-share', () => {
@@ -12,6 +14,11 @@ describe('predictor-between-share', () => {
     expect(f.severity).toBe('note');
     expect(f.message).toBe('ses: 26.5% of its variance lies between groups (REML ICC 0.265, ANOVA ICC(1) 0.267)');
     expect(f.fix).toContain('Centre ses within groups (x − group mean) and add its group mean as a level-2 (contextual) variable');
+    // the same computation to more digits (src/rules/variable-stats.ts, shared with low-group-mean-reliability)
+    const { profile } = await profileOf('fixtures/reference/hsb.csv', 'group: school\nlevel1: [ses]\n');
+    const s = variableStats(profile, 'ses');
+    expect(s.reml.icc).toBeCloseTo(0.2649104, 6); // R 4.2.2 + lme4 1.1-31 REML
+    expect(s.anova.icc).toBeCloseTo(0.2665809, 6); // R anova(lm(ses ~ factor(school)))
   });
 
   it('a predictor with no between-group part: grand-mean centering loses little', async () => {

@@ -38,6 +38,7 @@ let inReadAll = 0;
 const proto = duck.DuckDBConnection.prototype;
 const origRun = proto.run;
 const origReadAll = proto.runAndReadAll;
+const origStream = proto.stream;
 // Query kinds, from the SQL text alone (so this keeps working as src/ changes):
 //   profile      the profiling GROUP BY (its select list starts with count(*)::DOUBLE AS n)
 //   create-view  CREATE [OR REPLACE] VIEW ... (lazy: no scan)
@@ -66,6 +67,45 @@ proto.run = async function run(sql, ...rest) {
     q.maxRssMB = rssMB();
     queries.push(q);
   }
+};
+// the profiling query is streamed (read chunk by chunk): timed from the call to the last
+// chunk, so the result's conversion is in its time
+proto.stream = async function stream(sql, ...rest) {
+  const q = { kind: label(sql), sql: String(sql).slice(0, 120), startMs: performance.now() };
+  let result;
+  try {
+    result = await origStream.call(this, sql, ...rest);
+  } catch (e) {
+    q.error = String(e?.message ?? e).split('\n')[0];
+    q.endMs = performance.now();
+    q.maxRssMB = rssMB();
+    queries.push(q);
+    throw e;
+  }
+  const fetchChunk = result.fetchChunk.bind(result);
+  let done = false;
+  result.fetchChunk = async () => {
+    try {
+      const chunk = await fetchChunk();
+      if (!done && (!chunk || chunk.rowCount === 0)) {
+        done = true;
+        q.endMs = performance.now();
+        q.maxRssMB = rssMB();
+        queries.push(q);
+      }
+      return chunk;
+    } catch (e) {
+      if (!done) {
+        done = true;
+        q.error = String(e?.message ?? e).split('\n')[0];
+        q.endMs = performance.now();
+        q.maxRssMB = rssMB();
+        queries.push(q);
+      }
+      throw e;
+    }
+  };
+  return result;
 };
 proto.runAndReadAll = async function runAndReadAll(sql, ...rest) {
   const q = { kind: label(sql), sql: String(sql).slice(0, 120), startMs: performance.now() };

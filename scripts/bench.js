@@ -8,6 +8,9 @@
 //
 //   --sizes        several row counts (each at --groups)
 //   --groups-list  several group counts (each at --rows); with --sizes too, every pair runs
+//   --cases        explicit ROWSxGROUPS pairs, e.g. 1e6x5000,1e7x5000,1e6x1000000 (instead of the above);
+//                  `npm run bench` runs the issue's set: 1M and 10M rows at 5,000 groups, and
+//                  1M rows at 1k, 100k and 1M groups (memory grows with the groups, not the rows)
 //   --memory-limit passed to `nestready audit --memory-limit` (default: the CLI's own, 200MB)
 //   --keep         keep the generated CSVs and the audit reports
 //
@@ -54,6 +57,7 @@ const { values: opt } = parseArgs({
     repeat: { type: 'string', default: '3' },
     sizes: { type: 'string' },
     'groups-list': { type: 'string' },
+    cases: { type: 'string' },
     'memory-limit': { type: 'string' },
     keep: { type: 'boolean', default: false },
     help: { type: 'boolean', short: 'h', default: false },
@@ -81,7 +85,16 @@ const seed = count('seed', opt.seed, 0);
 const repeat = count('repeat', opt.repeat);
 const rowsList = opt.sizes ? list('sizes', opt.sizes) : [count('rows', opt.rows, 0)];
 const groupsList = opt['groups-list'] ? list('groups-list', opt['groups-list']) : [count('groups', opt.groups)];
-const cases = rowsList.flatMap((rows) => groupsList.map((groups) => ({ rows, groups })));
+const cases = opt.cases
+  ? String(opt.cases)
+      .split(',')
+      .map((x) => x.trim())
+      .filter(Boolean)
+      .map((x) => {
+        const [r, g] = x.split('x');
+        return { rows: count('cases', r, 0), groups: count('cases', g ?? '') };
+      })
+  : rowsList.flatMap((rows) => groupsList.map((groups) => ({ rows, groups })));
 
 if (!existsSync(CLI)) {
   process.stderr.write(`bench: ${CLI} not found; run \`npm run build\` first (npm run bench does)\n`);

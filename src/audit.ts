@@ -15,7 +15,6 @@ import { createLookup } from './rules/lookup.js';
 import { InputError } from './errors.js';
 import { openDelivery } from './source/open.js';
 import type { Encoding, InputFormat, Source } from './source/open.js';
-import { openPostgres } from './source/postgres.js';
 import type { PostgresInput } from './source/postgres.js';
 import { outcomeStats } from './stats/index.js';
 import { binaryGroupsFromMoments, logisticNullModel, momentsAreZeroOne } from './stats/logistic-null-model.js';
@@ -47,7 +46,8 @@ export type AuditInput = string | PostgresInput;
 
 async function openInput(input: AuditInput, roles: Roles, options: AuditOptions): Promise<Source> {
   const common = { missing: roles.missing, memoryLimit: options.memoryLimit, threads: options.threads };
-  if (typeof input !== 'string') return openPostgres(input, roles, common);
+  // the PostgreSQL client is loaded only for a database source
+  if (typeof input !== 'string') return (await import('./source/postgres.js')).openPostgres(input, roles, common);
   return openDelivery(input, roles, {
     ...common,
     format: options.inputFormat,

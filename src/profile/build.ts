@@ -1,4 +1,5 @@
 import * as aq from 'arquero';
+import type { ColumnTable } from 'arquero';
 import type { Roles } from '../roles/types.js';
 import type { Source } from '../source/open.js';
 import { settleProbes } from '../source/probe.js';
@@ -58,14 +59,16 @@ export async function buildProfile(source: Source, roles: Roles): Promise<Profil
       planColumns([name], roles, new Map([[name, 'text']]), { textOnly })[0]?.numeric ?? false,
     );
   }
-  const raw = aq.table(result);
+  const raw = directArrays(aq.table(result));
 
   const rows = (Array.from(raw.array('n')) as number[]).reduce((a, b) => a + b, 0);
-  const missingRow = raw.filter((d: { group: unknown }) => d.group === null);
-  const missingGroupRows = missingRow.numRows() ? (missingRow.get('n', 0) as number) : 0;
-  const groups = raw
-    .filter((d: { group: unknown }) => d.group !== null)
-    .orderby('group');
+  // the query orders the groups (missing ID first): the group table is the rest, its columns
+  // shared with the raw table rather than filtered and sorted again (a million groups are common)
+  const hasMissing = result.group.length > 0 && result.group[0] === null;
+  const missingGroupRows = hasMissing ? (result.n[0] as number) : 0;
+  const groups = hasMissing
+    ? directArrays(aq.table(Object.fromEntries(Object.entries(result).map(([k, v]) => [k, ArrayBuffer.isView(v) ? (v as unknown as Float64Array).subarray(1) : v.slice(1)]))))
+    : raw;
 
   const profiles = new Map<string, ColumnProfile>();
   for (const name of source.header) {
@@ -73,6 +76,7 @@ export async function buildProfile(source: Source, roles: Roles): Promise<Profil
     profiles.set(name, columnProfile(name, roles, raw, p, rows, missingGroupRows));
   }
   const columns = aq.from([...profiles.values()]);
+  const momentCache = new Map<string, GroupMoments[]>();
 
   return {
     rows,
@@ -87,12 +91,38 @@ export async function buildProfile(source: Source, roles: Roles): Promise<Profil
       return p;
     },
     moments(name): GroupMoments[] {
-      const n = groups.array(key(name, 'num')) as number[];
-      const mean = groups.array(key(name, 'mean')) as number[];
-      const ss = groups.array(key(name, 'ss')) as number[];
-      const out: GroupMoments[] = [];
-      for (let i = 0; i < n.length; i++) if (n[i] > 0) out.push({ n: n[i], mean: mean[i], ss: Math.max(0, ss[i]) });
-      return out;
+      // computed once per column (the outcome statistics, several rules and the plots ask);
+      // each caller gets its own array of frozen moments
+      let out = momentCache.get(name);
+      if (!out) {
+        const n = groups.array(key(name, 'num')) as number[];
+        const mean = groups.array(key(name, 'mean')) as number[];
+        const ss = groups.array(key(name, 'ss')) as number[];
+        out = [];
+        for (let i = 0; i < n.length; i++) if (n[i] > 0) out.push(Object.freeze({ n: n[i], mean: mean[i], ss: Math.max(0, ss[i]) }));
+        momentCache.set(name, out);
+      }
+      return out.slice();
     },
   };
+}
+
+/**
+ * `table.array(name)` of an unfiltered, unordered table as a plain copy of the column, not a
+ * scan with a callback per row: with a million groups the rules call it hundreds of times.
+ * Same result (a new Array each call), so callers may still sort or change what they get.
+ */
+function directArrays(table: ColumnTable): ColumnTable {
+  const scan = table.array.bind(table);
+  table.array = ((name: string, constructor?: ArrayConstructor) => {
+    const column = table.column(name) as unknown;
+    if ((constructor && constructor !== Array) || table.isFiltered() || table.isOrdered() || !column) return scan(name, constructor);
+    if (Array.isArray(column)) return column.slice();
+    // a typed column (Float64Array): a counted loop, several times faster than Array.from's iterator
+    const typed = column as ArrayLike<unknown>;
+    const out = new Array(typed.length);
+    for (let i = 0; i < typed.length; i++) out[i] = typed[i];
+    return out;
+  }) as ColumnTable['array'];
+  return table;
 }

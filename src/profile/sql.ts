@@ -44,5 +44,9 @@ export function profileQuery(view: string, group: string, plan: readonly Profile
       `var_pop(${x}) * count(${x}) AS ${as('ss')}`,
     );
   });
-  return `SELECT "group", ${aggs.join(', ')} FROM (SELECT ${inner.join(', ')} FROM ${view}) AS nr_rows GROUP BY "group"`;
+  // ordered by the engine (byte order, the missing-ID group first), so the profile need not sort
+  return (
+    `SELECT "group", ${aggs.join(', ')} FROM (SELECT ${inner.join(', ')} FROM ${view}) AS nr_rows GROUP BY "group" ` +
+    `ORDER BY ${d.ordered('"group"')} NULLS FIRST`
+  );
 }

@@ -1,5 +1,4 @@
 import type { FailOn } from '../grade.js';
-import { renderHtml } from './html.js';
 import { renderJson } from './json.js';
 import { renderJunit } from './junit.js';
 import { renderMarkdown } from './markdown.js';
@@ -21,7 +20,8 @@ export const RENDERERS = {
   text: (r, o) => renderText(r, { color: o.color }),
   json: (r, o) => renderJson(r, { withPlotData: o.withPlotData }),
   md: (r) => renderMarkdown(r),
-  html: (r) => renderHtml(r),
+  // loaded on demand: the chart libraries cost ~0.3 s of start-up that other formats need not pay
+  html: async (r) => (await import('./html.js')).renderHtml(r),
   junit: (r, o) => renderJunit(r, { failOn: o.failOn }),
 } satisfies Record<string, Renderer>;
 

@@ -1,7 +1,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { DuckDBInstance } from '@duckdb/node-api';
+import { DuckDBDoubleVector, DuckDBInstance, JSDuckDBValueConverter } from '@duckdb/node-api';
 import type { DuckDBConnection } from '@duckdb/node-api';
 import type { Roles } from '../roles/types.js';
 import { duckdb } from './dialect.js';
@@ -17,6 +17,30 @@ export interface DuckEngine {
   close(): void;
   /** paths deleted on close (a spooled stdin, …) */
   cleanup: string[];
+  /** the memory limit in bytes (null when not understood) */
+  memoryBytes: number | null;
+}
+
+/** "200MB", "1.5GiB", "512 kb" → bytes (null when not a size). */
+export function parseSize(size: string): number | null {
+  const m = /^\s*([\d.]+)\s*(b|kb|kib|mb|mib|gb|gib|tb|tib)?\s*$/i.exec(size);
+  if (!m) return null;
+  const unit = (m[2] ?? 'b').toLowerCase();
+  const scale: Record<string, number> = { b: 1, kb: 1e3, kib: 2 ** 10, mb: 1e6, mib: 2 ** 20, gb: 1e9, gib: 2 ** 30, tb: 1e12, tib: 2 ** 40 };
+  return Number(m[1]) * scale[unit];
+}
+
+// spill directories of engines still open: removed when the process exits, even if a caller
+// never closed its source (an error path, a test that failed half-way)
+const liveSpills = new Set<string>();
+let exitHook = false;
+function track(dir: string): void {
+  liveSpills.add(dir);
+  if (exitHook) return;
+  exitHook = true;
+  process.once('exit', () => {
+    for (const d of liveSpills) rmSync(d, { recursive: true, force: true });
+  });
 }
 
 export async function createEngine(options: { memoryLimit?: string; threads?: number }): Promise<DuckEngine> {
@@ -36,10 +60,12 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
   }
   const con = await instance.connect();
   const cleanup: string[] = [spill];
+  track(spill);
   let closed = false;
   return {
     con,
     cleanup,
+    memoryBytes: parseSize(options.memoryLimit ?? '512MB'),
     all: async <T,>(sql: string) => (await con.runAndReadAll(sql)).getRowObjectsJS() as T[],
     close() {
       if (closed) return;
@@ -49,6 +75,7 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
         instance.closeSync();
       } finally {
         for (const p of cleanup) rmSync(p, { recursive: true, force: true });
+        liveSpills.delete(spill);
       }
     },
   };
@@ -118,9 +145,7 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
     view: 'nr_delivery',
     numbered: 'nr_numbered',
     all,
-    async columns(sql) {
-      return (await con.runAndReadAll(sql)).getColumnsObjectJS() as Record<string, unknown[]>;
-    },
+    columns: (sql) => readColumns(engine, sql),
     async run(sql) {
       await con.run(sql);
     },
@@ -226,4 +251,93 @@ export function typedStorage(columns: readonly { name: string; type: string }[],
     storage.set(name, !ids.has(name) && declared !== 'categorical' && NUMERIC_TYPES.test(type) ? 'double' : 'text');
   }
   return storage;
+}
+
+/** The most the profile may raise DuckDB's memory limit to when a wide aggregate over many groups does not fit. */
+const MEMORY_CAP = 4 * 2 ** 30;
+
+/**
+ * Run a query and read its result by column, one chunk at a time (DuckDB never holds the whole
+ * result): a DOUBLE column without NULLs becomes a Float64Array, repeated strings share one
+ * copy. A result of a million groups then costs about 8 bytes per number, not a boxed value.
+ * Wide aggregates over very many groups can need more than the memory limit even though DuckDB
+ * spills; the limit is then doubled (up to 4 GiB) and the query run again.
+ */
+export async function readColumns(engine: DuckEngine, sql: string): Promise<Record<string, unknown[]>> {
+  for (;;) {
+    try {
+      return await streamColumns(engine.con, sql);
+    } catch (e) {
+      const limit = engine.memoryBytes;
+      if (!/Out of Memory/i.test((e as Error).message) || limit === null || limit * 2 > MEMORY_CAP) throw e;
+      engine.memoryBytes = limit * 2;
+      await engine.con.run(`SET memory_limit = '${Math.round(engine.memoryBytes / 2 ** 20)}MiB'`);
+    }
+  }
+}
+
+/** A column of doubles read chunk by chunk into a growing Float64Array; NULLs noted by position. */
+class DoubleColumn {
+  data = new Float64Array(4096);
+  length = 0;
+  nulls: number[] = [];
+  push(v: number | null): void {
+    if (this.length === this.data.length) {
+      const grown = new Float64Array(this.data.length * 2);
+      grown.set(this.data);
+      this.data = grown;
+    }
+    if (v === null) this.nulls.push(this.length);
+    this.data[this.length++] = v ?? 0;
+  }
+  /** the numbers as a Float64Array, or as an array with the NULLs when there are any */
+  done(): unknown[] {
+    const values = this.data.subarray(0, this.length);
+    if (!this.nulls.length) return values as unknown as unknown[];
+    const out: (number | null)[] = Array.from(values);
+    for (const i of this.nulls) out[i] = null;
+    return out;
+  }
+}
+
+async function streamColumns(con: DuckDBConnection, sql: string): Promise<Record<string, unknown[]>> {
+  const result = await con.stream(sql);
+  const names = result.columnNames();
+  const cols: (unknown[] | DoubleColumn | null)[] = names.map(() => null);
+  const interned = names.map(() => new Map<string, string>());
+  for (;;) {
+    const chunk = await result.fetchChunk();
+    const rows = chunk?.rowCount ?? 0; // a native call: read once per chunk
+    if (!chunk || rows === 0) break;
+    for (let i = 0; i < names.length; i++) {
+      const vector = chunk.getColumnVector(i);
+      if (vector instanceof DuckDBDoubleVector) {
+        // numbers straight from the vector's buffer, no conversion per value
+        let col = cols[i];
+        if (col === null) col = cols[i] = new DoubleColumn();
+        if (col instanceof DoubleColumn) {
+          for (let r = 0; r < rows; r++) col.push(vector.getItem(r));
+          continue;
+        }
+      }
+      const values = chunk.convertColumnValues(i, JSDuckDBValueConverter);
+      let col = cols[i];
+      if (col === null) col = cols[i] = [];
+      if (col instanceof DoubleColumn) col = cols[i] = col.done().slice();
+      const pool = interned[i];
+      for (const v of values) {
+        if (typeof v === 'string' && pool.size < 65536) {
+          let same = pool.get(v);
+          if (same === undefined) pool.set(v, (same = v));
+          col.push(same);
+        } else col.push(v);
+      }
+    }
+  }
+  const out: Record<string, unknown[]> = {};
+  names.forEach((name, i) => {
+    const col = cols[i];
+    out[name] = col === null ? [] : col instanceof DoubleColumn ? col.done() : col;
+  });
+  return out;
 }

@@ -4,10 +4,8 @@ import type { Roles } from '../roles/types.js';
 import { detectFormat } from './detect.js';
 import { createEngine, duckSource } from './duck.js';
 import type { DuckLayout } from './duck.js';
-import { arrowLayout } from './formats/arrow.js';
 import { csvLayout } from './formats/csv.js';
 import { jsonReader, parquetReader, typedFileLayout } from './formats/parquet.js';
-import { xlsxLayout } from './formats/xlsx.js';
 import { spoolStdin } from './stdin.js';
 import type { OpenOptions, Source } from './types.js';
 
@@ -69,11 +67,12 @@ export async function openDelivery(path: string, roles: Roles, options: OpenOpti
       case 'ndjson':
         layout = await typedFileLayout(engine, jsonReader(file, detected.format, detected.gzip), display, detected.format, roles, missing);
         break;
+      // the Arrow and Excel libraries are loaded only for those formats (they are large)
       case 'arrow':
-        layout = await arrowLayout(engine, file, display, roles, missing);
+        layout = await (await import('./formats/arrow.js')).arrowLayout(engine, file, display, roles, missing);
         break;
       case 'xlsx':
-        layout = await xlsxLayout(engine, file, display, roles, missing, options.sheet);
+        layout = await (await import('./formats/xlsx.js')).xlsxLayout(engine, file, display, roles, missing, options.sheet);
         break;
     }
     if (!layout.header.length) throw new InputError(`${display}: no columns found`);

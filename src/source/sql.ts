@@ -33,6 +33,17 @@ export function numericExpr(expr: string): string {
   return `TRY_CAST(${expr} AS DOUBLE)`;
 }
 
+/** The dialect the sniffer found, passed back so that no later read sniffs again. */
+export interface CsvDialect {
+  delim: string;
+  /** '' for none */
+  quote: string;
+  escape: string;
+  /** as sniff_csv writes it: '\n', '\r\n' */
+  newline: string;
+  skip: number;
+}
+
 /** How the CSV reader is told what the sniffer cannot guess (or the user said). */
 export interface CsvOptions {
   /** field delimiter; sniffed when absent */
@@ -42,25 +53,30 @@ export interface CsvOptions {
   /** 'gzip' for a compressed file whose name does not end in .gz (stdin) */
   compression?: 'gzip';
   /**
-   * Read with RFC 4180 quoting ('"', doubled to escape) and no sniffing: for a file the sniffer
-   * reads without quoting because some of its quotes are broken, which would keep the quotes of
-   * every well-quoted field as part of its value and accept the broken lines.
+   * The sniffed dialect: reads then skip DuckDB's auto-detection (every read_csv that binds
+   * would otherwise sniff the file again, a tenth of a second each).
    */
-  rfcQuoting?: boolean;
+  dialect?: CsvDialect;
 }
 
 function csvOptions(o: CsvOptions): string {
   const parts = [];
-  if (o.delim !== undefined) parts.push(`delim = ${literal(o.delim)}`);
+  const d = o.dialect;
+  if (d) {
+    parts.push('auto_detect = false', `delim = ${literal(d.delim)}`, `quote = ${literal(d.quote)}`, `escape = ${literal(d.escape)}`);
+    parts.push(`new_line = ${literal(d.newline)}`, `skip = ${Math.max(0, Math.floor(d.skip))}`);
+  } else if (o.delim !== undefined) parts.push(`delim = ${literal(o.delim)}`);
   if (o.encoding && o.encoding !== 'utf-8') parts.push(`encoding = ${literal(o.encoding)}`);
   if (o.compression) parts.push(`compression = ${literal(o.compression)}`);
   return parts.map((p) => `, ${p}`).join('');
 }
 
 /**
- * read_csv over the delivery. 'sniff': let DuckDB guess types from a sample (for the header
- * and type hints); a map: text or DOUBLE per column. Missing
+ * read_csv over the delivery. 'sniff': let DuckDB guess the dialect and types from a sample (for
+ * the header and type hints); a map: text or DOUBLE per column, with the sniffed dialect. Missing
  * tokens are read as NULL by the reader itself (nullstr), which is far cheaper than a CASE per cell.
+ * `sample`: for a read of the first rows only, which logs no rejects (DuckDB 1.5 fails inside a
+ * limited scan that stores them).
  */
 export function readCsv(
   path: string,
@@ -69,17 +85,14 @@ export function readCsv(
   options: CsvOptions = {},
   sample = false,
 ): string {
-  const nullstr = `nullstr = [${missing.map(literal).join(', ')}]${csvOptions(options)}`;
+  const nullstr = `nullstr = [${missing.map(literal).join(', ')}]${csvOptions(storage === 'sniff' ? { ...options, dialect: undefined } : options)}`;
   if (storage === 'sniff') return `read_csv(${literal(path)}, header = true, ${nullstr}, ignore_errors = true)`;
   const types = [...storage].map(([c, s]) => `${literal(c)}: '${s === 'double' ? 'DOUBLE' : 'VARCHAR'}'`).join(', ');
-  if (options.rfcQuoting) {
-    const fixed = `read_csv(${literal(path)}, auto_detect = false, header = true, quote = '"', escape = '"', ${nullstr}, columns = {${types}}, `;
-    return sample ? `${fixed}ignore_errors = true)` : `${fixed}store_rejects = true, rejects_table = 'nr_rejects', rejects_scan = 'nr_scans')`;
-  }
-  // a sample read (LIMIT) logs no rejects: DuckDB 1.5 fails inside a limited scan that stores them
-  if (sample) return `read_csv(${literal(path)}, header = true, ${nullstr}, types = {${types}}, ignore_errors = true)`;
+  // with auto-detection off the columns are given in full, in order (`columns`), not as hints
+  const typed = options.dialect ? `columns = {${types}}` : `types = {${types}}`;
+  if (sample) return `read_csv(${literal(path)}, header = true, ${nullstr}, ${typed}, ignore_errors = true)`;
   return (
-    `read_csv(${literal(path)}, header = true, ${nullstr}, types = {${types}}, ` +
+    `read_csv(${literal(path)}, header = true, ${nullstr}, ${typed}, ` +
     `store_rejects = true, rejects_table = 'nr_rejects', rejects_scan = 'nr_scans')`
   );
 }

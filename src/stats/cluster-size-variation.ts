@@ -29,7 +29,12 @@ export function clusterSizeVariation(sizes: readonly number[]): SizeVariation {
   const mean = sizes.reduce((a, b) => a + b, 0) / count;
   const squares = sizes.reduce((a, b) => a + (b - mean) ** 2, 0);
   const sd = count > 1 ? Math.sqrt(squares / (count - 1)) : NaN;
-  const min = Math.min(...sizes);
-  const max = Math.max(...sizes);
+  // a loop, not Math.min(...sizes): a million groups overflow the call stack as arguments
+  let min = Infinity;
+  let max = -Infinity;
+  for (const n of sizes) {
+    if (n < min) min = n;
+    if (n > max) max = n;
+  }
   return { cv: sd / mean, ratio: max / min, mean, sd, min, max };
 }

@@ -1,6 +1,7 @@
 import type { GroupMoments, VarianceComponents } from './types.js';
 import { iccFromComponents } from './icc.js';
 import { minimizeOverLambda } from './minimize-over-lambda.js';
+import { bySize } from './size-classes.js';
 import { glsMean, profiledQ } from './profile-terms.js';
 import { componentsEstimable, grandMean, totalCount } from './sums.js';
 
@@ -31,7 +32,11 @@ export function fitComponents(
   residualDf: (n: number) => number,
 ): VarianceComponents {
   const mean = grandMean(groups);
-  if (!componentsEstimable(groups)) {
+  const estimable = componentsEstimable(groups);
+  // many groups are taken together by size: each likelihood evaluation then costs the number
+  // of distinct sizes (exact up to rounding; fewer than 10,000 groups are used as they are)
+  groups = bySize(groups);
+  if (!estimable) {
     return { tau2: NaN, sigma2: NaN, icc: NaN, mean, logLik: NaN };
   }
   const df = residualDf(totalCount(groups));

@@ -1,4 +1,5 @@
 import type { GroupMoments } from './types.js';
+import { multiplicity, spreadOf } from './size-classes.js';
 import { withinSumOfSquares } from './sums.js';
 
 // Terms of the one-way random-intercept likelihood at a fixed variance ratio λ = τ²/σ².
@@ -19,7 +20,7 @@ export function glsMean(groups: readonly GroupMoments[], lambda: number): number
   let weighted = 0;
   let total = 0;
   for (const g of groups) {
-    const w = g.n / (1 + g.n * lambda);
+    const w = (multiplicity(g) * g.n) / (1 + g.n * lambda);
     weighted += w * g.mean;
     total += w;
   }
@@ -36,7 +37,7 @@ export function glsMean(groups: readonly GroupMoments[], lambda: number): number
  * @returns Σ w_j
  */
 export function sumWeights(groups: readonly GroupMoments[], lambda: number): number {
-  return groups.reduce((sum, g) => sum + g.n / (1 + g.n * lambda), 0);
+  return groups.reduce((sum, g) => sum + (multiplicity(g) * g.n) / (1 + g.n * lambda), 0);
 }
 
 /**
@@ -51,7 +52,7 @@ export function sumWeights(groups: readonly GroupMoments[], lambda: number): num
  * @returns Σ log(1 + n_j λ)
  */
 export function logDetRatio(groups: readonly GroupMoments[], lambda: number): number {
-  return groups.reduce((sum, g) => sum + Math.log1p(g.n * lambda), 0);
+  return groups.reduce((sum, g) => sum + multiplicity(g) * Math.log1p(g.n * lambda), 0);
 }
 
 /**
@@ -67,7 +68,7 @@ export function logDetRatio(groups: readonly GroupMoments[], lambda: number): nu
 export function profiledQ(groups: readonly GroupMoments[], lambda: number): number {
   const mu = glsMean(groups, lambda);
   const between = groups.reduce(
-    (sum, g) => sum + (g.n / (1 + g.n * lambda)) * (g.mean - mu) ** 2,
+    (sum, g) => sum + (g.n / (1 + g.n * lambda)) * (spreadOf(g) + multiplicity(g) * (g.mean - mu) ** 2),
     0,
   );
   return withinSumOfSquares(groups) + between;
@@ -84,7 +85,7 @@ export function profiledQ(groups: readonly GroupMoments[], lambda: number): numb
  * @returns Σ w_j²
  */
 export function sumSquaredWeights(groups: readonly GroupMoments[], lambda: number): number {
-  return groups.reduce((sum, g) => sum + (g.n / (1 + g.n * lambda)) ** 2, 0);
+  return groups.reduce((sum, g) => sum + multiplicity(g) * (g.n / (1 + g.n * lambda)) ** 2, 0);
 }
 
 /**
@@ -100,7 +101,7 @@ export function sumSquaredWeights(groups: readonly GroupMoments[], lambda: numbe
 export function profiledQDerivative(groups: readonly GroupMoments[], lambda: number): number {
   const mu = glsMean(groups, lambda);
   return -groups.reduce(
-    (sum, g) => sum + (g.n / (1 + g.n * lambda)) ** 2 * (g.mean - mu) ** 2,
+    (sum, g) => sum + (g.n / (1 + g.n * lambda)) ** 2 * (spreadOf(g) + multiplicity(g) * (g.mean - mu) ** 2),
     0,
   );
 }

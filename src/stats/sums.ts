@@ -1,3 +1,4 @@
+import { multiplicity } from './size-classes.js';
 import type { GroupMoments } from './types.js';
 
 /**
@@ -9,7 +10,7 @@ import type { GroupMoments } from './types.js';
  * @returns N
  */
 export function totalCount(groups: readonly GroupMoments[]): number {
-  return groups.reduce((sum, g) => sum + g.n, 0);
+  return groups.reduce((sum, g) => sum + multiplicity(g) * g.n, 0);
 }
 
 /**
@@ -22,7 +23,7 @@ export function totalCount(groups: readonly GroupMoments[]): number {
  */
 export function grandMean(groups: readonly GroupMoments[]): number {
   const n = totalCount(groups);
-  return groups.reduce((sum, g) => sum + g.n * g.mean, 0) / n;
+  return groups.reduce((sum, g) => sum + multiplicity(g) * g.n * g.mean, 0) / n;
 }
 
 /**

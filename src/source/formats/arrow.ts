@@ -11,11 +11,15 @@ function stagedType(f: Field): StagedColumn['type'] {
   return DataType.isInt(f.type) || DataType.isFloat(f.type) ? 'DOUBLE' : 'VARCHAR';
 }
 
-function toValue(v: unknown, type: StagedColumn['type']): StagedValue {
+function toValue(v: unknown, type: StagedColumn['type'], temporal: boolean): StagedValue {
   if (v === null || v === undefined) return null;
   if (type === 'DOUBLE') return typeof v === 'bigint' ? Number(v) : (v as number);
   if (typeof v === 'string') return v;
-  if (v instanceof Date) return v.toISOString();
+  // dates and timestamps come as epoch milliseconds (or Date): written as ISO text, as a CSV holds them
+  if (v instanceof Date || (temporal && (typeof v === 'number' || typeof v === 'bigint'))) {
+    const iso = new Date(v instanceof Date ? v.getTime() : Number(v)).toISOString();
+    return iso.endsWith('T00:00:00.000Z') ? iso.slice(0, 10) : iso;
+  }
   return String(v);
 }
 
@@ -40,6 +44,7 @@ export async function arrowLayout(
       throw new InputError(`${display}: cannot read as Arrow IPC (${(e as Error).message.split('\n')[0]})`);
     }
     const columns: StagedColumn[] = reader.schema.fields.map((f) => ({ name: f.name, type: stagedType(f) }));
+    const temporal = reader.schema.fields.map((f) => DataType.isDate(f.type) || DataType.isTimestamp(f.type));
     const stager = new Stager(engine, columns);
     await stager.open();
     try {
@@ -47,7 +52,7 @@ export async function arrowLayout(
         const vectors = columns.map((_, i) => batch.getChildAt(i));
         const row: StagedValue[] = new Array(columns.length);
         for (let r = 0; r < batch.numRows; r++) {
-          for (let i = 0; i < columns.length; i++) row[i] = toValue(vectors[i]?.get(r), columns[i].type);
+          for (let i = 0; i < columns.length; i++) row[i] = toValue(vectors[i]?.get(r), columns[i].type, temporal[i]);
           stager.append(row);
         }
       }

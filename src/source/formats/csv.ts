@@ -20,18 +20,32 @@ export async function csvLayout(
   options: CsvOptions,
 ): Promise<DuckLayout> {
   const { all, con } = engine;
-  let sniffed = await all<{ column_name: string; column_type: string }>(
-    `DESCRIBE SELECT * FROM ${readCsv(file, missing, 'sniff', options)}`,
-  );
-  const [dialect] = await all<{ Delimiter: string; Quote: string }>(
-    `SELECT Delimiter, Quote FROM ${readCsv(file, missing, 'sniff', options).replace(/^read_csv\(/, 'sniff_csv(')}`,
-  );
-  if (dialect && (dialect.Quote === '' || dialect.Quote === '(empty)') && !options.delim?.length && hasQuote(file, options)) {
-    // the sniffer gave up quoting: some quotes are broken. Read as RFC 4180 with the sniffed
-    // delimiter, so that the good quoted fields lose their quotes and the broken lines are rejected
-    options = { ...options, delim: dialect.Delimiter, rfcQuoting: true };
+  // one sniff: the dialect and the columns with DuckDB's type guesses (from a sample: hints only)
+  const [found] = await all<{
+    Delimiter: string;
+    Quote: string;
+    Escape: string;
+    NewLineDelimiter: string;
+    SkipRows: number | bigint;
+    Columns: { name: string; type: string }[];
+  }>(`SELECT Delimiter, Quote, Escape, NewLineDelimiter, SkipRows, Columns FROM ${readCsv(file, missing, 'sniff', options).replace(/^read_csv\(/, 'sniff_csv(')}`);
+  const none = (v: string) => (v === '(empty)' ? '' : v);
+  let sniffed = found.Columns.map((c) => ({ column_name: c.name, column_type: c.type }));
+  const dialect = {
+    delim: options.delim ?? found.Delimiter,
+    quote: none(found.Quote),
+    escape: none(found.Escape),
+    newline: none(found.NewLineDelimiter) || '\\n',
+    skip: Number(found.SkipRows),
+  };
+  if (dialect.quote === '' && hasQuote(file, options)) {
+    // the sniffer gave up quoting: some quotes are broken. Read as RFC 4180 ('"' quotes, '""'
+    // escapes), so that the good quoted fields lose their quotes and the broken lines are rejected
+    dialect.quote = '"';
+    dialect.escape = '"';
     sniffed = sniffed.map((d) => ({ ...d, column_name: unquote(d.column_name) }));
   }
+  options = { ...options, dialect };
   const header = sniffed.map((d) => d.column_name);
   const storage = typedColumns(header, roles, sniffed);
   return {
