@@ -3,21 +3,12 @@ import { logisticNullModel } from '../src/stats/logistic-null-model.js';
 import { formatNumber } from '../src/util/format.js';
 import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import type { Row } from '../test/helpers/delivery.js';
+import { mulberry32 } from '../test/helpers/prng.js';
 
-/** mulberry32: a seeded delivery. */
-function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t = (t + Math.imul(t ^ (t >>> 7), t | 61)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** `groups` groups of `size` 0/1 records with a logit-scale group effect of variance τ². */
 function binaryDelivery(seed: number, groups: number, size: number, tau2: number): Row[] {
-  const rand = prng(seed);
+  const rand = mulberry32(seed);
   const normal = () => Math.sqrt(-2 * Math.log(1 - rand())) * Math.cos(2 * Math.PI * rand());
   const effects = Array.from({ length: groups }, () => Math.sqrt(tau2) * normal());
   return groupedRows(groups, size, (j) => ({ y: rand() < 1 / (1 + Math.exp(-(-0.5 + effects[j]))) ? 1 : 0 }));

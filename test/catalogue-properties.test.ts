@@ -2,17 +2,8 @@ import { describe, expect, it } from 'vitest';
 import type { Report } from '../src/report/types.js';
 import { auditRows, findingsOf, groupId } from './helpers/delivery.js';
 import type { Row } from './helpers/delivery.js';
+import { mulberry32 } from './helpers/prng.js';
 
-/** mulberry32: the seeded generator of scripts/synth.js. */
-function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t = (t + Math.imul(t ^ (t >>> 7), t | 61)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const ROLES = {
   group: 'g',
@@ -25,7 +16,7 @@ const ROLES = {
 
 /** A clean random delivery: J groups of 6–25 records, unique unit IDs, one parent per group. */
 function cleanDelivery(seed: number): { rows: Row[]; groups: number } {
-  const rand = prng(seed);
+  const rand = mulberry32(seed);
   const normal = () => Math.sqrt(-2 * Math.log(1 - rand())) * Math.cos(2 * Math.PI * rand());
   const groups = 16 + Math.floor(rand() * 20);
   const rows: Row[] = [];
@@ -60,7 +51,7 @@ interface Planted {
 
 /** The same delivery with one defect of each kind, each in its own randomly chosen group. */
 function plantDefects(seed: number, clean: Row[], groups: number): Planted {
-  const rand = prng(seed + 1000);
+  const rand = mulberry32(seed + 1000);
   const order = Array.from({ length: groups }, (_, j) => j).sort(() => rand() - 0.5);
   const kinds = ['variant', 'copy', 'conflict', 'mobileFrom', 'mobileTo', 'partlyMissing', 'token', 'sentinel', 'reused', 'split', 'constantY', 'allMissingX'];
   const group = Object.fromEntries(kinds.map((k, i) => [k, groupId(order[i])]));

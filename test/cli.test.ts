@@ -1,4 +1,3 @@
-import { spawn } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -9,28 +8,9 @@ import { SEVERITY_ORDER } from '../src/rules/engine.js';
 import type { Report } from '../src/report/types.js';
 import { createAjv } from '../src/util/ajv.js';
 import { groupedRows, toCsv } from './helpers/delivery.js';
+import { nestready } from './helpers/cli.js';
+import type { Run } from './helpers/cli.js';
 
-interface Run {
-  code: number | null;
-  stdout: string;
-  stderr: string;
-}
-
-/** Run the built CLI (bin/nestready.js → dist/src/cli.js) with NO_COLOR set. */
-function nestready(...args: string[]): Promise<Run> {
-  return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['bin/nestready.js', ...args], {
-      env: { ...process.env, NO_COLOR: '1', FORCE_COLOR: undefined },
-      stdio: ['ignore', 'pipe', 'pipe'],
-    });
-    let stdout = '';
-    let stderr = '';
-    child.stdout.setEncoding('utf8').on('data', (s: string) => (stdout += s));
-    child.stderr.setEncoding('utf8').on('data', (s: string) => (stderr += s));
-    child.on('error', reject);
-    child.on('close', (code) => resolve({ code, stdout, stderr }));
-  });
-}
 
 /** Exit 2, nothing on stdout, exactly one line on stderr and no stack trace. */
 function expectUsageError(run: Run): string {

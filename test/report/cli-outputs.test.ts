@@ -1,27 +1,15 @@
-import { spawn } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { planOutputs } from '../../src/cli-output.js';
 import { formatForPath } from '../../src/report/render.js';
+import { nestready } from '../helpers/cli.js';
 
 // needs the build: npm run build --silent
 const DEMO = ['fixtures/demo/repairs-delivery.csv', '-r', 'fixtures/demo/repairs-delivery.roles.yaml'];
 const dir = mkdtempSync(join(tmpdir(), 'nestready-out-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-function nestready(...args: string[]): Promise<{ code: number | null; stdout: string; stderr: string }> {
-  return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['bin/nestready.js', ...args], { env: { ...process.env, NO_COLOR: '1' }, stdio: ['ignore', 'pipe', 'pipe'] });
-    let stdout = '';
-    let stderr = '';
-    child.stdout.setEncoding('utf8').on('data', (s: string) => (stdout += s));
-    child.stderr.setEncoding('utf8').on('data', (s: string) => (stderr += s));
-    child.on('error', reject);
-    child.on('close', (code) => resolve({ code, stdout, stderr }));
-  });
-}
 
 describe('output selection', () => {
   it('takes the format from the extension, else from --format', () => {

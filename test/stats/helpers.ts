@@ -92,22 +92,9 @@ export function referenceMoments(
   return momentsFromValues(valuesByGroup(readReferenceCsv(name), groupColumn, valueColumn));
 }
 
-/**
- * Seeded uniform PRNG on [0, 1) (mulberry32, Tommy Ettinger's public-domain generator).
- *
- * @param seed 32-bit integer seed
- * @returns a function returning the next uniform draw
- */
-export function mulberry32(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { mulberry32 } from '../helpers/prng.js';
+
+export { mulberry32 };
 
 /**
  * Seeded standard-normal generator by the Box–Muller transform (Box & Muller 1958).

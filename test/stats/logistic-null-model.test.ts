@@ -11,20 +11,11 @@ import {
   momentsAreZeroOne,
 } from '../../src/stats/index.js';
 import type { BinaryGroup } from '../../src/stats/index.js';
+import { mulberry32 } from '../helpers/prng.js';
 
-/** mulberry32 (the generator of scripts/synth.js): seeded, so the simulated deliveries are fixed. */
-function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t = (t + Math.imul(t ^ (t >>> 7), t | 61)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function simulate(seed: number, groups: number, size: (j: number) => number, beta: number, tau2: number): BinaryGroup[] {
-  const rand = prng(seed);
+  const rand = mulberry32(seed);
   const normal = () => Math.sqrt(-2 * Math.log(1 - rand())) * Math.cos(2 * Math.PI * rand());
   const out: BinaryGroup[] = [];
   for (let j = 0; j < groups; j++) {
