@@ -132,6 +132,9 @@ function buildProgram(): Command {
             maxRows: flags.maxRows,
             includeValues: flags.values,
             memoryLimit: flags.memoryLimit,
+            format: flags.inputFormat,
+            encoding: flags.encoding,
+            sheet: flags.sheet,
           }).finally(stopRows);
           writeOutput(flags.problems, problemsCsv(found));
           if (found.omitted && !flags.quiet) {

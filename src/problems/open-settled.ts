@@ -1,3 +1,4 @@
+import type { ProblemOptions } from './types.js';
 import type { Roles } from '../roles/types.js';
 import { openDelivery } from '../source/open.js';
 import type { RejectedLine, Source } from '../source/open.js';
@@ -10,9 +11,16 @@ import type { RejectedLine, Source } from '../source/open.js';
 export async function openSettled(
   path: string,
   roles: Roles,
-  options: { memoryLimit?: string; threads?: number },
+  options: Pick<ProblemOptions, 'memoryLimit' | 'threads' | 'format' | 'encoding' | 'sheet'>,
 ): Promise<{ source: Source; rejected: RejectedLine[] }> {
-  const source = await openDelivery(path, roles, { missing: roles.missing, memoryLimit: options.memoryLimit, threads: options.threads });
+  const source = await openDelivery(path, roles, {
+    missing: roles.missing,
+    memoryLimit: options.memoryLimit,
+    threads: options.threads,
+    format: options.format,
+    encoding: options.encoding,
+    sheet: options.sheet,
+  });
   try {
     for (;;) {
       // count(COLUMNS(*)) converts every column, so every unreadable line is seen

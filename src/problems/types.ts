@@ -1,3 +1,4 @@
+import type { Encoding, InputFormat } from '../source/types.js';
 import type { Severity } from '../roles/types.js';
 
 /** One offending record (or unreadable line) for the file a data manager sends back. */
@@ -28,6 +29,10 @@ export interface ProblemOptions {
   includeValues?: boolean;
   memoryLimit?: string;
   threads?: number;
+  /** read the delivery as the audit did: the same format, encoding and sheet */
+  format?: InputFormat;
+  encoding?: Encoding;
+  sheet?: string;
 }
 
 /** Default bound of the problem-rows file (`--max-rows`). */

@@ -3,6 +3,7 @@ import type { ChalkInstance } from 'chalk';
 import type { Finding } from '../rules/types.js';
 import { formatNumber } from '../util/format.js';
 import { listed, shownValues } from './finding-parts.js';
+import { formatP } from './stat-tables.js';
 import { HEADINGS, MARKS, SEVERITIES, THRESHOLD_CAVEAT, VERDICT_TEXT } from './labels.js';
 import type { Report } from './types.js';
 
@@ -74,7 +75,7 @@ function statisticsLines(report: Report, c: ChalkInstance): string[] {
     lines.push(row('REML', o.reml), row('ML', o.ml));
     const a = o.anova;
     lines.push(
-      `    ANOVA  ICC(1) ${formatNumber(a.icc, 4)} [95% ${formatNumber(a.ci95[0], 4)}, ${formatNumber(a.ci95[1], 4)}]  ICC(2) ${formatNumber(a.icc2, 4)}  F ${formatNumber(a.f, 3)} on (${a.df1}, ${a.df2}) df, p ${formatNumber(a.p, 4)}`,
+      `    ANOVA  ICC(1) ${formatNumber(a.icc, 4)} [95% ${formatNumber(a.ci95[0], 4)}, ${formatNumber(a.ci95[1], 4)}]  ICC(2) ${formatNumber(a.icc2, 4)}  F ${formatNumber(a.f, 3)} on (${a.df1}, ${a.df2}) df, p ${formatP(a.p)}`,
       `    design effect ${formatNumber(o.designEffect, 3)}, effective N ${formatNumber(o.effectiveN, 1)}, mean reliability of group means ${formatNumber(o.meanReliability, 3)}`,
     );
   }
