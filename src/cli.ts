@@ -1,14 +1,12 @@
 import { rmSync } from 'node:fs';
 import { Command, CommanderError, InvalidArgumentError, Option } from 'commander';
 import { catalogue } from '../rules/index.js';
-import { audit } from './audit.js';
 import { InputError } from './errors.js';
 import { exitCode } from './grade.js';
 import type { FailOn } from './grade.js';
 import { planOutputs, writeOutput } from './cli-output.js';
 import { startProgress } from './cli-progress.js';
 import { problemsCsv } from './problems/csv.js';
-import { problemRows } from './problems/collect.js';
 import { DEFAULT_MAX_ROWS } from './problems/types.js';
 import { catalogueJson, catalogueMarkdown, catalogueText } from './report/catalogue.js';
 import { REPORT_FORMATS, renderReport } from './report/render.js';
@@ -17,8 +15,8 @@ import { PRESETS } from './presets/index.js';
 import type { PresetName } from './presets/index.js';
 import { loadRoles } from './roles/load.js';
 import { roleMapSchema } from './roles/schema.js';
-import { ENCODINGS, INPUT_FORMATS, STDIN } from './source/open.js';
-import type { Encoding, InputFormat } from './source/open.js';
+import { ENCODINGS, INPUT_FORMATS, STDIN } from './source/types.js';
+import type { Encoding, InputFormat } from './source/types.js';
 import { spoolStdin } from './source/stdin.js';
 import { TOOL } from './version.js';
 
@@ -113,6 +111,8 @@ function buildProgram(): Command {
       const delivery = typeof resolved.input === 'string' ? resolved.input : resolved.label;
       try {
         const stop = startProgress(resolved.label, 'auditing', { quiet: flags.quiet === true });
+        // the engine (DuckDB, arquero, stats) loads only for an audit: `rules` and `schema` start fast
+        const { audit } = await import('./audit.js');
         const report = await audit(resolved.input, roles, {
           includeValues: flags.values,
           memoryLimit: flags.memoryLimit,
@@ -128,6 +128,7 @@ function buildProgram(): Command {
         }
         if (flags.problems) {
           const stopRows = startProgress(delivery, 'collecting problem rows of', { quiet: flags.quiet === true });
+          const { problemRows } = await import('./problems/collect.js');
           const found = await problemRows(delivery, roles.roles, report.findings, {
             maxRows: flags.maxRows,
             includeValues: flags.values,

@@ -8,12 +8,10 @@ import { csvLayout } from './formats/csv.js';
 import { jsonReader, parquetReader, typedFileLayout } from './formats/parquet.js';
 import { spoolStdin } from './stdin.js';
 import type { OpenOptions, Source } from './types.js';
+import { STDIN } from './types.js';
 
 export type { Encoding, InputFormat, OpenOptions, RejectedLine, Source, SourceFormat } from './types.js';
-export { ENCODINGS, INPUT_FORMATS } from './types.js';
-
-/** The path that means "read standard input". */
-export const STDIN = '-';
+export { ENCODINGS, INPUT_FORMATS, STDIN } from './types.js';
 
 /**
  * Open a delivery file (or `-`, standard input, spooled to a temp file deleted on close) in an

@@ -11,6 +11,9 @@ export interface RejectedLine {
 }
 
 /** Delivery formats read from files (or stdin); `postgres` is a table or query in a database. */
+/** `-` as the delivery: read stdin (spooled to a temp file first, deleted afterwards). */
+export const STDIN = '-';
+
 export const INPUT_FORMATS = ['csv', 'tsv', 'parquet', 'arrow', 'json', 'ndjson', 'xlsx'] as const;
 export type InputFormat = (typeof INPUT_FORMATS)[number];
 export type SourceFormat = InputFormat | 'postgres';
