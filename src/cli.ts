@@ -181,7 +181,14 @@ export async function main(argv: string[]): Promise<void> {
       process.exitCode = 2;
       return;
     }
-    process.stderr.write(`nestready: internal error: ${(e as Error).message ?? e}\n`);
+    const first = String((e as Error).message ?? e).split('\n')[0];
+    if (/Out of Memory Error/i.test(first)) {
+      // a resource limit the user sets, not a bug: say which option to change
+      process.stderr.write(`nestready: out of memory within --memory-limit (${first}); raise --memory-limit\n`);
+      process.exitCode = 2;
+      return;
+    }
+    process.stderr.write(`nestready: internal error: ${first}\n`);
     process.exitCode = 3;
   }
 }

@@ -110,6 +110,12 @@ describe.concurrent('nestready audit: exit codes', () => {
 });
 
 describe.concurrent('nestready audit: usage and input errors exit 2 with one line', () => {
+  it('too little memory for DuckDB: one line naming --memory-limit, not a crash', async ({ expect }) => {
+    // DuckDB's CSV reader needs a buffer of about 30 MiB, so 10MB cannot work for any file
+    const line = expectUsageError(await nestready('audit', ...clean, '--memory-limit', '10MB'));
+    expect(line).toMatch(/^nestready: fixtures\/demo\/repairs-clean\.csv: out of memory within --memory-limit .*raise --memory-limit$/);
+  });
+
   it('malformed YAML: the role map file and line:col', async ({ expect }) => {
     const roles = file('bad.yaml', 'group: workshop\nlevel1: [item_kind, helpers]]\n');
     const line = expectUsageError(await nestready('audit', `${DEMO}/repairs-clean.csv`, '-r', roles));

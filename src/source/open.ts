@@ -78,7 +78,9 @@ export async function openDelivery(path: string, roles: Roles, options: OpenOpti
   } catch (e) {
     engine.close();
     if (e instanceof InputError) throw e;
-    throw new InputError(`${display}: cannot read as ${format.toUpperCase()} (${(e as Error).message.split('\n')[0]})`);
+    const first = (e as Error).message.split('\n')[0];
+    if (/Out of Memory Error/i.test(first)) throw new InputError(`${display}: out of memory within --memory-limit (${first}); raise --memory-limit`);
+    throw new InputError(`${display}: cannot read as ${format.toUpperCase()} (${first})`);
   }
 }
 
