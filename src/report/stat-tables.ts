@@ -1,5 +1,5 @@
 import type { OutcomeStats } from '../stats/types.js';
-import { formatNumber as f } from '../util/format.js';
+import { formatNumber as f, formatP } from '../util/format.js';
 import { centeringAdvice } from './centering-advice.js';
 import type { Report } from './types.js';
 
@@ -86,9 +86,4 @@ export function extremesTable(report: Report, outcome: string, k = 5): StatTable
     ]),
     numeric: [2, 3],
   };
-}
-
-/** A p-value for people: four decimals, or "< 0.0001". */
-export function formatP(p: number): string {
-  return Number.isFinite(p) && p < 0.0001 ? '< 0.0001' : f(p, 4);
 }

@@ -1,9 +1,8 @@
 import { Chalk } from 'chalk';
 import type { ChalkInstance } from 'chalk';
 import type { Finding } from '../rules/types.js';
-import { formatNumber } from '../util/format.js';
+import { formatNumber, formatP } from '../util/format.js';
 import { listed, shownValues } from './finding-parts.js';
-import { formatP } from './stat-tables.js';
 import { HEADINGS, MARKS, SEVERITIES, THRESHOLD_CAVEAT, VERDICT_TEXT } from './labels.js';
 import type { Report } from './types.js';
 
