@@ -2,7 +2,7 @@ import { catalogue } from '../../rules/index.js';
 import type { Profile } from '../profile/types.js';
 import type { Roles } from '../roles/types.js';
 import { resolveParams } from '../rules/engine.js';
-import { outcomeStats } from '../stats/index.js';
+import { variableStats } from '../rules/variable-stats.js';
 import type { OutcomeStats } from '../stats/types.js';
 import { groupMeans } from './plots/group-means.js';
 import { sizeHistogram } from './plots/size-histogram.js';
@@ -33,7 +33,8 @@ export function buildPlotData(profile: Profile, roles: Roles, outcomes: Record<s
   for (const name of roles.level1) {
     const col = profile.column(name);
     if (!col.numericProfiled || col.type === 'categorical') continue;
-    const s = outcomeStats(profile.moments(name));
+    // the same cached fit the predictor rules read: one REML fit per predictor per audit
+    const s = variableStats(profile, name);
     predictorShares[name] = { reml: s.reml.icc, anova: s.anova.icc };
   }
 
