@@ -1,7 +1,7 @@
 import type { GroupMoments, VarianceComponents } from './types.js';
 import { iccFromComponents } from './icc.js';
 import { minimizeOverLambda } from './minimize-over-lambda.js';
-import { bySize } from './size-classes.js';
+import { asClasses, bySize } from './size-classes.js';
 import { glsMean, profiledQ } from './profile-terms.js';
 import { componentsEstimable, grandMean, totalCount } from './sums.js';
 
@@ -35,7 +35,7 @@ export function fitComponents(
   const estimable = componentsEstimable(groups);
   // many groups are taken together by size: each likelihood evaluation then costs the number
   // of distinct sizes (exact up to rounding; fewer than 10,000 groups are used as they are)
-  groups = bySize(groups);
+  groups = asClasses(bySize(groups));
   if (!estimable) {
     return { tau2: NaN, sigma2: NaN, icc: NaN, mean, logLik: NaN };
   }

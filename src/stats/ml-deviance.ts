@@ -1,6 +1,5 @@
 import type { GroupMoments } from './types.js';
-import { logDetRatio, profiledQ, profiledQDerivative, sumWeights } from './profile-terms.js';
-import { totalCount } from './sums.js';
+import { likelihoodTerms } from './profile-terms.js';
 
 /**
  * Profiled ML deviance of the one-way random-intercept model,
@@ -15,9 +14,8 @@ import { totalCount } from './sums.js';
  * @returns −2 × the maximised log-likelihood at λ
  */
 export function mlDeviance(groups: readonly GroupMoments[], lambda: number): number {
-  const n = totalCount(groups);
-  const q = profiledQ(groups, lambda);
-  return n * Math.log(q / n) + logDetRatio(groups, lambda) + n * (1 + Math.log(2 * Math.PI));
+  const { total: n, q, logDet } = likelihoodTerms(groups, lambda);
+  return n * Math.log(q / n) + logDet + n * (1 + Math.log(2 * Math.PI));
 }
 
 /**
@@ -33,7 +31,6 @@ export function mlDeviance(groups: readonly GroupMoments[], lambda: number): num
  * @returns the derivative at λ
  */
 export function mlDevianceDerivative(groups: readonly GroupMoments[], lambda: number): number {
-  const n = totalCount(groups);
-  const q = profiledQ(groups, lambda);
-  return (n * profiledQDerivative(groups, lambda)) / q + sumWeights(groups, lambda);
+  const { total: n, q, dq, sumW } = likelihoodTerms(groups, lambda);
+  return (n * dq) / q + sumW;
 }

@@ -1,12 +1,5 @@
 import type { GroupMoments } from './types.js';
-import {
-  logDetRatio,
-  profiledQ,
-  profiledQDerivative,
-  sumSquaredWeights,
-  sumWeights,
-} from './profile-terms.js';
-import { totalCount } from './sums.js';
+import { likelihoodTerms } from './profile-terms.js';
 
 /**
  * Profiled REML criterion of the one-way random-intercept model,
@@ -23,14 +16,9 @@ import { totalCount } from './sums.js';
  * @returns the REML criterion at λ
  */
 export function remlDeviance(groups: readonly GroupMoments[], lambda: number): number {
-  const dfResidual = totalCount(groups) - 1;
-  const q = profiledQ(groups, lambda);
-  return (
-    dfResidual * Math.log(q / dfResidual) +
-    logDetRatio(groups, lambda) +
-    Math.log(sumWeights(groups, lambda)) +
-    dfResidual * (1 + Math.log(2 * Math.PI))
-  );
+  const t = likelihoodTerms(groups, lambda);
+  const dfResidual = t.total - 1;
+  return dfResidual * Math.log(t.q / dfResidual) + t.logDet + Math.log(t.sumW) + dfResidual * (1 + Math.log(2 * Math.PI));
 }
 
 /**
@@ -47,12 +35,6 @@ export function remlDeviance(groups: readonly GroupMoments[], lambda: number): n
  * @returns the derivative at λ
  */
 export function remlDevianceDerivative(groups: readonly GroupMoments[], lambda: number): number {
-  const dfResidual = totalCount(groups) - 1;
-  const q = profiledQ(groups, lambda);
-  const weights = sumWeights(groups, lambda);
-  return (
-    (dfResidual * profiledQDerivative(groups, lambda)) / q +
-    weights -
-    sumSquaredWeights(groups, lambda) / weights
-  );
+  const t = likelihoodTerms(groups, lambda);
+  return ((t.total - 1) * t.dq) / t.q + t.sumW - t.sumW2 / t.sumW;
 }

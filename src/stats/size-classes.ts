@@ -17,6 +17,18 @@ export interface SizeClass extends GroupMoments {
 /** Below this many groups the fit runs over the groups themselves (exactly as before). */
 export const SIZE_CLASSES_FROM = 10_000;
 
+/**
+ * Every term in one shape (a group is a class of one, with no spread): the likelihood sums run
+ * a hundred times per fit, and over objects of one shape they are several times faster than
+ * over frozen moments mixed with classes.
+ *
+ * @param groups per-group moments or size classes
+ * @returns one SizeClass per term, in the same order
+ */
+export function asClasses(groups: readonly GroupMoments[]): SizeClass[] {
+  return groups.map((g) => ({ n: g.n, mean: g.mean, ss: g.ss, count: multiplicity(g), spread: spreadOf(g) }));
+}
+
 /** How many groups a term stands for (1 for a group, c for a size class). */
 export function multiplicity(g: GroupMoments): number {
   return (g as Partial<SizeClass>).count ?? 1;
