@@ -1,4 +1,5 @@
 #!/usr/bin/env node
-import { main } from '../dist/src/cli.js';
+// the bundled command line (scripts/bundle.js): one file to load instead of hundreds
+import { main } from '../dist/bundle/cli.js';
 
 await main(process.argv);

@@ -1,6 +1,6 @@
 #!/usr/bin/env node
 // One audit run for scripts/bench.js, as its own process: the real CLI entry
-// (`main` from dist/src/cli.js) called in-process, report written with --out.
+// (`main` from the bundled dist/bundle/cli.js) called in-process, report written with --out.
 //
 //   NESTREADY_BENCH_RESULT=/tmp/r.json node scripts/bench-child.js FILE ROLES.yaml OUT.json [MEMORY_LIMIT]
 //
@@ -123,7 +123,7 @@ proto.runAndReadAll = async function runAndReadAll(sql, ...rest) {
   }
 };
 
-const { main } = await import('../dist/src/cli.js');
+const { main } = await import('../dist/bundle/cli.js');
 const cliImportedMs = performance.now();
 const rssAfterImportMB = rssMB();
 

@@ -18,7 +18,7 @@
 // os.tmpdir()/nestready-bench — reusing synth-r<rows>-g<groups>-s<seed>.csv if an earlier
 // run kept it — writes the matching role map, then runs, alternately and --repeat times:
 //   baseline  node scripts/bench-groupby.js FILE site_code   (threads=2, memory_limit=200MB)
-//   audit     node scripts/bench-child.js FILE ROLES OUT      (main() of dist/src/cli.js, --format json)
+//   audit     node scripts/bench-child.js FILE ROLES OUT      (main() of dist/bundle/cli.js, --format json)
 // Both are timed the same way: wall clock around the spawned process, from spawn to exit,
 // Node start-up included. Peak RSS is each process's own process.resourceUsage().maxRSS.
 //
@@ -40,7 +40,7 @@ const here = dirname(fileURLToPath(import.meta.url));
 const root = join(here, '..');
 const BASELINE = join(here, 'bench-groupby.js');
 const CHILD = join(here, 'bench-child.js');
-const CLI = join(root, 'dist/src/cli.js');
+const CLI = join(root, 'dist/bundle/cli.js');
 const WORK = join(tmpdir(), 'nestready-bench');
 const OUT_DIR = join(root, 'bench-output');
 
@@ -397,7 +397,7 @@ console.log(
   ),
 );
 console.log(
-  '\n  node start    = process start -> bench-child.js body runs; import cli = dist/src/cli.js and its deps (commander, ajv, arquero, yaml, ...)' +
+  '\n  node start    = process start -> bench-child.js body runs; import cli = the bundled dist/bundle/cli.js (commander, ajv, yaml, the rules; the engine loads in main)' +
     '\n  main          = the audit itself: to profile q + profile q + after profile' +
     '\n  to profile q  = main() start -> profiling GROUP BY issued (role map, DuckDB instance, views, dialect/type sniff)' +
     '\n  profile q     = the one profiling GROUP BY incl. fetching its result into JS' +

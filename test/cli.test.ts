@@ -45,7 +45,7 @@ const file = (name: string, text: string) => {
 };
 
 beforeAll(() => {
-  if (!existsSync('dist/src/cli.js')) throw new Error('dist/src/cli.js is missing: run `npm run build` first (npm test does)');
+  if (!existsSync('dist/bundle/cli.js')) throw new Error('dist/bundle/cli.js is missing: run `npm run build` first (npm test does)');
   dir = mkdtempSync(join(tmpdir(), 'nestready-cli-'));
 });
 afterAll(() => rmSync(dir, { recursive: true, force: true }));

@@ -6,7 +6,7 @@ export interface Run {
   stderr: string;
 }
 
-/** Run the built CLI (bin/nestready.js → dist/src/cli.js) with NO_COLOR set. */
+/** Run the built CLI (bin/nestready.js → dist/bundle/cli.js) with NO_COLOR set. */
 export function nestready(...args: string[]): Promise<Run> {
   return new Promise((resolve, reject) => {
     const child = spawn(process.execPath, ['bin/nestready.js', ...args], {
