@@ -97,7 +97,7 @@ function buildProgram(): Command {
     .option('--no-values', 'leave raw data values out of the report (IDs and record numbers stay)')
     .option('--color', 'force colour')
     .option('--no-color', 'no colour')
-    .option('--memory-limit <size>', 'DuckDB memory before it spills to disk', '200MB')
+    .option('--memory-limit <size>', 'DuckDB memory before it spills to disk', '100MB')
     .addOption(new Option('--input-format <format>', 'the delivery format (default: from the name and content)').choices(INPUT_FORMATS))
     .addOption(new Option('--encoding <encoding>', 'text encoding of a CSV/TSV delivery').choices(ENCODINGS).default('utf-8'))
     .option('--sheet <name>', 'Excel: the worksheet to read (default the first)')

@@ -21,9 +21,9 @@ export interface Lookup {
   /** record numbers in `groups` where `column` is missing */
   rowsMissingIn(column: string, groups: readonly string[], limit?: number): Promise<number[]>;
   /**
-   * Repeated, mobile and variant unit IDs: one aggregate over the unit column grouped by the
-   * normalised ID (see normalizeId), then, only when some normalised ID occurs more than once,
-   * a second pass over those IDs alone. Memoised: the rules that need it share one result.
+   * Repeated, mobile and variant unit IDs: one aggregate over the unit column grouped by (a
+   * hash of) the normalised ID (see normalizeId), then, only when some hash occurs more than
+   * once, a second pass over those IDs alone. Memoised: the rules that need it share one result.
    */
   unitIds(unit: string): Promise<UnitIdSummary>;
   /** non-numeric tokens of a text column read as numbers: most frequent first, with their first records */
@@ -232,7 +232,7 @@ export function createLookup(source: Source, group: string): Lookup {
 }
 
 /**
- * Stage 1 scans the unit column once, grouped by the normalised ID, and keeps only the keys
+ * Stage 1 scans the unit column once, grouped by a hash of the normalised ID, and keeps only the hashes
  * seen on more than one record (on a clean delivery: none). Stage 2, only when stage 1 kept
  * keys, re-reads the records of those keys to split them by spelling, group and exact copies.
  */
@@ -251,9 +251,13 @@ async function unitIdSummary(source: Source, group: string, unit: string): Promi
   };
   await drop();
   try {
+    // grouped on a 64-bit hash of the key, not the key itself: the hash table of ten million IDs
+    // then fits the memory limit. Two keys that share a hash only come to stage 2, which splits
+    // them by the key itself, so no ID is reported for a collision
     await source.run(
-      `CREATE TEMP TABLE nr_unit_keys AS SELECT kd, ks, count(*) AS n FROM (${normalizedIdQuery(source.view, '1 AS one', u, d)}) AS keyed ` +
-        `GROUP BY kd, ks HAVING count(*) > 1`,
+      `CREATE TEMP TABLE nr_unit_keys AS SELECT ${d.keyHash(['kd', 'ks'])} AS h, count(*) AS n ` +
+        `FROM (${normalizedIdQuery(source.view, '1 AS one', u, d)}) AS keyed GROUP BY 1 HAVING count(*) > 1`,
+      { grow: true },
     );
     const [{ keys }] = await source.all<{ keys: bigint }>('SELECT count(*) AS keys FROM nr_unit_keys');
     if (Number(keys) === 0) return empty;
@@ -263,7 +267,7 @@ async function unitIdSummary(source: Source, group: string, unit: string): Promi
       `CREATE TEMP TABLE nr_unit_cells AS SELECT r.kd, r.ks, r.u, r.g, count(*) AS n, count(DISTINCT r.h) AS dh, ` +
         `${d.firstValues('r.__rec', 'r.__rec', EXAMPLE_LIMIT)} AS recs ` +
         `FROM (${normalizedIdQuery(source.numbered, `__rec, ${u} AS u, ${g} AS g, ${content} AS h`, u, d)}) AS r ` +
-        `JOIN nr_unit_keys k ON r.kd IS NOT DISTINCT FROM k.kd AND r.ks IS NOT DISTINCT FROM k.ks GROUP BY r.kd, r.ks, r.u, r.g`,
+        `JOIN nr_unit_keys k ON ${d.keyHash(['r.kd', 'r.ks'])} = k.h GROUP BY r.kd, r.ks, r.u, r.g`,
     );
     // an exact copy shares the group too, so distinct contents add up over the groups
     await source.run(

@@ -23,6 +23,8 @@ export interface Dialect {
   firstValues(expr: string, order: string, limit: number): string;
   /** a hash of a record's columns, for telling exact copies apart */
   rowHash(exprs: readonly string[]): string;
+  /** a 64-bit integer hash of some values (NULLs included), for grouping on a narrow key */
+  keyHash(exprs: readonly string[]): string;
 }
 
 /** A number as both engines' double casts accept it (no hex, no thousands separators). */
@@ -36,6 +38,7 @@ export const duckdb: Dialect = {
   ordered: (e) => e,
   firstValues: (e, order, limit) => `list(${e} ORDER BY ${order})[1:${limit}]`,
   rowHash: (exprs) => `hash(${exprs.join(', ')})`,
+  keyHash: (exprs) => `hash(${exprs.join(', ')})`,
 };
 
 export const postgres: Dialect = {
@@ -51,4 +54,5 @@ export const postgres: Dialect = {
   ordered: (e) => `(${e} COLLATE "C")`,
   firstValues: (e, order, limit) => `(array_agg(${e} ORDER BY ${order}))[1:${limit}]`,
   rowHash: (exprs) => `md5(CAST(ROW(${exprs.join(', ')}) AS text))`,
+  keyHash: (exprs) => `hashtextextended(CAST(ROW(${exprs.join(', ')}) AS text), 0)`,
 };

@@ -53,6 +53,9 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
       threads: String(options.threads ?? 2),
       memory_limit: options.memoryLimit ?? '512MB',
       temp_directory: spill,
+      // hand freed memory back to the system after each task that peaked above this, rather than
+      // keeping it for reuse: measured on ten million unit IDs, peak RSS 252 MB instead of 276 MB
+      allocator_flush_threshold: '16MB',
     });
   } catch (e) {
     rmSync(spill, { recursive: true, force: true });
@@ -62,7 +65,7 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
   const cleanup: string[] = [spill];
   track(spill);
   let closed = false;
-  return {
+  const engine: DuckEngine = {
     con,
     cleanup,
     memoryBytes: parseSize(options.memoryLimit ?? '512MB'),
@@ -79,6 +82,7 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
       }
     },
   };
+  return engine;
 }
 
 /** How a DuckDB-read delivery is laid out before the shared views are put on it. */
@@ -146,8 +150,9 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
     numbered: 'nr_numbered',
     all,
     columns: (sql) => readColumns(engine, sql),
-    async run(sql) {
-      await con.run(sql);
+    async run(sql, options) {
+      const run = async () => void (await con.run(sql));
+      await (options?.grow ? withMemory(engine, run) : run());
     },
     async rejects() {
       const rejected = await layout.rejects();
@@ -260,13 +265,21 @@ const MEMORY_CAP = 4 * 2 ** 30;
  * Run a query and read its result by column, one chunk at a time (DuckDB never holds the whole
  * result): a DOUBLE column without NULLs becomes a Float64Array, repeated strings share one
  * copy. A result of a million groups then costs about 8 bytes per number, not a boxed value.
- * Wide aggregates over very many groups can need more than the memory limit even though DuckDB
- * spills; the limit is then doubled (up to 4 GiB) and the query run again.
  */
-export async function readColumns(engine: DuckEngine, sql: string): Promise<Record<string, unknown[]>> {
+export function readColumns(engine: DuckEngine, sql: string): Promise<Record<string, unknown[]>> {
+  return withMemory(engine, () => streamColumns(engine.con, sql));
+}
+
+/**
+ * Run one large aggregate under the memory limit. Some need more than the limit even though
+ * DuckDB spills (a wide aggregate over a million groups; the hash table of ten million unit
+ * IDs): the limit is then doubled (up to 4 GiB) and the query run again, so a low limit costs
+ * memory only where the delivery's size demands it.
+ */
+async function withMemory<T>(engine: DuckEngine, query: () => Promise<T>): Promise<T> {
   for (;;) {
     try {
-      return await streamColumns(engine.con, sql);
+      return await query();
     } catch (e) {
       const limit = engine.memoryBytes;
       if (!/Out of Memory/i.test((e as Error).message) || limit === null || limit * 2 > MEMORY_CAP) throw e;

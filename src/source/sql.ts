@@ -92,10 +92,18 @@ export function readCsv(
   const typed = options.dialect ? `columns = {${types}}` : `types = {${types}}`;
   if (sample) return `read_csv(${literal(path)}, header = true, ${nullstr}, ${typed}, ignore_errors = true)`;
   return (
-    `read_csv(${literal(path)}, header = true, ${nullstr}, ${typed}, ` +
+    `read_csv(${literal(path)}, header = true, ${nullstr}, ${typed}, buffer_size = ${CSV_BUFFER_BYTES}, ` +
     `store_rejects = true, rejects_table = 'nr_rejects', rejects_scan = 'nr_scans')`
   );
 }
+
+/**
+ * The CSV reader's buffer per scan. DuckDB's default (32 MiB) holds several buffers in flight per
+ * thread; 4 MiB (twice the longest line it accepts by default) measured on 10 million rows × 10
+ * columns: peak RSS of the profiling pass 170 MB instead of 273 MB, and at 1 million rows the
+ * pass 0.55 s instead of 0.64 s (scripts/bench.js).
+ */
+export const CSV_BUFFER_BYTES = 4 * 2 ** 20;
 
 export const NUMERIC_TYPES = /^(TINYINT|SMALLINT|INTEGER|BIGINT|HUGEINT|UTINYINT|USMALLINT|UINTEGER|UBIGINT|FLOAT|DOUBLE|DECIMAL)/;
 

@@ -50,7 +50,11 @@ export interface Source {
   /** run a query and return its result by column (the profile's group table) */
   columns(sql: string): Promise<Record<string, unknown[]>>;
   /** run a statement that returns nothing (e.g. a temp table for a look-up) */
-  run(sql: string): Promise<void>;
+  /**
+   * Run a statement. `grow`: a large aggregate whose size the delivery decides (the unit IDs of
+   * ten million records); where the engine has a memory limit, it is raised for it when needed.
+   */
+  run(sql: string, options?: { grow?: boolean }): Promise<void>;
   /** rejected lines of the latest full read */
   rejects(): Promise<RejectedLine[]>;
   /** read these columns as text from now on (a value in them was not a number) */
