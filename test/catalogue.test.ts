@@ -4,6 +4,8 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { catalogue } from '../rules/index.js';
 import { createAjv } from '../src/util/ajv.js';
+import { resolveParams } from '../src/rules/engine.js';
+import type { Roles } from '../src/roles/types.js';
 import type { AnyRule } from '../src/rules/define.js';
 
 const rulesDir = join(dirname(fileURLToPath(import.meta.url)), '..', 'rules');
@@ -60,6 +62,8 @@ describe('rule catalogue', () => {
       const filled: Record<string, unknown> = {};
       expect(validate(filled)).toBe(true);
       expect(Object.keys(filled).sort()).toEqual(Object.keys(schema.properties ?? {}).sort());
+      // the engine takes the same defaults straight from the schema when the role map sets nothing
+      expect(resolveParams(rule, { rules: {} } as unknown as Roles)).toEqual(filled);
       // unknown params are refused
       expect(validate({ no_such_param: 1 })).toBe(false);
     });
