@@ -34,7 +34,7 @@ export function fitComponents(
   const mean = grandMean(groups);
   const estimable = componentsEstimable(groups);
   // many groups are taken together by size: each likelihood evaluation then costs the number
-  // of distinct sizes (exact up to rounding; fewer than 10,000 groups are used as they are)
+  // of distinct sizes (exact up to rounding; fewer than 2,000 groups are used as they are)
   groups = asClasses(bySize(groups));
   if (!estimable) {
     return { tau2: NaN, sigma2: NaN, icc: NaN, mean, logLik: NaN };
