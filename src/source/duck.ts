@@ -1,13 +1,18 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { DuckDBDoubleVector, DuckDBInstance, JSDuckDBValueConverter } from '@duckdb/node-api';
+import { createRequire } from 'node:module';
+import type * as DuckDB from '@duckdb/node-api';
 import type { DuckDBConnection } from '@duckdb/node-api';
 import type { Roles } from '../roles/types.js';
 import { duckdb } from './dialect.js';
 import { NUMERIC_TYPES, blankAsNull, ident, literal } from './sql.js';
 import type { Storage } from './sql.js';
 import type { RejectedLine, Source, SourceFormat } from './types.js';
+
+// required, not imported: importing this CommonJS package from an ES module makes Node scan its
+// sixty files for their export names first, about 70 ms of every run
+const { DuckDBDoubleVector, DuckDBInstance, JSDuckDBValueConverter } = createRequire(import.meta.url)('@duckdb/node-api') as typeof DuckDB;
 
 /** An embedded DuckDB with its own spill directory (deleted on close). */
 export interface DuckEngine {
@@ -47,7 +52,7 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
   // DuckDB spills beyond memory_limit; by default an in-memory database spills to ".tmp" in
   // the working directory, so give it a directory of its own
   const spill = mkdtempSync(join(tmpdir(), 'nestready-spill-'));
-  let instance: DuckDBInstance;
+  let instance: DuckDB.DuckDBInstance;
   try {
     instance = await DuckDBInstance.create(':memory:', {
       threads: String(options.threads ?? 2),
