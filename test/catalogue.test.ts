@@ -50,7 +50,7 @@ describe('rule catalogue', () => {
       expect(schema.type).toBe('object');
       expect(schema.additionalProperties).toBe(false);
       expect(schema.properties).toBeTypeOf('object');
-      const validate = createAjv().compile(schema);
+      const validate = createAjv({ checkSchemas: true }).compile(schema);
       for (const [name, prop] of Object.entries(schema.properties ?? {})) {
         expect(prop, `${id}.${name} default`).toHaveProperty('default');
         expect(typeof prop.description, `${id}.${name} description`).toBe('string');

@@ -305,7 +305,7 @@ describe.concurrent('nestready rules and schema', () => {
     expect(run.code).toBe(0);
     const schema = JSON.parse(run.stdout) as Record<string, unknown>;
     expect(schema.$schema).toBe('http://json-schema.org/draft-07/schema#');
-    const validate = createAjv().compile(schema);
+    const validate = createAjv({ checkSchemas: true }).compile(schema);
     for (const name of ['repairs-clean.roles.yaml', 'repairs-delivery.roles.yaml']) {
       const map = parse(readFileSync(`${DEMO}/${name}`, 'utf8')) as unknown;
       expect(validate(map), `${name}: ${JSON.stringify(validate.errors)}`).toBe(true);

@@ -67,7 +67,7 @@ export function parseRoles(text: string, file: string, catalogue: readonly AnyRu
   singleOutcome = map.outcome !== undefined;
   const own = (map.rules ?? {}) as Record<string, RuleSetting>;
   const settings = options.preset ? mergeRuleSettings(presetRules(options.preset), own) : own;
-  const rules = validateRuleSettings(settings, catalogue, locate);
+  const rules = validateRuleSettings(settings, catalogue, locate, ajv);
   const roles: Roles = {
     group: map.group as string,
     ...(map.unit !== undefined && { unit: map.unit as string }),
@@ -99,8 +99,8 @@ function validateRuleSettings(
   settings: Record<string, RuleSetting>,
   catalogue: readonly AnyRule[],
   locate: LoadedRoles['locate'],
+  ajv: ReturnType<typeof createAjv>,
 ): Record<string, RuleSetting> {
-  const ajv = createAjv();
   const out: Record<string, RuleSetting> = {};
   for (const [id, setting] of Object.entries(settings)) {
     const rule = catalogue.find((r) => r.meta.id === id);
