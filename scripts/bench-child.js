@@ -16,6 +16,7 @@
 // (performance.timeOrigin), so they line up with the parent's wall time.
 
 import { writeFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
 
 const scriptStartMs = performance.now(); // Node bootstrap + loading this module
 
@@ -30,7 +31,8 @@ const r1 = (x) => Math.round(x * 10) / 10;
 
 // ---- load the DuckDB binding first (so its cost is visible), then instrument it ------
 const t0 = performance.now();
-const duck = await import('@duckdb/node-api');
+// required as the CLI requires it (src/source/duck.ts), so the same module object is patched
+const duck = createRequire(import.meta.url)('@duckdb/node-api');
 const duckImportedMs = performance.now();
 
 const queries = [];

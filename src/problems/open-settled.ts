@@ -23,8 +23,9 @@ export async function openSettled(
   });
   try {
     for (;;) {
-      // count(COLUMNS(*)) converts every column, so every unreadable line is seen
-      await source.all(`SELECT count(COLUMNS(*)) FROM ${source.view}`);
+      // count(COLUMNS(*)) converts every column, so every unreadable line is seen; run as a full
+      // read (columns), on the connection whose rejects log rejects() reads
+      await source.columns(`SELECT count(COLUMNS(*)) FROM ${source.view}`);
       const rejected = await source.rejects();
       const retype = [...new Set(rejected.filter((r) => r.column && source.storage.get(r.column) === 'double').map((r) => r.column!))];
       if (retype.length === 0) return { source, rejected };

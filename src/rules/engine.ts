@@ -56,15 +56,22 @@ export async function runRules(
   base: Omit<RuleContext<unknown>, 'params'>,
   options: EngineOptions,
 ): Promise<Finding[]> {
-  const findings: Finding[] = [];
-  for (const rule of catalogue) {
+  const enabled = catalogue.flatMap((rule) => {
     const params = resolveParams(rule, base.roles);
-    if (params === 'off') continue;
-    const drafts = await rule.check({ ...base, params });
+    return params === 'off' ? [] : [{ rule, params }];
+  });
+  // the rules run at once: while one waits for a look-up that scans the delivery, another
+  // computes, or scans beside it (the look-ups' connection pool bounds how many). Every rule
+  // is let finish before an error is passed on, so none is left querying a closed source
+  const settled = await Promise.allSettled(enabled.map(({ rule, params }) => rule.check({ ...base, params })));
+  const failed = settled.find((s): s is PromiseRejectedResult => s.status === 'rejected');
+  if (failed) throw failed.reason;
+  const findings: Finding[] = [];
+  enabled.forEach(({ rule }, i) => {
     const setting = base.roles.rules[rule.meta.id];
     const forced = setting && setting !== 'off' ? setting.severity : undefined;
-    for (const d of drafts) findings.push(render(rule, d, forced, options));
-  }
+    for (const d of (settled[i] as PromiseFulfilledResult<FindingDraft[]>).value) findings.push(render(rule, d, forced, options));
+  });
   return sortFindings(findings);
 }
 

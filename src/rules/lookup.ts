@@ -1,4 +1,4 @@
-import type { Source } from '../source/open.js';
+import type { Session, Source } from '../source/open.js';
 import type { Dialect } from '../source/dialect.js';
 import { ident, literal, numericExpr } from '../source/sql.js';
 
@@ -168,7 +168,8 @@ export function createLookup(source: Source, group: string): Lookup {
     unitIds(unit) {
       let summary = unitCache.get(unit);
       if (!summary) {
-        summary = unitIdSummary(source, group, unit);
+        // one session: its temp tables are its own while other look-ups run beside it
+        summary = source.session((db) => unitIdSummary(source, db, group, unit));
         unitCache.set(unit, summary);
       }
       return summary;
@@ -236,7 +237,7 @@ export function createLookup(source: Source, group: string): Lookup {
  * seen on more than one record (on a clean delivery: none). Stage 2, only when stage 1 kept
  * keys, re-reads the records of those keys to split them by spelling, group and exact copies.
  */
-async function unitIdSummary(source: Source, group: string, unit: string): Promise<UnitIdSummary> {
+async function unitIdSummary(source: Source, db: Session, group: string, unit: string): Promise<UnitIdSummary> {
   const d = source.dialect;
   const g = ident(group);
   const u = ident(unit);
@@ -247,30 +248,30 @@ async function unitIdSummary(source: Source, group: string, unit: string): Promi
     variants: { sets: 0, examples: [] },
   };
   const drop = async () => {
-    for (const t of ['nr_unit_ids', 'nr_unit_cells', 'nr_unit_keys']) await source.run(`DROP TABLE IF EXISTS ${t}`);
+    for (const t of ['nr_unit_ids', 'nr_unit_cells', 'nr_unit_keys']) await db.run(`DROP TABLE IF EXISTS ${t}`);
   };
   await drop();
   try {
     // grouped on a 64-bit hash of the key, not the key itself: the hash table of ten million IDs
     // then fits the memory limit. Two keys that share a hash only come to stage 2, which splits
     // them by the key itself, so no ID is reported for a collision
-    await source.run(
+    await db.run(
       `CREATE TEMP TABLE nr_unit_keys AS SELECT ${d.keyHash(['kd', 'ks'])} AS h, count(*) AS n ` +
         `FROM (${normalizedIdQuery(source.view, '1 AS one', u, d)}) AS keyed GROUP BY 1 HAVING count(*) > 1`,
       { grow: true },
     );
-    const [{ keys }] = await source.all<{ keys: bigint }>('SELECT count(*) AS keys FROM nr_unit_keys');
+    const [{ keys }] = await db.all<{ keys: bigint }>('SELECT count(*) AS keys FROM nr_unit_keys');
     if (Number(keys) === 0) return empty;
     // per spelling and group: records, distinct contents (every column but the record number), first records
     const content = d.rowHash(source.header.map(ident));
-    await source.run(
+    await db.run(
       `CREATE TEMP TABLE nr_unit_cells AS SELECT r.kd, r.ks, r.u, r.g, count(*) AS n, count(DISTINCT r.h) AS dh, ` +
         `${d.firstValues('r.__rec', 'r.__rec', EXAMPLE_LIMIT)} AS recs ` +
         `FROM (${normalizedIdQuery(source.numbered, `__rec, ${u} AS u, ${g} AS g, ${content} AS h`, u, d)}) AS r ` +
         `JOIN nr_unit_keys k ON ${d.keyHash(['r.kd', 'r.ks'])} = k.h GROUP BY r.kd, r.ks, r.u, r.g`,
     );
     // an exact copy shares the group too, so distinct contents add up over the groups
-    await source.run(
+    await db.run(
       'CREATE TEMP TABLE nr_unit_ids AS SELECT kd, ks, u, sum(n) AS n, sum(dh) AS distinct_rows, count(g) AS groups ' +
         'FROM nr_unit_cells GROUP BY kd, ks, u',
     );
@@ -279,7 +280,7 @@ async function unitIdSummary(source: Source, group: string, unit: string): Promi
     const keyOf = (r: { kd: number | null; ks: string | null }) => (r.kd === null ? String(r.ks) : `#${Number(r.kd)}`);
     const withCells = async (ids: Id[]): Promise<UnitIdExample[]> => {
       if (!ids.length) return [];
-      const cells = await source.all<Cell>(
+      const cells = await db.all<Cell>(
         `SELECT * FROM nr_unit_cells WHERE u IN ${`(${ids.map((r) => literal(r.u)).join(', ')})`} ORDER BY u, g`,
       );
       return ids.map((r) => {
@@ -295,20 +296,20 @@ async function unitIdSummary(source: Source, group: string, unit: string): Promi
         };
       });
     };
-    const [t] = await source.all<Record<string, bigint | number | string>>(
+    const [t] = await db.all<Record<string, bigint | number | string>>(
       'SELECT count(*) FILTER (WHERE distinct_rows > 1) AS conflicting, coalesce(sum(n) FILTER (WHERE distinct_rows > 1), 0) AS conflicting_records, ' +
         'count(*) FILTER (WHERE n > distinct_rows) AS copied, coalesce(sum(n - distinct_rows), 0) AS copies, ' +
         'count(*) FILTER (WHERE groups > 1) AS mobile, coalesce(sum(n) FILTER (WHERE groups > 1), 0) AS mobile_records FROM nr_unit_ids',
     );
     const examples = async (where: string) =>
-      withCells(await source.all<Id>(`SELECT * FROM nr_unit_ids WHERE ${where} ORDER BY ${d.ordered('u')} LIMIT ${EXAMPLE_LIMIT}`));
+      withCells(await db.all<Id>(`SELECT * FROM nr_unit_ids WHERE ${where} ORDER BY ${d.ordered('u')} LIMIT ${EXAMPLE_LIMIT}`));
     const conflicting = await examples('distinct_rows > 1');
     const copied = await examples('n > distinct_rows');
     const mobile = await examples('groups > 1');
     const variantKeys = 'SELECT kd, ks FROM nr_unit_ids GROUP BY kd, ks HAVING count(*) > 1';
-    const [{ sets }] = await source.all<{ sets: bigint }>(`SELECT count(*) AS sets FROM (${variantKeys}) AS v`);
+    const [{ sets }] = await db.all<{ sets: bigint }>(`SELECT count(*) AS sets FROM (${variantKeys}) AS v`);
     const variantIds = await withCells(
-      await source.all<Id>(
+      await db.all<Id>(
         `SELECT i.* FROM nr_unit_ids i JOIN (${variantKeys} ORDER BY kd, ${d.ordered('ks')} LIMIT ${EXAMPLE_LIMIT}) v ` +
           `ON i.kd IS NOT DISTINCT FROM v.kd AND i.ks IS NOT DISTINCT FROM v.ks ORDER BY i.kd, ${d.ordered('i.ks')}, ${d.ordered('i.u')}`,
       ),

@@ -4,6 +4,8 @@ import { join } from 'node:path';
 import { createRequire } from 'node:module';
 import type * as DuckDB from '@duckdb/node-api';
 import type { DuckDBConnection } from '@duckdb/node-api';
+import { connectionPool } from './pool.js';
+import type { ConnectionPool } from './pool.js';
 import type { Roles } from '../roles/types.js';
 import { duckdb } from './dialect.js';
 import { NUMERIC_TYPES, blankAsNull, ident, literal } from './sql.js';
@@ -16,8 +18,11 @@ const { DuckDBDoubleVector, DuckDBInstance, JSDuckDBValueConverter } = createReq
 
 /** An embedded DuckDB with its own spill directory (deleted on close). */
 export interface DuckEngine {
+  /** the connection that holds the views and runs the profile (its rejects log is its own) */
   con: DuckDBConnection;
   all<T = Record<string, unknown>>(sql: string): Promise<T[]>;
+  /** connections for the rules' look-ups */
+  lookups: ConnectionPool;
   /** close the connection and the instance, delete the spill directory and `extra` temp paths */
   close(): void;
   /** paths deleted on close (a spooled stdin, …) */
@@ -25,6 +30,9 @@ export interface DuckEngine {
   /** the memory limit in bytes (null when not understood) */
   memoryBytes: number | null;
 }
+
+/** Look-ups that may scan the delivery at the same time (see connectionPool). */
+const LOOKUP_CONNECTIONS = 2;
 
 /** "200MB", "1.5GiB", "512 kb" → bytes (null when not a size). */
 export function parseSize(size: string): number | null {
@@ -75,10 +83,12 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
     cleanup,
     memoryBytes: parseSize(options.memoryLimit ?? '512MB'),
     all: async <T,>(sql: string) => (await con.runAndReadAll(sql)).getRowObjectsJS() as T[],
+    lookups: connectionPool(() => instance.connect(), LOOKUP_CONNECTIONS),
     close() {
       if (closed) return;
       closed = true;
       try {
+        engine.lookups.close();
         con.closeSync();
         instance.closeSync();
       } finally {
@@ -153,12 +163,18 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
     textOnly,
     view: 'nr_delivery',
     numbered: 'nr_numbered',
-    all,
+    all: (sql) => engine.lookups.use((c) => readAll(c, sql)),
     columns: (sql) => readColumns(engine, sql),
-    async run(sql, options) {
-      const run = async () => void (await con.run(sql));
-      await (options?.grow ? withMemory(engine, run) : run());
-    },
+    session: (fn) =>
+      engine.lookups.use((c) =>
+        fn({
+          all: (sql) => readAll(c, sql),
+          async run(sql, options) {
+            const run = async () => void (await c.run(sql));
+            await (options?.grow ? withMemory(engine, run) : run());
+          },
+        }),
+      ),
     async rejects() {
       const rejected = await layout.rejects();
       if (!guarded && layout.typedReader && rejected.some((r) => r.kind === 'INVALID ENCODING')) {
@@ -184,6 +200,10 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
     },
     close: () => engine.close(),
   };
+}
+
+async function readAll<T>(con: DuckDBConnection, sql: string): Promise<T[]> {
+  return (await con.runAndReadAll(sql)).getRowObjectsJS() as T[];
 }
 
 /**

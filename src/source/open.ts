@@ -10,7 +10,7 @@ import { spoolStdin } from './stdin.js';
 import type { OpenOptions, Source } from './types.js';
 import { STDIN } from './types.js';
 
-export type { Encoding, InputFormat, OpenOptions, RejectedLine, Source, SourceFormat } from './types.js';
+export type { Encoding, InputFormat, OpenOptions, RejectedLine, Session, Source, SourceFormat } from './types.js';
 export { ENCODINGS, INPUT_FORMATS, STDIN } from './types.js';
 
 /**

@@ -132,9 +132,8 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
         });
         return out;
       },
-      async run(sql) {
-        await client.query(sql);
-      },
+      // one client, one session: its queries queue up, and its temp tables are the session's
+      session: (fn) => fn({ all, run: async (sql) => void (await client.query(sql)) }),
       // a table has no unreadable lines: whatever loaded it has already parsed every record
       rejects: async (): Promise<RejectedLine[]> => [],
       async readAsText(columns) {

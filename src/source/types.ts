@@ -45,16 +45,15 @@ export interface Source {
   view: string;
   /** the same with `__rec`, the 1-based record number (header and rejected lines not counted) */
   numbered: string;
-  /** run a query and return plain JS rows */
+  /** run a query and return plain JS rows (look-ups may run several at once) */
   all<T = Record<string, unknown>>(sql: string): Promise<T[]>;
-  /** run a query and return its result by column (the profile's group table) */
-  columns(sql: string): Promise<Record<string, unknown[]>>;
-  /** run a statement that returns nothing (e.g. a temp table for a look-up) */
   /**
-   * Run a statement. `grow`: a large aggregate whose size the delivery decides (the unit IDs of
-   * ten million records); where the engine has a memory limit, it is raised for it when needed.
+   * Run a full read and return its result by column (the profile's group table): on the one
+   * connection whose log of unreadable lines `rejects()` reads
    */
-  run(sql: string, options?: { grow?: boolean }): Promise<void>;
+  columns(sql: string): Promise<Record<string, unknown[]>>;
+  /** run `fn` on one session of its own: the temp tables it makes are its own and stay until it drops them */
+  session<T>(fn: (session: Session) => Promise<T>): Promise<T>;
   /** rejected lines of the latest full read */
   rejects(): Promise<RejectedLine[]>;
   /** read these columns as text from now on (a value in them was not a number) */
@@ -63,6 +62,16 @@ export interface Source {
   readAsDouble(columns: readonly string[]): Promise<void>;
   /** release the engine and delete any temp file (a spooled stdin, a staged table) */
   close(): void | Promise<void>;
+}
+
+/** One connection's worth of queries: what a look-up that builds temp tables needs. */
+export interface Session {
+  all<T = Record<string, unknown>>(sql: string): Promise<T[]>;
+  /**
+   * Run a statement. `grow`: a large aggregate whose size the delivery decides (the unit IDs of
+   * ten million records); where the engine has a memory limit, it is raised for it when needed.
+   */
+  run(sql: string, options?: { grow?: boolean }): Promise<void>;
 }
 
 export interface OpenOptions {
