@@ -36,7 +36,8 @@ const duck = createRequire(import.meta.url)('@duckdb/node-api');
 const duckImportedMs = performance.now();
 
 const queries = [];
-let inReadAll = 0;
+// connections inside runAndReadAll (which calls run): per connection, since look-ups run at once
+const inReadAll = new WeakSet();
 const proto = duck.DuckDBConnection.prototype;
 const origRun = proto.run;
 const origReadAll = proto.runAndReadAll;
@@ -57,7 +58,7 @@ function label(sql) {
   return 'lookup';
 }
 proto.run = async function run(sql, ...rest) {
-  if (inReadAll) return origRun.call(this, sql, ...rest); // timed by runAndReadAll below
+  if (inReadAll.has(this)) return origRun.call(this, sql, ...rest); // timed by runAndReadAll below
   const q = { kind: label(sql), sql: String(sql).slice(0, 120), startMs: performance.now() };
   try {
     return await origRun.call(this, sql, ...rest);
@@ -111,14 +112,14 @@ proto.stream = async function stream(sql, ...rest) {
 };
 proto.runAndReadAll = async function runAndReadAll(sql, ...rest) {
   const q = { kind: label(sql), sql: String(sql).slice(0, 120), startMs: performance.now() };
-  inReadAll++;
+  inReadAll.add(this);
   try {
     return await origReadAll.call(this, sql, ...rest);
   } catch (e) {
     q.error = String(e?.message ?? e).split('\n')[0];
     throw e;
   } finally {
-    inReadAll--;
+    inReadAll.delete(this);
     q.endMs = performance.now();
     q.maxRssMB = rssMB();
     queries.push(q);
@@ -138,7 +139,17 @@ const mainEndMs = performance.now();
 
 // ---- summarise -----------------------------------------------------------------------
 queries.sort((a, b) => a.startMs - b.startMs);
-const sumKind = (kind) => queries.filter((q) => q.kind === kind).reduce((s, q) => s + (q.endMs - q.startMs), 0);
+// wall time during which a query of this kind ran: look-ups run at once, so overlapping
+// intervals count once
+const sumKind = (kind) => {
+  let total = 0;
+  let reach = -Infinity;
+  for (const q of queries.filter((x) => x.kind === kind).sort((a, b) => a.startMs - b.startMs)) {
+    total += Math.max(0, q.endMs - Math.max(q.startMs, reach));
+    reach = Math.max(reach, q.endMs);
+  }
+  return total;
+};
 // the profiling pass may run more than once (a typed read re-run as text after rejects):
 // "to profile" is up to the first one, "profile" spans first start .. last end
 const profiles = queries.filter((q) => q.kind === 'profile');

@@ -402,7 +402,7 @@ console.log(
     '\n  to profile q  = main() start -> profiling GROUP BY issued (role map, DuckDB instance, views, dialect/type sniff)' +
     '\n  profile q     = the one profiling GROUP BY incl. fetching its result into JS' +
     '\n  after profile = result -> arquero, stats, rules and their lookups, grade, render, write' +
-    '\n  lookups n/s   = number of rule lookup queries / their seconds (part of after profile)' +
+    '\n  lookups n/s   = number of rule lookup queries / the seconds during which one ran (they run at once; part of after profile)' +
     '\n  exit          = parent wall minus the child\'s in-process time: DuckDB/Node teardown and spawn overhead (approx.)' +
     '\n  base inner    = baseline group-by from DuckDB instance creation to fetched result (its own wallMs)' +
     '\n  cpu s         = user+sys CPU seconds of each whole process (GNU time), less sensitive than wall to other load',
