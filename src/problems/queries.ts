@@ -1,3 +1,5 @@
+import { duckdb } from '../source/dialect.js';
+import { modalValueSql } from '../source/modal-value.js';
 import { ident, numericExpr } from '../source/sql.js';
 
 /**
@@ -51,16 +53,11 @@ export function level2Query(view: string, numbered: string, group: string, colum
   const g = ident(group);
   const c = ident(column);
   const v = tolerance === null ? c : numericExpr(c);
-  const varies = tolerance === null ? 'min(v) <> max(v)' : `max(v) - min(v) > ${Number(tolerance)}`;
-  const dv = tolerance === null ? `d.${c}` : numericExpr(`d.${c}`);
-  const differs = tolerance === null ? `${dv} <> m.v` : `abs(${dv} - m.v) > ${Number(tolerance)}`;
+  const varies = tolerance === null ? `min(${v}) <> max(${v})` : `max(${v}) - min(${v}) > ${Number(tolerance)}`;
+  const m = modalValueSql(view, group, column, tolerance, `${g} IN (SELECT g FROM bad)`, duckdb, numericExpr);
   return {
-    with:
-      `WITH x AS (SELECT ${g} AS g, ${v} AS v FROM ${view} WHERE ${g} IS NOT NULL), ` +
-      `bad AS (SELECT g FROM x GROUP BY g HAVING ${varies}), ` +
-      `k AS (SELECT x.g, x.v, count(*) AS k FROM x JOIN bad ON x.g = bad.g WHERE x.v IS NOT NULL GROUP BY 1, 2), ` +
-      `m AS (SELECT g, v FROM (SELECT g, v, row_number() OVER (PARTITION BY g ORDER BY k DESC, v) AS r FROM k) WHERE r = 1)`,
-    from: `FROM ${numbered} d JOIN m ON d.${g} = m.g WHERE d.${c} IS NOT NULL AND ${differs}`,
+    with: `WITH bad AS (SELECT ${g} AS g FROM ${view} WHERE ${g} IS NOT NULL GROUP BY 1 HAVING ${varies}), ${m.cte}`,
+    from: `FROM ${numbered} d JOIN m ON d.${g} = m.g WHERE d.${c} IS NOT NULL AND ${m.differs('d')}`,
     extra: `, d.${c} AS value, m.v AS expected`,
   };
 }

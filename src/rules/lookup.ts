@@ -1,6 +1,7 @@
 import type { Session, Source } from '../source/open.js';
 import type { Dialect } from '../source/dialect.js';
-import { ident, literal, numericExpr } from '../source/sql.js';
+import { modalValueSql } from '../source/modal-value.js';
+import { ident, literal } from '../source/sql.js';
 
 /** How many example rows or groups a finding lists (shared/design.md: first 20). */
 export const EXAMPLE_LIMIT = 20;
@@ -146,16 +147,12 @@ export function createLookup(source: Source, group: string): Lookup {
     },
     async rowsDeviating(column, groups, tolerance, limit = EXAMPLE_LIMIT) {
       if (!groups.length) return [];
-      const c = ident(column);
-      // the modal value per group (ties broken by the smaller value) is taken as the intended one
-      const num = (e: string) => (source.storage.get(column) === 'double' ? e : source.dialect.numeric(e));
-      const differs = tolerance === null ? `d.${c} <> m.v` : `abs(${num(`d.${c}`)} - ${num('m.v')}) > ${tolerance}`;
-      const sql =
-        `WITH m AS (SELECT DISTINCT ON (g) g, v FROM (SELECT ${g} AS g, ${c} AS v, count(*) AS k FROM ${source.view} ` +
-        `WHERE ${g} IN ${inList(groups)} AND ${c} IS NOT NULL GROUP BY 1, 2) AS counted ORDER BY g, k DESC, ${source.storage.get(column) === 'double' ? 'v' : source.dialect.ordered('v')}) ` +
-        `SELECT d.__rec FROM ${source.numbered} d JOIN m ON d.${g} = m.g WHERE d.${c} IS NOT NULL AND ${differs} ` +
-        `ORDER BY d.__rec LIMIT ${limit}`;
-      const rows = await source.all<{ __rec: bigint }>(sql);
+      const numeric = (e: string) => (source.storage.get(column) === 'double' ? e : source.dialect.numeric(e));
+      const m = modalValueSql(source.view, group, column, tolerance, `${g} IN ${inList(groups)}`, source.dialect, numeric);
+      const rows = await source.all<{ __rec: bigint }>(
+        `WITH ${m.cte} SELECT d.__rec FROM ${source.numbered} d JOIN m ON d.${g} = m.g ` +
+          `WHERE d.${ident(column)} IS NOT NULL AND ${m.differs('d')} ORDER BY d.__rec LIMIT ${limit}`,
+      );
       return rows.map((r) => Number(r.__rec));
     },
     async rowsMissingIn(column, groups, limit = EXAMPLE_LIMIT) {

@@ -162,4 +162,32 @@ describe('problemRows on other shapes', () => {
       dd.remove();
     }
   });
+
+  it('names the same records as the report when a numeric column read as text ties for its mode', async () => {
+    // "n/a" makes the column text; declared numeric, it is compared as numbers. The tie 9 / 10
+    // goes to the smaller number (9), not to the first in text order ("10")
+    const data: Row[] = [
+      { g: 'A', u: 'a1', y: 1, staff: '9' },
+      { g: 'A', u: 'a2', y: 2, staff: '9' },
+      { g: 'A', u: 'a3', y: 3, staff: '10' },
+      { g: 'A', u: 'a4', y: 3, staff: '10' },
+      { g: 'B', u: 'b1', y: 3, staff: 'n/a' },
+      { g: 'B', u: 'b2', y: 4, staff: '2' },
+      { g: 'B', u: 'b3', y: 5, staff: '2' },
+    ];
+    const map = { group: 'g', unit: 'u', outcomes: ['y'], level2: ['staff'], types: { staff: 'numeric' }, rules: { 'level2-varies': { tolerance: 0.5 } } };
+    const dd = writeDelivery(data, map);
+    try {
+      const r = parseRoles(toYaml(map), dd.roles, catalogue).roles;
+      const rep = await audit(dd.csv, r, { threads: 1 });
+      const finding = rep.findings.find((f) => f.rule === 'level2-varies')!;
+      const found = await problemRows(dd.csv, r, rep.findings);
+      const varies = found.rows.filter((x) => x.rule === 'level2-varies');
+      expect(finding.rows).toEqual([3, 4]);
+      expect(varies.map((x) => x.record)).toEqual(finding.rows);
+      expect(varies[0].reason).toBe('staff is "10" here but 9 in most records of the group');
+    } finally {
+      dd.remove();
+    }
+  });
 });
