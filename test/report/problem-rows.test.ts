@@ -121,23 +121,27 @@ describe('problemsCsv', () => {
   });
 });
 
+/** Audit a delivery, then collect its problem rows: the report and the rows of one rule. */
+async function reportAndRows(data: readonly Row[] | string, map: Record<string, unknown>, rule: string) {
+  const dd = writeDelivery(data, map);
+  try {
+    const r = parseRoles(toYaml(map), dd.roles, catalogue).roles;
+    const report = await audit(dd.csv, r, { threads: 1 });
+    const found = await problemRows(dd.csv, r, report.findings);
+    return { report, rows: found.rows.filter((x) => x.rule === rule) };
+  } finally {
+    dd.remove();
+  }
+}
+
 describe('problemRows on other shapes', () => {
   it('names unreadable lines by line number (no record number)', async () => {
     const csv = 'g,u,y\nA,a1,1\nA,a2,2,extra\nB,b1,3\nB,b2,4\n';
-    const map = { group: 'g', unit: 'u', outcomes: ['y'] };
-    const dd = writeDelivery(csv, map);
-    try {
-      const r = parseRoles(toYaml(map), dd.roles, catalogue).roles;
-      const rep = await audit(dd.csv, r, { threads: 1 });
-      expect(rep.findings.map((f) => f.rule)).toContain('unreadable-lines');
-      const found = await problemRows(dd.csv, r, rep.findings);
-      const lines = found.rows.filter((x) => x.rule === 'unreadable-lines');
-      expect(lines).toHaveLength(1);
-      expect(lines[0]).toMatchObject({ record: null, group: null, unit: null });
-      expect(lines[0].reason).toMatch(/^line 3 \(the header is line 1\) could not be read: /);
-    } finally {
-      dd.remove();
-    }
+    const { report: rep, rows: lines } = await reportAndRows(csv, { group: 'g', unit: 'u', outcomes: ['y'] }, 'unreadable-lines');
+    expect(rep.findings.map((f) => f.rule)).toContain('unreadable-lines');
+    expect(lines).toHaveLength(1);
+    expect(lines[0]).toMatchObject({ record: null, group: null, unit: null });
+    expect(lines[0].reason).toMatch(/^line 3 \(the header is line 1\) could not be read: /);
   });
 
   it('compares a numeric level-2 column as numbers, within the rule tolerance', async () => {
@@ -150,17 +154,9 @@ describe('problemRows on other shapes', () => {
       { g: 'B', u: 'b2', y: 4, staff: '2' },
     ];
     const map = { group: 'g', unit: 'u', outcomes: ['y'], level2: ['staff'], rules: { 'level2-varies': { tolerance: 0.1 } } };
-    const dd = writeDelivery(data, map);
-    try {
-      const r = parseRoles(toYaml(map), dd.roles, catalogue).roles;
-      const rep = await audit(dd.csv, r, { threads: 1 });
-      const found = await problemRows(dd.csv, r, rep.findings);
-      const varies = found.rows.filter((x) => x.rule === 'level2-varies');
-      expect(varies.map((x) => [x.record, x.unit])).toEqual([[4, 'a4']]);
-      expect(varies[0].reason).toBe('staff is 7 here but 4 in most records of the group');
-    } finally {
-      dd.remove();
-    }
+    const { rows: varies } = await reportAndRows(data, map, 'level2-varies');
+    expect(varies.map((x) => [x.record, x.unit])).toEqual([[4, 'a4']]);
+    expect(varies[0].reason).toBe('staff is 7 here but 4 in most records of the group');
   });
 
   it('names the same records as the report when a numeric column read as text ties for its mode', async () => {
@@ -176,18 +172,10 @@ describe('problemRows on other shapes', () => {
       { g: 'B', u: 'b3', y: 5, staff: '2' },
     ];
     const map = { group: 'g', unit: 'u', outcomes: ['y'], level2: ['staff'], types: { staff: 'numeric' }, rules: { 'level2-varies': { tolerance: 0.5 } } };
-    const dd = writeDelivery(data, map);
-    try {
-      const r = parseRoles(toYaml(map), dd.roles, catalogue).roles;
-      const rep = await audit(dd.csv, r, { threads: 1 });
-      const finding = rep.findings.find((f) => f.rule === 'level2-varies')!;
-      const found = await problemRows(dd.csv, r, rep.findings);
-      const varies = found.rows.filter((x) => x.rule === 'level2-varies');
-      expect(finding.rows).toEqual([3, 4]);
-      expect(varies.map((x) => x.record)).toEqual(finding.rows);
-      expect(varies[0].reason).toBe('staff is "10" here but 9 in most records of the group');
-    } finally {
-      dd.remove();
-    }
+    const { report, rows: varies } = await reportAndRows(data, map, 'level2-varies');
+    const finding = report.findings.find((f) => f.rule === 'level2-varies')!;
+    expect(finding.rows).toEqual([3, 4]);
+    expect(varies.map((x) => x.record)).toEqual(finding.rows);
+    expect(varies[0].reason).toBe('staff is "10" here but 9 in most records of the group');
   });
 });
