@@ -16,7 +16,7 @@ export function resolveParams(rule: AnyRule, roles: Roles): Record<string, unkno
   if (setting === 'off') return 'off';
   const { severity: _severity, ...given } = setting ?? {};
   // a rule the role map leaves alone runs with its schema's defaults: no validator is compiled
-  // for it (compiling them all cost a tenth of a second of every audit)
+  // for it (compiling one per rule was most of the 0.15 s ajv took in every audit)
   if (Object.keys(given).length === 0) return schemaDefaults(rule);
   const params = structuredClone(given);
   const validate = validatorOf(rule);

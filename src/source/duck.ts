@@ -84,7 +84,7 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
     con,
     cleanup,
     memoryBytes: parseSize(options.memoryLimit ?? '512MB'),
-    all: async <T,>(sql: string) => (await con.runAndReadAll(sql)).getRowObjectsJS() as T[],
+    all: (sql) => readAll(con, sql),
     lookups: connectionPool(() => instance.connect(), LOOKUP_CONNECTIONS),
     close() {
       if (closed) return;
