@@ -287,6 +287,12 @@ export function typedStorage(columns: readonly { name: string; type: string }[],
 
 /** The most the profile may raise DuckDB's memory limit to when a wide aggregate over many groups does not fit. */
 const MEMORY_CAP = 4 * 2 ** 30;
+/**
+ * How much the limit grows on each retry: every failed attempt costs part of a scan, so the
+ * growth is steep. At 1M rows, 94,590 groups took 3.55 s and 486,853 groups 10.75 s, against
+ * 3.96 s and 11.75 s when the limit was doubled (one attempt more each).
+ */
+const GROWTH = 4;
 
 /**
  * Run a query and read its result by column, one chunk at a time (DuckDB never holds the whole
@@ -300,7 +306,7 @@ export function readColumns(engine: DuckEngine, sql: string): Promise<Record<str
 /**
  * Run one large aggregate under the memory limit. Some need more than the limit even though
  * DuckDB spills (a wide aggregate over a million groups; the hash table of ten million unit
- * IDs): the limit is then doubled (up to 4 GiB) and the query run again, so a low limit costs
+ * IDs): the limit is then raised fourfold (up to 4 GiB) and the query run again, so a low limit costs
  * memory only where the delivery's size demands it.
  */
 async function withMemory<T>(engine: DuckEngine, query: () => Promise<T>): Promise<T> {
@@ -309,8 +315,8 @@ async function withMemory<T>(engine: DuckEngine, query: () => Promise<T>): Promi
       return await query();
     } catch (e) {
       const limit = engine.memoryBytes;
-      if (!/Out of Memory/i.test((e as Error).message) || limit === null || limit * 2 > MEMORY_CAP) throw e;
-      engine.memoryBytes = limit * 2;
+      if (!/Out of Memory/i.test((e as Error).message) || limit === null || limit * GROWTH > MEMORY_CAP) throw e;
+      engine.memoryBytes = limit * GROWTH;
       await engine.con.run(`SET memory_limit = '${Math.round(engine.memoryBytes / 2 ** 20)}MiB'`);
     }
   }
