@@ -4,14 +4,14 @@
 //
 //   node scripts/bench.js [--rows 1000000] [--groups 5000] [--seed 1] [--repeat 3]
 //                         [--sizes 1e6,1e7] [--groups-list 1000,100000,1000000]
-//                         [--memory-limit 200MB] [--keep]
+//                         [--memory-limit 100MB] [--keep]
 //
 //   --sizes        several row counts (each at --groups)
 //   --groups-list  several group counts (each at --rows); with --sizes too, every pair runs
 //   --cases        explicit ROWSxGROUPS pairs, e.g. 1e6x5000,1e7x5000,1e6x1000000 (instead of the above);
 //                  `npm run bench` runs the issue's set: 1M and 10M rows at 5,000 groups, and
 //                  1M rows at 1k, 100k and 1M groups (memory grows with the groups, not the rows)
-//   --memory-limit passed to `nestready audit --memory-limit` (default: the CLI's own, 200MB)
+//   --memory-limit passed to `nestready audit --memory-limit` (default: the CLI's own, 100MB)
 //   --keep         keep the generated CSVs and the audit reports
 //
 // For every (rows, groups) case it generates a synthetic delivery (scripts/synth.js) under
