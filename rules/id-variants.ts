@@ -50,7 +50,13 @@ export default defineRule<Params>({
     const sizes = profile.groups.array('n') as number[];
     const size = new Map(ids.map((id, i) => [id, sizes[i]]));
     const byKey = new Map<string, string[]>();
-    for (const id of ids) byKey.set(normalizeId(id), [...(byKey.get(normalizeId(id)) ?? []), id]);
+    // one key and one push per group: half a million groups are common
+    for (const id of ids) {
+      const key = normalizeId(id);
+      const set = byKey.get(key);
+      if (set) set.push(id);
+      else byKey.set(key, [id]);
+    }
     // most records first: the usual spelling leads each set, the others are the ones to fix
     const sets = [...byKey.values()]
       .filter((set) => set.length > 1)
