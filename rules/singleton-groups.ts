@@ -48,7 +48,7 @@ export default defineRule<Params>({
       'shares 0.1 and 0.5: common practice (no published cutoff)',
     ],
   },
-  async check({ profile, params, lookup }) {
+  async check({ profile, params }) {
     const ids = profile.groups.array('group') as string[];
     const sizes = profile.groups.array('n') as number[];
     const singles = ids.filter((_, i) => sizes[i] === 1);
@@ -66,7 +66,7 @@ export default defineRule<Params>({
         column: undefined,
         count: singles.length,
         groups: singles,
-        rows: await lookup.rowsInGroups(singles.slice(0, 20)),
+        // no record numbers: a one-record group's ID already finds its record (the problem-rows file lists it)
         data: { count: singles.length, groups: ids.length, share: `${(100 * share).toFixed(1)}%` },
       },
     ];
