@@ -4,11 +4,14 @@ import type { Document } from 'yaml';
 import type { ErrorObject } from 'ajv';
 import { InputError } from '../errors.js';
 import { createAjv, describeAjvError, pointerToPath } from '../util/ajv.js';
-import { DEFAULT_MISSING, roleMapSchema } from './schema.js';
+import { DEFAULT_MISSING } from './schema.js';
+import { validate as untypedValidate } from './role-map-validator.generated.js';
 import type { Roles, RuleSetting, ValueType } from './types.js';
 import type { AnyRule } from '../rules/define.js';
 import { mergeRuleSettings, PRESETS } from '../presets/index.js';
 import type { PresetName } from '../presets/index.js';
+
+const validateRoleMap = untypedValidate as ((data: unknown) => boolean) & { errors?: ErrorObject[] | null };
 
 /** A parsed role map plus a way to point at any of its keys (for later errors). */
 export interface LoadedRoles {
@@ -56,9 +59,8 @@ export function parseRoles(text: string, file: string, catalogue: readonly AnyRu
   const raw = doc.toJS() as unknown;
   if (raw === null || raw === undefined) throw new InputError(`${file}: the role map is empty`);
 
-  const ajv = createAjv();
-  const validate = ajv.compile(roleMapSchema);
-  if (!validate(raw)) throw schemaError(validate.errors ?? [], locate, []);
+  // compiled ahead of time from roleMapSchema (src/roles/validator-source.ts)
+  if (!validateRoleMap(raw)) throw schemaError(validateRoleMap.errors ?? [], locate, []);
 
   const map = raw as unknown as Record<string, unknown>;
   if (map.outcome !== undefined && map.outcomes !== undefined) {
@@ -67,7 +69,7 @@ export function parseRoles(text: string, file: string, catalogue: readonly AnyRu
   singleOutcome = map.outcome !== undefined;
   const own = (map.rules ?? {}) as Record<string, RuleSetting>;
   const settings = options.preset ? mergeRuleSettings(presetRules(options.preset), own) : own;
-  const rules = validateRuleSettings(settings, catalogue, locate, ajv);
+  const rules = validateRuleSettings(settings, catalogue, locate);
   const roles: Roles = {
     group: map.group as string,
     ...(map.unit !== undefined && { unit: map.unit as string }),
@@ -99,9 +101,9 @@ function validateRuleSettings(
   settings: Record<string, RuleSetting>,
   catalogue: readonly AnyRule[],
   locate: LoadedRoles['locate'],
-  ajv: ReturnType<typeof createAjv>,
 ): Record<string, RuleSetting> {
   const out: Record<string, RuleSetting> = {};
+  let ajv: ReturnType<typeof createAjv> | undefined;
   for (const [id, setting] of Object.entries(settings)) {
     const rule = catalogue.find((r) => r.meta.id === id);
     if (!rule) {
@@ -113,6 +115,7 @@ function validateRuleSettings(
       continue;
     }
     const { severity, ...params } = setting;
+    ajv ??= createAjv();
     const validate = ajv.compile(rule.meta.params);
     if (!validate(params)) throw schemaError(validate.errors ?? [], locate, ['rules', id]);
     out[id] = { ...(severity && { severity }), ...params };
