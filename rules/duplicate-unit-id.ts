@@ -26,6 +26,7 @@ export default defineRule<Record<string, never>>({
       },
     },
     sources: ['A unit ID identifies one level-1 unit; in a two-level design each unit is one record (common practice)'],
+    prefetch: ['unit-ids'],
   },
   async check({ roles, lookup }) {
     if (!roles.unit) return [];

@@ -43,6 +43,7 @@ export default defineRule<Params>({
     sources: [
       'Group and unit IDs must identify their group or unit; the spellings folded together are common data-entry and export variants (common practice)',
     ],
+    prefetch: ['unit-ids'],
   },
   async check({ profile, roles, params, lookup }) {
     const findings: FindingDraft[] = [];

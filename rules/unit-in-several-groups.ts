@@ -37,6 +37,7 @@ export default defineRule<Params>({
       'Hill, P. W., & Goldstein, H. (1998). Multilevel modeling of educational data with cross-classification and missing identification for units. Journal of Educational and Behavioral Statistics, 23(2), 117–128',
       'block_share 0.05: common practice',
     ],
+    prefetch: ['unit-ids'],
   },
   async check({ profile, roles, params, lookup }) {
     if (!roles.unit) return [];

@@ -1,6 +1,6 @@
 import { catalogue as builtIn } from '../rules/index.js';
 import { grade } from './grade.js';
-import { buildProfile } from './profile/build.js';
+import { buildProfile, loadArquero } from './profile/build.js';
 import type { Profile } from './profile/types.js';
 import { checkColumns } from './roles/check-columns.js';
 import type { LoadedRoles } from './roles/load.js';
@@ -61,11 +61,20 @@ async function openInput(input: AuditInput, roles: Roles, options: AuditOptions)
 export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, options: AuditOptions = {}): Promise<Report> {
   const loaded: LoadedRoles = 'roles' in roleMap ? roleMap : { roles: roleMap, file: 'role map', locate: () => 'role map' };
   const { roles } = loaded;
+  loadArquero().catch(() => undefined); // compiled while the delivery is opened (awaited by buildProfile)
   const source = await openInput(input, roles, options);
   const path = source.path;
+  const early: Promise<unknown>[] = [];
   try {
     checkColumns(roles, source.header, loaded.locate, path);
-    const profile = await buildProfile(source, roles);
+    const catalogue = options.catalogue ?? builtIn;
+    const lookup = createLookup(source, roles.group);
+    // the unit-ID check scans the delivery again: start it once the profile has read it, so it
+    // runs while the profile's result is converted and the rules compute (1M rows: 0.15 s sooner)
+    const unit = roles.unit;
+    const prefetch =
+      unit && wantsUnitIds(catalogue, roles) ? () => void early.push(lookup.unitIds(unit).catch(() => undefined)) : undefined;
+    const profile = await buildProfile(source, roles, { onScanned: prefetch });
     if (options.strict && profile.rejected.length) {
       const first = profile.rejected[0];
       throw new InputError(
@@ -74,11 +83,15 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
       );
     }
     const outcomes = outcomeStatistics(profile, roles);
-    const findings = await runRules(
-      options.catalogue ?? builtIn,
-      { profile, roles, outcomes, lookup: createLookup(source, roles.group) },
-      { includeValues: options.includeValues ?? true },
-    );
+    // the plots' data needs no finding: it is computed while the rules' look-ups run, and both
+    // are let finish before an error is passed on (none may be left querying a closed source)
+    const [ran, plotted] = await Promise.allSettled([
+      runRules(catalogue, { profile, roles, outcomes, lookup }, { includeValues: options.includeValues ?? true }),
+      (async () => buildPlotData(profile, roles, outcomes))(),
+    ]);
+    if (ran.status === 'rejected') throw ran.reason;
+    if (plotted.status === 'rejected') throw plotted.reason;
+    const [findings, plots] = [ran.value, plotted.value];
     return {
       schema: REPORT_SCHEMA,
       tool: TOOL,
@@ -88,12 +101,19 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
       outcomes,
       findings,
       ...grade(findings),
-      plots: buildPlotData(profile, roles, outcomes),
-      rulesRun: rulesRun(options.catalogue ?? builtIn, roles),
+      plots,
+      rulesRun: rulesRun(catalogue, roles),
     };
   } finally {
+    // look-ups started early are let finish (an error is the rules' to report, if they ask)
+    await Promise.all(early);
     await source.close();
   }
+}
+
+/** Whether an enabled rule of the catalogue will ask for the unit-ID check. */
+function wantsUnitIds(catalogue: readonly AnyRule[], roles: Roles): boolean {
+  return catalogue.some((rule) => rule.meta.prefetch?.includes('unit-ids') && roles.rules[rule.meta.id] !== 'off');
 }
 
 /** Null-model statistics for every numeric (or 0/1) outcome, from the profile's group moments. */

@@ -1,4 +1,3 @@
-import * as aq from 'arquero';
 import type { ColumnTable } from 'arquero';
 import type { Roles } from '../roles/types.js';
 import type { Source } from '../source/open.js';
@@ -10,6 +9,16 @@ import type { ProfileColumnPlan } from './sql.js';
 import { columnProfile } from './columns.js';
 import { roleOf } from './role-of.js';
 import type { ColumnProfile, Profile } from './types.js';
+
+let arquero: Promise<typeof import('arquero')> | undefined;
+/**
+ * Load arquero (with its expression parser, a third of the engine's code). Called when an audit
+ * starts, its code is compiled while DuckDB opens and sniffs the delivery, not before.
+ */
+export function loadArquero(): Promise<typeof import('arquero')> {
+  arquero ??= import('arquero');
+  return arquero;
+}
 
 /**
  * Which statistics each column needs: numbers for every numeric column and declared variable
@@ -40,14 +49,17 @@ export function planColumns(
  * Run the one profiling pass and hold its result as arquero tables. When a value in a column
  * read as DOUBLE is not a number, its line is rejected by the reader; those columns are then
  * read as text and the pass is run again, so no line is lost to a type guess.
+ *
+ * @param options.onScanned called when a pass has read the delivery, before its result is
+ *   converted (a look-up may start then; a pass run again comes with a new source.viewVersion)
  */
-export async function buildProfile(source: Source, roles: Roles): Promise<Profile> {
+export async function buildProfile(source: Source, roles: Roles, options: { onScanned?: () => void } = {}): Promise<Profile> {
   let plan: ProfileColumnPlan[];
   let result;
   let rejected;
   for (;;) {
     plan = planColumns(source.header, roles, source.storage, source);
-    result = await source.columns(profileQuery(source.view, roles.group, plan, source.dialect));
+    result = await source.columns(profileQuery(source.view, roles.group, plan, source.dialect), options);
     rejected = await source.rejects();
     const retype = [...new Set(rejected.filter((r) => r.column && source.storage.get(r.column) === 'double').map((r) => r.column!))];
     if (retype.length === 0) break;
@@ -59,6 +71,7 @@ export async function buildProfile(source: Source, roles: Roles): Promise<Profil
       planColumns([name], roles, new Map([[name, 'text']]), { textOnly })[0]?.numeric ?? false,
     );
   }
+  const aq = await loadArquero();
   const raw = directArrays(aq.table(result));
 
   const rows = (Array.from(raw.array('n')) as number[]).reduce((a, b) => a + b, 0);

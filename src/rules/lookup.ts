@@ -166,11 +166,13 @@ export function createLookup(source: Source, group: string): Lookup {
       return rows.map((r) => Number(r.__rec));
     },
     unitIds(unit) {
-      let summary = unitCache.get(unit);
+      // a summary holds for the view it read (see Source.viewVersion)
+      const key = `${source.viewVersion}\u0000${unit}`;
+      let summary = unitCache.get(key);
       if (!summary) {
         // one session: its temp tables are its own while other look-ups run beside it
         summary = source.session((db) => unitIdSummary(source, db, group, unit));
-        unitCache.set(unit, summary);
+        unitCache.set(key, summary);
       }
       return summary;
     },
@@ -247,10 +249,11 @@ async function unitIdSummary(source: Source, db: Session, group: string, unit: s
     mobile: { ids: 0, records: 0, examples: [] },
     variants: { sets: 0, examples: [] },
   };
+  // the session's temp tables are dropped when it ends, so its first query is the scan itself:
+  // it starts as soon as a rule asks, while the other rules compute
   const drop = async () => {
     for (const t of ['nr_unit_ids', 'nr_unit_cells', 'nr_unit_keys']) await db.run(`DROP TABLE IF EXISTS ${t}`);
   };
-  await drop();
   try {
     // grouped on a 64-bit hash of the key, not the key itself: the hash table of ten million IDs
     // then fits the memory limit. Two keys that share a hash only come to stage 2, which splits

@@ -24,6 +24,13 @@ export interface RuleMeta {
   messages: Record<string, MessageTemplate>;
   /** where each threshold comes from, or "common practice" */
   sources: string[];
+  /**
+   * Look-ups over the whole delivery that the check will ask for when the role map gives what
+   * they need ('unit-ids': lookup.unitIds of the unit column). The audit starts them as soon as
+   * the profile has read the delivery, so they run while the profile's result is converted and
+   * the rules compute, instead of after.
+   */
+  prefetch?: readonly 'unit-ids'[];
 }
 
 /** What a rule's check returns; the engine adds the rule id, severity and rendered text. */

@@ -77,6 +77,7 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
     throw e;
   }
   const con = await instance.connect();
+  const lookupConnections = await Promise.all(Array.from({ length: LOOKUP_CONNECTIONS }, () => instance.connect()));
   const cleanup: string[] = [spill];
   track(spill);
   let closed = false;
@@ -85,7 +86,7 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
     cleanup,
     memoryBytes: parseSize(options.memoryLimit ?? '512MB'),
     all: (sql) => readAll(con, sql),
-    lookups: connectionPool(() => instance.connect(), LOOKUP_CONNECTIONS),
+    lookups: connectionPool(lookupConnections),
     close() {
       if (closed) return;
       closed = true;
@@ -138,7 +139,9 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
   // read every column (a filter that uses them all and is always true)
   const everyColumn = `hash(${header.map(ident).join(', ')}) IS NOT NULL`;
   let guarded = false;
+  let viewVersion = 0;
   const define = async () => {
+    viewVersion++;
     const rel = layout.relation(storage) + (guarded ? ` WHERE ${everyColumn}` : '');
     if (layout.numbering === 'rowid') {
       await con.run(`CREATE OR REPLACE VIEW nr_numbered AS SELECT *${group} FROM ${rel}`);
@@ -165,8 +168,11 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
     textOnly,
     view: 'nr_delivery',
     numbered: 'nr_numbered',
+    get viewVersion() {
+      return viewVersion;
+    },
     all: (sql) => engine.lookups.use((c) => readAll(c, sql)),
-    columns: (sql) => readColumns(engine, sql),
+    columns: (sql, options) => readColumns(engine, sql, options?.onScanned),
     session: (fn) =>
       engine.lookups.use((c) =>
         fn({
@@ -299,8 +305,8 @@ const GROWTH = 4;
  * result): a DOUBLE column without NULLs becomes a Float64Array, repeated strings share one
  * copy. A result of a million groups then costs about 8 bytes per number, not a boxed value.
  */
-export function readColumns(engine: DuckEngine, sql: string): Promise<Record<string, unknown[]>> {
-  return withMemory(engine, () => streamColumns(engine.con, sql));
+export function readColumns(engine: DuckEngine, sql: string, onScanned?: () => void): Promise<Record<string, unknown[]>> {
+  return withMemory(engine, () => streamColumns(engine.con, sql, onScanned));
 }
 
 /**
@@ -346,13 +352,15 @@ class DoubleColumn {
   }
 }
 
-async function streamColumns(con: DuckDBConnection, sql: string): Promise<Record<string, unknown[]>> {
+async function streamColumns(con: DuckDBConnection, sql: string, onScanned?: () => void): Promise<Record<string, unknown[]>> {
   const result = await con.stream(sql);
   const names = result.columnNames();
   const cols: (unknown[] | DoubleColumn | null)[] = names.map(() => null);
   const interned = names.map(() => new Map<string, string>());
-  for (;;) {
+  for (let first = true; ; first = false) {
     const chunk = await result.fetchChunk();
+    // an aggregate's first chunk comes once its input has been read in full
+    if (first) onScanned?.();
     const rows = chunk?.rowCount ?? 0; // a native call: read once per chunk
     if (!chunk || rows === 0) break;
     for (let i = 0; i < names.length; i++) {

@@ -10,44 +10,40 @@ export interface ConnectionPool {
  * A few connections for the rules' look-ups, so that two of them (say the unit-ID check and
  * the records of the one-record groups) run at once: each scan leaves part of the two cores
  * idle (a numbered scan is partly serial), and on 1 million rows the pair took 0.52-0.66 s
- * at once against 0.79 s one after the other. `size` bounds the scans (and their memory) in
- * flight.
+ * at once against 0.79 s one after the other. The pool's size bounds the scans (and their
+ * memory) in flight.
  *
- * @param open makes a new connection
- * @param size connections at most
+ * The connections are opened beforehand, so a free one is lent at once and a look-up reaches
+ * the database in the same turn of the event loop as the rule that asks for it, not after the
+ * other rules' computing (see runRules).
+ *
+ * @param connections the open connections to lend
  */
-export function connectionPool(open: () => Promise<DuckDBConnection>, size: number): ConnectionPool {
-  const opened: DuckDBConnection[] = [];
-  const idle: DuckDBConnection[] = [];
+export function connectionPool(connections: readonly DuckDBConnection[]): ConnectionPool {
+  const idle = [...connections];
   const waiting: ((con: DuckDBConnection) => void)[] = [];
-  let reserved = 0;
-  const acquire = async (): Promise<DuckDBConnection> => {
-    const free = idle.pop();
-    if (free) return free;
-    if (reserved < size) {
-      reserved++;
-      const con = await open();
-      opened.push(con);
-      return con;
-    }
-    return new Promise((resolve) => waiting.push(resolve));
-  };
   const release = (con: DuckDBConnection) => {
     const next = waiting.shift();
     if (next) next(con);
     else idle.push(con);
   };
   return {
-    async use(fn) {
-      const con = await acquire();
-      try {
-        return await fn(con);
-      } finally {
-        release(con);
-      }
+    use<T>(fn: (con: DuckDBConnection) => Promise<T>): Promise<T> {
+      const run = (con: DuckDBConnection) => {
+        // fn called synchronously: its first query starts in this turn of the event loop
+        let lent: Promise<T>;
+        try {
+          lent = fn(con);
+        } catch (e) {
+          lent = Promise.reject(e);
+        }
+        return lent.finally(() => release(con));
+      };
+      const free = idle.pop();
+      return free ? run(free) : new Promise<DuckDBConnection>((resolve) => waiting.push(resolve)).then(run);
     },
     close() {
-      for (const con of opened) con.closeSync();
+      for (const con of connections) con.closeSync();
     },
   };
 }

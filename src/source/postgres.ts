@@ -99,7 +99,9 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
           return `${expr} AS ${c}`;
         })
         .join(', ');
+    let viewVersion = 0;
     const define = async () => {
+      viewVersion++;
       const list = select();
       // a view's column types cannot change in place (a probed column settled as numbers)
       await client.query('DROP VIEW IF EXISTS pg_temp.nr_delivery, pg_temp.nr_numbered');
@@ -121,7 +123,11 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
       textOnly: hints.textOnly,
       view: 'nr_delivery',
       numbered: 'nr_numbered',
+      get viewVersion() {
+        return viewVersion;
+      },
       all,
+      // no onScanned: the one client runs one query at a time, so a look-up could not run beside
       async columns(sql) {
         const res = await client.query({ text: sql, rowMode: 'array' });
         const out: Record<string, unknown[]> = {};

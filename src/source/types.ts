@@ -49,9 +49,16 @@ export interface Source {
   all<T = Record<string, unknown>>(sql: string): Promise<T[]>;
   /**
    * Run a full read and return its result by column (the profile's group table): on the one
-   * connection whose log of unreadable lines `rejects()` reads
+   * connection whose log of unreadable lines `rejects()` reads. `onScanned` is called (where the
+   * source can tell) once the delivery has been read and the result is being fetched.
    */
-  columns(sql: string): Promise<Record<string, unknown[]>>;
+  columns(sql: string, options?: { onScanned?: () => void }): Promise<Record<string, unknown[]>>;
+  /**
+   * Counts the redefinitions of `view` (a column read as text after a value in it was not a
+   * number, …): a look-up's result holds for the version it read. `onScanned` of `columns` may be
+   * called while a later redefinition is still to come.
+   */
+  readonly viewVersion: number;
   /** run `fn` on one session of its own: the temp tables it makes are its own and stay until it drops them */
   session<T>(fn: (session: Session) => Promise<T>): Promise<T>;
   /** rejected lines of the latest full read */
