@@ -39,6 +39,11 @@ export interface AuditOptions {
   strict?: boolean;
   /** what the report calls a file input (default its path; the CLI passes "-" for a spooled stdin) */
   displayPath?: string;
+  /**
+   * compute the report's `plots` (default true): the HTML and Markdown reports read them; a JSON
+   * or terminal report does not (at 5,000 groups they cost 0.03-0.05 s: a REML fit per level-1 column)
+   */
+  plotData?: boolean;
 }
 
 /** A delivery: a file path (`-` for standard input), or a table or query in PostgreSQL. */
@@ -87,7 +92,7 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
     // are let finish before an error is passed on (none may be left querying a closed source)
     const [ran, plotted] = await Promise.allSettled([
       runRules(catalogue, { profile, roles, outcomes, lookup }, { includeValues: options.includeValues ?? true }),
-      (async () => buildPlotData(profile, roles, outcomes))(),
+      (async () => (options.plotData === false ? undefined : buildPlotData(profile, roles, outcomes)))(),
     ]);
     if (ran.status === 'rejected') throw ran.reason;
     if (plotted.status === 'rejected') throw plotted.reason;
@@ -101,7 +106,7 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
       outcomes,
       findings,
       ...grade(findings),
-      plots,
+      ...(plots && { plots }),
       rulesRun: rulesRun(catalogue, roles),
     };
   } finally {

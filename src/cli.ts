@@ -9,7 +9,7 @@ import { startProgress } from './cli-progress.js';
 import { problemsCsv } from './problems/csv.js';
 import { DEFAULT_MAX_ROWS } from './problems/types.js';
 import { catalogueJson, catalogueMarkdown, catalogueText } from './report/catalogue.js';
-import { REPORT_FORMATS, renderReport } from './report/render.js';
+import { needsPlotData, REPORT_FORMATS, renderReport } from './report/render.js';
 import type { ReportFormat } from './report/render.js';
 import { PRESETS } from './presets/index.js';
 import type { PresetName } from './presets/index.js';
@@ -113,7 +113,10 @@ function buildProgram(): Command {
         const stop = startProgress(resolved.label, 'auditing', { quiet: flags.quiet === true });
         // the engine (DuckDB, arquero, stats) loads only for an audit: `rules` and `schema` start fast
         const { audit } = await import('./audit.js');
+        const targets = planOutputs(flags.out, flags.format);
+        const withPlotData = flags.withPlotData === true;
         const report = await audit(resolved.input, roles, {
+          plotData: targets.some((t) => needsPlotData(t.format, { withPlotData })),
           includeValues: flags.values,
           memoryLimit: flags.memoryLimit,
           inputFormat: flags.inputFormat,
@@ -122,8 +125,8 @@ function buildProgram(): Command {
           strict: flags.strict === true,
           displayPath: resolved.displayPath,
         }).finally(stop);
-        for (const target of planOutputs(flags.out, flags.format)) {
-          const options = { color: colorLevel(flags, target.path !== null), failOn: flags.failOn, withPlotData: flags.withPlotData === true };
+        for (const target of targets) {
+          const options = { color: colorLevel(flags, target.path !== null), failOn: flags.failOn, withPlotData };
           writeOutput(target, await renderReport(report, target.format, options));
         }
         if (flags.problems) {

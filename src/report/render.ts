@@ -28,6 +28,11 @@ export const RENDERERS = {
 export type ReportFormat = keyof typeof RENDERERS;
 export const REPORT_FORMATS = Object.keys(RENDERERS) as ReportFormat[];
 
+/** Whether a format reads the report's `plots` (JSON only with `withPlotData`): the audit can skip them otherwise. */
+export function needsPlotData(format: ReportFormat, options: Pick<RenderOptions, 'withPlotData'>): boolean {
+  return format === 'html' || format === 'md' || (format === 'json' && options.withPlotData);
+}
+
 /** Render a report in one format. */
 export async function renderReport(report: Report, format: ReportFormat, options: RenderOptions): Promise<string> {
   return RENDERERS[format](report, options);

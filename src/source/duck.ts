@@ -14,7 +14,7 @@ import type { RejectedLine, Source, SourceFormat } from './types.js';
 
 // required, not imported: importing this CommonJS package from an ES module makes Node scan its
 // sixty files for their export names first, about 70 ms of every run
-const { DuckDBDoubleVector, DuckDBInstance, JSDuckDBValueConverter } = createRequire(import.meta.url)('@duckdb/node-api') as typeof DuckDB;
+const { DuckDBDoubleVector, DuckDBInstance, DuckDBVarCharVector, JSDuckDBValueConverter } = createRequire(import.meta.url)('@duckdb/node-api') as typeof DuckDB;
 
 /** An embedded DuckDB with its own spill directory (deleted on close). */
 export interface DuckEngine {
@@ -374,12 +374,14 @@ async function streamColumns(con: DuckDBConnection, sql: string, onScanned?: () 
           continue;
         }
       }
-      const values = chunk.convertColumnValues(i, JSDuckDBValueConverter);
       let col = cols[i];
       if (col === null) col = cols[i] = [];
       if (col instanceof DoubleColumn) col = cols[i] = col.done().slice();
       const pool = interned[i];
-      for (const v of values) {
+      // text straight from the vector (a string or null each); other types through the converter
+      const values = vector instanceof DuckDBVarCharVector ? null : chunk.convertColumnValues(i, JSDuckDBValueConverter);
+      for (let r = 0; r < rows; r++) {
+        const v = values ? values[r] : (vector as DuckDB.DuckDBVarCharVector).getItem(r);
         if (typeof v === 'string' && pool.size < 65536) {
           let same = pool.get(v);
           if (same === undefined) pool.set(v, (same = v));

@@ -53,7 +53,7 @@ export async function openDelivery(path: string, roles: Roles, options: OpenOpti
       case 'csv':
       case 'tsv':
         layout = await csvLayout(engine, file, display, detected.format, roles, missing, {
-          ...(detected.format === 'tsv' ? { delim: '\t' } : {}),
+          ...(detected.format === 'tsv' ? { delim: '\t' } : detected.delimiter !== undefined ? { delim: detected.delimiter } : {}),
           ...(options.encoding === 'latin1' ? { encoding: 'latin-1' as const } : {}),
           ...(detected.gzip && !/\.gz$/i.test(file) ? { compression: 'gzip' as const } : {}),
         });

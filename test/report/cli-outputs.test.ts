@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { planOutputs } from '../../src/cli-output.js';
-import { formatForPath } from '../../src/report/render.js';
+import { formatForPath, needsPlotData, REPORT_FORMATS } from '../../src/report/render.js';
 import { nestready } from '../helpers/cli.js';
 
 // needs the build: npm run build --silent
@@ -22,6 +22,13 @@ describe('output selection', () => {
     expect(formatForPath('dir.html/report')).toBeUndefined();
     expect(planOutputs([], 'md')).toEqual([{ path: null, format: 'md' }]);
     expect(planOutputs(['a.html', 'b.out'], 'junit')).toEqual([{ path: 'a.html', format: 'html' }, { path: 'b.out', format: 'junit' }]);
+  });
+
+  it('the plots are computed only for a format that reads them', () => {
+    const needs = REPORT_FORMATS.filter((f) => needsPlotData(f, { withPlotData: false }));
+    expect(needs.sort()).toEqual(['html', 'md']);
+    expect(needsPlotData('json', { withPlotData: true })).toBe(true);
+    expect(needsPlotData('text', { withPlotData: true })).toBe(false);
   });
 });
 

@@ -108,3 +108,18 @@ describe('plot helpers', () => {
     expect([...idx].sort((a, b) => a - b)).toEqual(idx);
   });
 });
+
+describe('audit({ plotData: false })', () => {
+  it('leaves the plots out and changes nothing else', async () => {
+    const { auditRows } = await import('../helpers/delivery.js');
+    const rows = Array.from({ length: 60 }, (_, i) => ({ g: `G${i % 6}`, x: (i * 7) % 5, y: (i % 6) + ((i * 3) % 4) }));
+    const roles = { group: 'g', outcome: 'y', level1: ['x'] };
+    const withPlots = await auditRows(rows, roles);
+    const without = await auditRows(rows, roles, { plotData: false });
+    expect(withPlots.plots).toBeDefined();
+    expect(without.plots).toBeUndefined();
+    // each audit reads its own temp copy of the delivery: the paths differ
+    const { plots: _plots, ...rest } = withPlots;
+    expect({ ...without, input: { ...without.input, path: '' } }).toEqual({ ...rest, input: { ...rest.input, path: '' } });
+  });
+});

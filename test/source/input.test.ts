@@ -2,7 +2,7 @@ import { spawnSync } from 'node:child_process';
 import { readFileSync, readdirSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { describe, expect, it } from 'vitest';
-import { detectFormat } from '../../src/source/detect.js';
+import { delimiterHint, detectFormat } from '../../src/source/detect.js';
 
 const CLI = 'bin/nestready.js';
 const ROLES = 'fixtures/demo/repairs-delivery.roles.yaml';
@@ -29,7 +29,21 @@ describe('formats are detected from the extension and the content', () => {
     ['repairs.csv.gz', 'csv', true],
     ['repairs-bom.csv', 'csv', false],
   ])('%s is %s', (file, format, gzip) => {
-    expect(detectFormat(`${F}/${file}`)).toEqual({ format, gzip });
+    const delimiter = format === 'csv' ? { delimiter: ',' } : {};
+    expect(detectFormat(`${F}/${file}`)).toEqual({ format, gzip, ...delimiter });
+  });
+
+  it.each([
+    ['a,b,c\n1,2,3\n', ','],
+    ['a;b;c\r\n1,5;2;3\r\n', ';'], // a decimal comma is not in the header
+    ['a\tb\n1\t2\n', '\t'],
+    ['a|b\n1|2\n', '|'],
+    ['a,b\n"x,y",2\n', undefined], // a quoted delimiter: left to DuckDB's sniffer
+    ['a;b,c\n1;2\n', undefined], // two candidates in the header
+    ['a\n1\n', undefined], // one column
+    ['a,b\n1,2', undefined], // the second line may be cut off
+  ])('the delimiter of %j is plain: %j', (text, delim) => {
+    expect(delimiterHint(text)).toBe(delim);
   });
 
   it('the user\'s --input-format wins', () => {
