@@ -41,7 +41,7 @@ export function planColumns(
         s === 'double' ||
         hints.probe?.has(name) === true ||
         (isVariable && roles.types[name] !== 'categorical' && !hints.textOnly?.has(name));
-      return { name, storage: s, numeric };
+      return { name, storage: s, numeric, ...(name === roles.unit && { textRange: false }) };
     });
 }
 

@@ -22,8 +22,9 @@ export function columnProfile(
   }
   const nonMissing = sum(raw.array(key(name, 'nn')) as number[]);
   const text = plan.storage === 'text';
-  const mins = text ? (raw.array(key(name, 'min')) as (string | null)[]).filter(notNull) : [];
-  const maxs = text ? (raw.array(key(name, 'max')) as (string | null)[]).filter(notNull) : [];
+  const ranged = text && plan.textRange !== false;
+  const mins = ranged ? (raw.array(key(name, 'min')) as (string | null)[]).filter(notNull) : [];
+  const maxs = ranged ? (raw.array(key(name, 'max')) as (string | null)[]).filter(notNull) : [];
   const p = base(name, role, 'categorical', plan.storage, nonMissing, rows, minOf(mins), maxOf(maxs));
   if (!plan.numeric) return { ...p, type: roles.types[name] ?? 'categorical' };
 

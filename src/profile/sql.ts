@@ -8,6 +8,11 @@ export interface ProfileColumnPlan {
   storage: Storage;
   /** compute per-group numeric statistics (for a text column: of the values that read as numbers) */
   numeric: boolean;
+  /**
+   * a text column's per-group min and max (equal ⇔ constant in the group); false for the unit
+   * ID, whose constancy within a group no rule asks about (two string aggregates over every record)
+   */
+  textRange?: boolean;
 }
 
 /** Aggregate key for column `c` and statistic `stat`, e.g. `visits:mean`. */
@@ -30,7 +35,7 @@ export function profileQuery(view: string, group: string, plan: readonly Profile
     const c = ident(col.name);
     inner.push(`${c} AS t${i}`);
     aggs.push(`${d.double(`count(t${i})`)} AS ${as('nn')}`);
-    if (col.storage === 'text') aggs.push(`min(${d.ordered(`t${i}`)}) AS ${as('min')}`, `max(${d.ordered(`t${i}`)}) AS ${as('max')}`);
+    if (col.storage === 'text' && col.textRange !== false) aggs.push(`min(${d.ordered(`t${i}`)}) AS ${as('min')}`, `max(${d.ordered(`t${i}`)}) AS ${as('max')}`);
     if (!col.numeric) return;
     // a text column's numeric reading is cast once here, not once per aggregate
     const x = col.storage === 'double' ? `t${i}` : `x${i}`;

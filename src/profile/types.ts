@@ -19,6 +19,7 @@ export interface ColumnProfile {
   missing: number;
   /** non-missing values that read as numbers (only when numericProfiled) */
   numeric: number;
+  /** smallest and largest value read as text (null for the unit ID: its per-group range is not profiled) */
   min: string | null;
   max: string | null;
   numMin: number | null;
@@ -36,7 +37,7 @@ export interface Profile {
   missingGroupRows: number;
   /**
    * One row per group with a non-missing ID. Columns: `group` (the ID as text), `n` (records),
-   * and per column c other than the group: `c:nn` non-missing; for columns read as text `c:min`,
+   * and per column c other than the group: `c:nn` non-missing; for columns read as text (but the unit ID) `c:min`,
    * `c:max` (text; equal ⇔ constant in the group); for numeric-profiled columns `c:num` (values
    * that are numbers), `c:nmin`, `c:nmax`, `c:mean`, `c:ss` (within-group sum of squares).
    */
