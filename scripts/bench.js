@@ -440,7 +440,7 @@ console.log(
   ),
 );
 console.log(
-  '\n  node start    = process start -> bench-child.js body runs; import cli = the bundled dist/bundle/cli.js (commander, ajv, yaml, the rules; the engine loads in main)' +
+  '\n  node start    = process start -> bench-child.js body runs; import cli = the bundled dist/bundle/cli.js (commander, yaml, the rules; the engine loads in main)' +
     '\n  main          = the audit itself: to profile q + profile q + after profile' +
     '\n  to profile q  = main() start -> profiling GROUP BY issued (role map, DuckDB instance, views, dialect/type sniff)' +
     '\n  profile q     = the one profiling GROUP BY incl. fetching its result into JS' +

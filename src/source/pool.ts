@@ -8,10 +8,10 @@ export interface ConnectionPool {
 
 /**
  * A few connections for the rules' look-ups, so that two of them (say the unit-ID check and
- * the records of the one-record groups) run at once: each scan leaves part of the two cores
- * idle (a numbered scan is partly serial), and on 1 million rows the pair took 0.52-0.66 s
- * at once against 0.79 s one after the other. The pool's size bounds the scans (and their
- * memory) in flight.
+ * the numbered records of a level-2 variable that varies) run at once: each scan leaves part of
+ * the two cores idle (a numbered scan is partly serial), and on 1 million rows such a pair took
+ * 0.52-0.66 s at once against 0.79 s one after the other. The pool's size bounds the scans (and
+ * their memory) in flight.
  *
  * The connections are opened beforehand, so a free one is lent at once and a look-up reaches
  * the database in the same turn of the event loop as the rule that asks for it, not after the
