@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { createEngine, readColumns } from '../../src/source/duck.js';
+import { catalogue } from '../../rules/index.js';
+import { parseRoles } from '../../src/roles/load.js';
+import { createEngine, manyGroups, readColumns } from '../../src/source/duck.js';
+import { openDelivery } from '../../src/source/open.js';
+import { writeDelivery } from '../helpers/delivery.js';
+import type { Row } from '../helpers/delivery.js';
 
 // An aggregate whose size the data decides (here 250,000 groups with text states) does not fit a
 // tiny limit; the engine raises the limit fourfold and runs it again rather than failing
@@ -26,5 +31,38 @@ describe('memory limit raised for a large aggregate', () => {
     } finally {
       engine.close();
     }
+  });
+});
+
+describe('a delivery whose first records show very many groups', () => {
+  it('manyGroups: half the sampled records in groups of their own, and at least 10,240 groups', () => {
+    expect(manyGroups(20480, 20480)).toBe(true);
+    expect(manyGroups(20480, 10240)).toBe(true);
+    expect(manyGroups(20480, 10239)).toBe(false);
+    expect(manyGroups(20480, 4900)).toBe(false); // 5,000 groups in random order
+    expect(manyGroups(2000, 2000)).toBe(false); // a small delivery
+    expect(manyGroups(0, 0)).toBe(false);
+  });
+
+  async function limitAfterOpen(groupsOf: (i: number) => string): Promise<string> {
+    const rows: Row[] = Array.from({ length: 24_000 }, (_, i) => ({ g: groupsOf(i), y: i % 7 }));
+    const d = writeDelivery(rows, 'group: g\n');
+    const { roles } = parseRoles('group: g\noutcome: y\n', 'roles.yaml', catalogue);
+    const source = await openDelivery(d.csv, roles, { missing: roles.missing, memoryLimit: '64MB', threads: 1 });
+    try {
+      const [{ limit }] = await source.all<{ limit: string }>("SELECT current_setting('memory_limit') AS limit");
+      return limit;
+    } finally {
+      await source.close();
+      d.remove();
+    }
+  }
+
+  it('opens with four times the memory limit; few groups leave it alone', async () => {
+    const many = await limitAfterOpen((i) => `G${i}`);
+    const few = await limitAfterOpen((i) => `G${i % 50}`);
+    const mib = (s: string) => Number(/([\d.]+)\s*MiB/.exec(s)?.[1]);
+    expect(mib(few)).toBeCloseTo(64e6 / 2 ** 20, 0); // 61.0 MiB
+    expect(mib(many)).toBeCloseTo((4 * 64e6) / 2 ** 20, 0); // 244.1 MiB
   });
 });
