@@ -128,14 +128,14 @@ export interface DuckLayout {
 export const SAMPLE_ROWS = 20480;
 
 /**
- * Whether the first records show very many groups: at least half of them in groups of their own
- * (10,240 group IDs in 20,480 records). The profile of such a delivery (tens of thousands of
+ * Whether the first records show very many groups: at least half of a full sample in groups of
+ * their own (10,240 group IDs in the 20,480 records). The profile of such a delivery (tens of thousands of
  * groups and more; at the default limit about 95,000 ran out of memory) then starts at four times
  * the memory limit rather than failing once first (0.5-1 s lost at 1M rows). A delivery sorted by
  * group shows few groups here and keeps the retry.
  */
-export function manyGroups(sampledRows: number, sampledGroups: number): boolean {
-  return sampledRows > 0 && sampledGroups >= sampledRows / 2 && sampledGroups >= SAMPLE_ROWS / 2;
+export function manyGroups(sampledGroups: number): boolean {
+  return sampledGroups >= SAMPLE_ROWS / 2;
 }
 
 /** The Source over a layout: the views nr_delivery and nr_numbered, the sample hints, the look-up API. */
@@ -167,8 +167,8 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
   await define();
 
   const ids = new Set([roles.group, roles.unit, roles.parent]);
-  const { probe, textOnly, sampledRows, sampledGroups } = await sampleHints(all, layout.sample ? `(SELECT * FROM ${layout.sample()} WHERE ${everyColumn})` : 'nr_delivery', header, storage, roles, ids, !layout.typedReader, duckdb.numeric);
-  if (manyGroups(sampledRows, sampledGroups)) await raiseMemory(engine);
+  const { probe, textOnly, sampledGroups } = await sampleHints(all, layout.sample ? `(SELECT * FROM ${layout.sample()} WHERE ${everyColumn})` : 'nr_delivery', header, storage, roles, ids, !layout.typedReader, duckdb.numeric);
+  if (manyGroups(sampledGroups)) await raiseMemory(engine);
 
   return {
     path: layout.path,
@@ -241,12 +241,11 @@ export async function sampleHints(
   ids: Set<string | undefined>,
   probing: boolean,
   numeric: (expr: string) => string,
-): Promise<{ probe: Set<string>; textOnly: Set<string>; sampledRows: number; sampledGroups: number }> {
+): Promise<{ probe: Set<string>; textOnly: Set<string>; sampledGroups: number }> {
   const probe = new Set<string>();
   const textOnly = new Set<string>();
   const candidates = header.filter((c) => storage.get(c) === 'text' && !ids.has(c) && roles.types[c] !== 'categorical');
   const aggs = [
-    'count(*) AS sampled_rows',
     `count(DISTINCT ${ident(roles.group)}) AS sampled_groups`,
     ...candidates.map((c, i) => `count(${ident(c)}) AS n${i}, count(${numeric(ident(c))}) AS k${i}`),
   ];
@@ -259,7 +258,7 @@ export async function sampleHints(
     if (probing && n > 0 && k === n) probe.add(c);
     else if (n > 0 && k === 0 && roles.types[c] === undefined) textOnly.add(c);
   });
-  return { probe, textOnly, sampledRows: Number(row.sampled_rows), sampledGroups: Number(row.sampled_groups) };
+  return { probe, textOnly, sampledGroups: Number(row.sampled_groups) };
 }
 
 /** Missing tokens that are numbers, compared as numbers in numeric columns ("-999" ↔ -999.0). */
