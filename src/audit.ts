@@ -1,12 +1,13 @@
 import { catalogue as builtIn } from '../rules/index.js';
+import { buildPlotData } from './analysis/plot-data.js';
+import { plotThresholds } from './analysis/plot-thresholds.js';
+import { rulesRun } from './analysis/rules-run.js';
 import { grade } from './grade.js';
 import { buildProfile, loadArquero } from './profile/build.js';
 import type { Profile } from './profile/types.js';
 import { checkColumns } from './roles/check-columns.js';
 import type { LoadedRoles } from './roles/load.js';
 import type { Roles } from './roles/types.js';
-import { buildPlotData } from './report/plot-data.js';
-import { rulesRun } from './report/rules-run.js';
 import { REPORT_SCHEMA } from './report/types.js';
 import type { Report } from './report/types.js';
 import type { AnyRule } from './rules/define.js';
@@ -92,7 +93,7 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
     // are let finish before an error is passed on (none may be left querying a closed source)
     const [ran, plotted] = await Promise.allSettled([
       runRules(catalogue, { profile, roles, outcomes, lookup }, { includeValues: options.includeValues ?? true }),
-      (async () => (options.plotData === false ? undefined : buildPlotData(profile, roles, outcomes)))(),
+      (async () => (options.plotData === false ? undefined : buildPlotData(profile, roles, outcomes, plotThresholds(catalogue, roles))))(),
     ]);
     if (ran.status === 'rejected') throw ran.reason;
     if (plotted.status === 'rejected') throw plotted.reason;

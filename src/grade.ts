@@ -1,4 +1,8 @@
 import type { Finding } from './rules/types.js';
+import { failsGate } from './severity.js';
+import type { FailOn } from './severity.js';
+
+export type { FailOn };
 
 export type Verdict = 'ready' | 'caveats' | 'not-ready';
 export type Grade = 'A' | 'B' | 'C' | 'D' | 'F';
@@ -40,11 +44,7 @@ export function grade(findings: readonly Finding[]): Graded {
   return { score, grade: g, verdict };
 }
 
-export type FailOn = 'blocker' | 'warning' | 'never';
-
 /** Exit code of the gate: 1 when a finding at or above `failOn` exists, else 0. */
 export function exitCode(findings: readonly Finding[], failOn: FailOn): 0 | 1 {
-  if (failOn === 'never') return 0;
-  const failing = failOn === 'blocker' ? ['blocker'] : ['blocker', 'warning'];
-  return findings.some((f) => failing.includes(f.severity)) ? 1 : 0;
+  return findings.some((f) => failsGate(f.severity, failOn)) ? 1 : 0;
 }

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parse } from 'yaml';
 import { catalogue } from '../rules/index.js';
-import { SEVERITY_ORDER } from '../src/rules/engine.js';
+import { SEVERITY_ORDER } from '../src/severity.js';
 import type { Report } from '../src/report/types.js';
 import { createAjv } from '../src/util/ajv.js';
 import { groupedRows, toCsv } from './helpers/delivery.js';

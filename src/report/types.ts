@@ -1,6 +1,7 @@
 import type { Grade, Verdict } from '../grade.js';
 import type { Roles } from '../roles/types.js';
-import type { Finding, RuleLevel } from '../rules/types.js';
+import type { PlotData, RuleRun } from '../analysis/types.js';
+import type { Finding } from '../rules/types.js';
 import type { OutcomeStats } from '../stats/types.js';
 
 export const REPORT_SCHEMA = 'nestready/report@1';
@@ -18,7 +19,8 @@ export interface Report {
   grade: Grade;
   verdict: Verdict;
   /**
-   * What the HTML plots need, so that no renderer goes back to the data (see buildPlotData).
+   * What the HTML plots need, computed before rendering so that no renderer goes back to the data
+   * (src/analysis, buildPlotData).
    * Not one of the stable JSON fields: `--format json` leaves it out unless `--with-plot-data`.
    */
   plots?: PlotData;
@@ -30,43 +32,4 @@ export interface Report {
   rulesRun?: RuleRun[];
 }
 
-/** One rule that ran. */
-export interface RuleRun {
-  id: string;
-  title: string;
-  level: RuleLevel;
-}
-
-/** Sizes and counts for the plots, bounded in size however many groups the delivery has. */
-export interface PlotData {
-  /** histogram of group sizes, ascending by size: `count` groups hold `size` records */
-  groupSizes: { size: number; count: number }[];
-  /** per numeric outcome, group means with their standard errors (at most MAX_GROUP_MEANS points) */
-  groupMeans: Record<string, GroupMeans>;
-  /** per numeric level-1 column, the share of its variance between groups */
-  predictorShares: Record<string, { reml: number; anova: number }>;
-  /** groups below this many records count as small (marked on the size plot) */
-  smallGroupThreshold?: number;
-  /** the ICC below which low-icc speaks (marked on the ICC plots); absent when the rule is off */
-  lowIccThreshold?: number;
-}
-
-/** Group means of one outcome, sorted by mean; a bounded sample when there are many groups. */
-export interface GroupMeans {
-  /** groups with at least one value of the outcome */
-  total: number;
-  /** σ² (REML) that the standard errors use: se_j = sqrt(σ² / n_j) */
-  sigma2: number;
-  /** the REML estimate of the overall mean μ */
-  mean: number;
-  points: GroupMean[];
-}
-
-export interface GroupMean {
-  group: string;
-  /** 1-based position among all `total` groups sorted by mean */
-  rank: number;
-  n: number;
-  mean: number;
-  se: number;
-}
+export type { GroupMean, GroupMeans, PlotData, RuleRun } from '../analysis/types.js';

@@ -1,9 +1,8 @@
 import type { Roles, Severity } from '../roles/types.js';
+import { SEVERITY_ORDER } from '../severity.js';
 import { createAjv } from '../util/ajv.js';
 import type { AnyRule } from './define.js';
 import type { Finding, FindingDraft, RuleContext } from './types.js';
-
-export const SEVERITY_ORDER: Record<Severity, number> = { blocker: 0, warning: 1, note: 2 };
 
 export interface EngineOptions {
   /** leave raw data values out of findings (IDs and record numbers stay: they are the fix) */

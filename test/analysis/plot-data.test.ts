@@ -2,10 +2,12 @@ import * as aq from 'arquero';
 import { describe, expect, it } from 'vitest';
 import type { ColumnProfile, Profile } from '../../src/profile/types.js';
 import type { Roles } from '../../src/roles/types.js';
-import { buildPlotData, SMALL_GROUP_THRESHOLD } from '../../src/report/plot-data.js';
-import { cappedIndices } from '../../src/report/plots/capped-indices.js';
-import { GROUP_MEAN_ENDS, MAX_GROUP_MEANS } from '../../src/report/plots/group-means.js';
-import { sizeHistogram } from '../../src/report/plots/size-histogram.js';
+import { catalogue } from '../../rules/index.js';
+import { cappedIndices } from '../../src/analysis/capped-indices.js';
+import { GROUP_MEAN_ENDS, MAX_GROUP_MEANS } from '../../src/analysis/group-means.js';
+import { buildPlotData } from '../../src/analysis/plot-data.js';
+import { plotThresholds, SMALL_GROUP_THRESHOLD } from '../../src/analysis/plot-thresholds.js';
+import { sizeHistogram } from '../../src/analysis/size-histogram.js';
 import { outcomeStats } from '../../src/stats/index.js';
 import type { GroupMoments } from '../../src/stats/types.js';
 
@@ -48,7 +50,7 @@ describe('buildPlotData', () => {
   const stats = outcomeStats(profile.moments('y'));
 
   it('histograms group sizes and sorts group means with se = sqrt(σ²_REML / n_j)', () => {
-    const plots = buildPlotData(profile, roles(), { y: stats });
+    const plots = buildPlotData(profile, roles(), { y: stats }, {});
     expect(plots.groupSizes).toEqual([{ size: 1, count: 1 }, { size: 3, count: 2 }, { size: 4, count: 1 }]);
     const m = plots.groupMeans.y;
     expect(m.total).toBe(3); // D has no value of y
@@ -59,24 +61,39 @@ describe('buildPlotData', () => {
   });
 
   it('gives each numeric level-1 column its REML and ANOVA between-group share, skipping categorical ones', () => {
-    const plots = buildPlotData(profile, roles(), { y: stats });
+    const plots = buildPlotData(profile, roles(), { y: stats }, {});
     const x = outcomeStats(profile.moments('x'));
     expect(plots.predictorShares).toEqual({ x: { reml: x.reml.icc, anova: x.anova.icc } });
   });
 
-  it('carries the thresholds: low-icc from the role map, absent when the rule is off', () => {
-    expect(buildPlotData(profile, roles(), {}).lowIccThreshold).toBe(0.05);
-    // from the small-groups rule once the catalogue has it, else the documented default (both 5)
-    expect(buildPlotData(profile, roles(), {}).smallGroupThreshold).toBe(SMALL_GROUP_THRESHOLD);
-    expect(buildPlotData(profile, roles({ rules: { 'low-icc': { icc_below: 0.1 } } }), {}).lowIccThreshold).toBe(0.1);
-    expect(buildPlotData(profile, roles({ rules: { 'low-icc': 'off' } }), {}).lowIccThreshold).toBeUndefined();
+  it('carries the thresholds it is given, and only those', () => {
+    expect(buildPlotData(profile, roles(), {}, { smallGroups: 3, lowIcc: 0.1 })).toMatchObject({ smallGroupThreshold: 3, lowIccThreshold: 0.1 });
+    const none = buildPlotData(profile, roles(), {}, {});
+    expect('smallGroupThreshold' in none || 'lowIccThreshold' in none).toBe(false);
+  });
+});
+
+describe('plotThresholds', () => {
+  it('reads the thresholds from the params the rules run with: defaults, role map settings, off', () => {
+    expect(plotThresholds(catalogue, roles())).toEqual({ smallGroups: 5, lowIcc: 0.05 });
+    expect(plotThresholds(catalogue, roles({ rules: { 'low-icc': { icc_below: 0.1 }, 'small-groups': { size_below: 8 } } }))).toEqual({
+      smallGroups: 8,
+      lowIcc: 0.1,
+    });
+    expect(plotThresholds(catalogue, roles({ rules: { 'low-icc': 'off', 'small-groups': 'off' } }))).toEqual({});
   });
 
+  it('falls back to the documented small-group size, and to no ICC line, when the catalogue lacks the rules', () => {
+    expect(plotThresholds([], roles())).toEqual({ smallGroups: SMALL_GROUP_THRESHOLD });
+  });
+});
+
+describe('buildPlotData at scale', () => {
   it('caps the group means for many groups: ends kept, an even sample between, ranks of the whole', () => {
     const J = 12_345;
     const many: GroupRow[] = Array.from({ length: J }, (_, j) => ({ group: `G${j}`, n: 2, 'y:num': 2, 'y:mean': (j * 7919) % J, 'y:ss': 1 }));
     const p = fakeProfile(many, { y: {} });
-    const plots = buildPlotData(p, roles({ level1: [] }), { y: outcomeStats(p.moments('y')) });
+    const plots = buildPlotData(p, roles({ level1: [] }), { y: outcomeStats(p.moments('y')) }, {});
     const pts = plots.groupMeans.y.points;
     expect(plots.groupMeans.y.total).toBe(J);
     expect(pts).toHaveLength(MAX_GROUP_MEANS);

@@ -1,7 +1,7 @@
-import { key } from '../../profile/sql.js';
-import type { Profile } from '../../profile/types.js';
-import type { OutcomeStats } from '../../stats/types.js';
-import type { GroupMean, GroupMeans } from '../types.js';
+import { key } from '../profile/sql.js';
+import type { Profile } from '../profile/types.js';
+import type { OutcomeStats } from '../stats/types.js';
+import type { GroupMean, GroupMeans } from './types.js';
 import { cappedIndices } from './capped-indices.js';
 
 /** At most this many group means go into a report (the JSON must stay small for 1M groups). */
