@@ -17,3 +17,8 @@ export function shownValues(f: Finding): string[] {
 export function bySeverity(findings: readonly Finding[], severity: Severity): Finding[] {
   return findings.filter((f) => f.severity === severity);
 }
+
+/** Where a finding comes from, said plainly after its message: "rule level2-varies, column benches". */
+export function origin(f: Finding): string {
+  return `rule ${f.rule}${f.column !== undefined ? `, column ${f.column}` : ''}`;
+}

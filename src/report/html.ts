@@ -1,24 +1,22 @@
-import { formatNumber } from '../util/format.js';
+import { countOf, SEVERITIES, SEVERITY_ACTION, SEVERITY_SHAPE } from '../severity.js';
 import { chartToSvg } from './charts/to-svg.js';
 import { reportCharts } from './charts/report-charts.js';
 import type { Chart } from './charts/types.js';
 import { escapeHtml as e } from './escape-html.js';
-import { SYMBOLS } from './html/findings.js';
 import { findingsHtml } from './html/findings.js';
 import { statisticsHtml } from './html/statistics.js';
 import type { ChartSvgs } from './html/statistics.js';
 import { STYLES } from './html/styles.js';
 import { bySeverity } from './finding-parts.js';
-import { HEADINGS, SEVERITIES, THRESHOLD_CAVEAT, VERDICT_TEXT } from './labels.js';
+import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, VERDICT_ADVICE, VERDICT_HEADLINE } from './labels.js';
 import type { Report } from './types.js';
 
 /** Nothing in the page may load or run: no scripts, no network, only the inline styles. */
 const CSP = "default-src 'none'; style-src 'unsafe-inline'; img-src data:; base-uri 'none'; form-action 'none'";
-const VERDICT_SYMBOL = { ready: '✔', caveats: '▲', 'not-ready': '✖' } as const;
 
 /**
- * The report as one self-contained HTML page for a data manager to read and mail on: verdict and
- * grade first, findings by severity with the fix to ask for, then the statistics with plots.
+ * The report as one self-contained HTML page for a data manager to read and mail on: the verdict
+ * as a sentence about the delivery first (grade and score beneath it), findings by severity with the fix to ask for, then the statistics with plots.
  * No script, no network: inline CSS and SVG only (Vega-Lite charts rendered headless), a
  * Content-Security-Policy that forbids anything else, and every data value escaped.
  * Async only because Vega renders asynchronously; it reads nothing but the report.
@@ -35,7 +33,7 @@ export async function renderHtml(report: Report): Promise<string> {
   const svgs: ChartSvgs = { sizes, icc, predictors, means: new Map() };
   charts.means.forEach((m, i) => svgs.means.set(m.outcome, means[i] as string));
 
-  const title = `nestready: ${VERDICT_TEXT[report.verdict]} — ${report.input.path}`;
+  const title = `nestready: ${VERDICT_HEADLINE[report.verdict]} — ${report.input.path}`;
   return `<!DOCTYPE html>
 <html lang="en">
 <head>
@@ -75,20 +73,20 @@ function summaryLine(report: Report): string {
   );
 }
 
+/**
+ * The verdict as a headline about the delivery, what each severity found asks the reader to do,
+ * and grade and score as one secondary line with how the score is reached: no card, no big letter.
+ */
 function verdictHtml(report: Report): string {
-  const counts = SEVERITIES.map((s) => {
+  const tally = SEVERITIES.map((s) => {
     const n = bySeverity(report.findings, s).length;
-    return `<li><span aria-hidden="true">${SYMBOLS[s]}</span> ${n} ${n === 1 ? HEADINGS[s].slice(0, -1).toLowerCase() : HEADINGS[s].toLowerCase()}</li>`;
+    const what = n ? ` ${SEVERITY_ACTION[s].tally}` : '';
+    return `<li class="sev-${s}"><span class="shape" aria-hidden="true">${SEVERITY_SHAPE[s]}</span> <strong>${countOf(s, n)}</strong>${what}</li>`;
   }).join('');
-  return `<section class="verdict tone-${report.verdict}" aria-label="Verdict">
-<div class="state"><p class="muted">Verdict</p><p class="word"><span aria-hidden="true">${VERDICT_SYMBOL[report.verdict]}</span> ${VERDICT_TEXT[report.verdict]}</p><p>${e(verdictAdvice(report))}</p></div>
-<div class="grade"><p class="muted">Grade</p><span class="letter">${e(report.grade)}</span><span>score ${formatNumber(report.score, 0)}/100</span></div>
-<div class="counts"><p class="muted">Findings</p><ul>${counts}</ul></div>
+  return `<section class="verdict tone-${report.verdict}" aria-labelledby="verdict-h">
+<h2 id="verdict-h">${e(VERDICT_HEADLINE[report.verdict])}</h2>
+<ul class="tally">${tally}</ul>
+<p class="advice">${e(VERDICT_ADVICE[report.verdict])}</p>
+<p class="grade-line"><strong>${e(gradeLine(report))}</strong> <span class="muted">(${e(SCORE_RULE)})</span></p>
 </section>`;
-}
-
-function verdictAdvice(report: Report): string {
-  if (report.verdict === 'not-ready') return 'Send the blockers below back to the sender before any modelling.';
-  if (report.verdict === 'caveats') return 'Usable, but read the warnings below and agree with the analyst how to handle them.';
-  return 'No blocker or warning: the delivery can go on to modelling.';
 }

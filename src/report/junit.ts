@@ -1,7 +1,7 @@
-import type { FailOn } from '../grade.js';
-import type { Severity } from '../roles/types.js';
 import type { Finding } from '../rules/types.js';
-import { listed } from './finding-parts.js';
+import { failsGate } from '../severity.js';
+import type { FailOn } from '../severity.js';
+import { listed, origin } from './finding-parts.js';
 import type { Report, RuleRun } from './types.js';
 import { xmlAttr, xmlText } from './xml-escape.js';
 
@@ -10,8 +10,6 @@ export interface JunitOptions {
   failOn: FailOn;
 }
 
-const FAILING: Record<FailOn, readonly Severity[]> = { blocker: ['blocker'], warning: ['blocker', 'warning'], never: [] };
-
 /**
  * The gate as JUnit XML, so CI systems show it natively: one <testsuite> for the delivery and one
  * <testcase> per rule that ran (report.rulesRun), failing when the rule has a finding at or above
@@ -19,7 +17,7 @@ const FAILING: Record<FailOn, readonly Severity[]> = { blocker: ['blocker'], war
  * test case's <system-out>. Without rulesRun (an older report), test cases come from the findings.
  */
 export function renderJunit(report: Report, options: JunitOptions): string {
-  const failing = FAILING[options.failOn];
+  const failing = (f: Finding) => failsGate(f.severity, options.failOn);
   const rules: RuleRun[] = [...(report.rulesRun ?? [])];
   for (const f of report.findings) {
     if (!rules.some((r) => r.id === f.rule)) rules.push({ id: f.rule, title: f.rule, level: 'data' });
@@ -27,8 +25,8 @@ export function renderJunit(report: Report, options: JunitOptions): string {
   let failures = 0;
   const cases = rules.map((rule) => {
     const mine = report.findings.filter((f) => f.rule === rule.id);
-    const failed = mine.filter((f) => failing.includes(f.severity));
-    const other = mine.filter((f) => !failing.includes(f.severity));
+    const failed = mine.filter(failing);
+    const other = mine.filter((f) => !failing(f));
     if (failed.length) failures++;
     const body: string[] = [];
     if (failed.length) {
@@ -66,9 +64,10 @@ export function renderJunit(report: Report, options: JunitOptions): string {
 }
 
 function findingText(f: Finding): string {
-  const lines = [`[${f.severity}] ${f.rule}${f.column !== undefined ? ` (${f.column})` : ''}: ${f.message}`, `ask for: ${f.fix}`];
+  const lines = [`${f.severity}: ${f.message}`, `ask for: ${f.fix}`];
   if (f.groups?.length) lines.push(`groups: ${listed(f.groups, f.count)}`);
   if (f.rows?.length) lines.push(`records: ${listed(f.rows.map(String))}`);
   if (f.values?.length) lines.push(`values: ${f.values.join('; ')}`);
+  lines.push(origin(f));
   return lines.join('\n');
 }

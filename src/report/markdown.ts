@@ -1,6 +1,6 @@
-import { formatNumber } from '../util/format.js';
+import { SEVERITIES, SEVERITY_ACTION, SEVERITY_WORD } from '../severity.js';
 import { bySeverity, listed, shownValues } from './finding-parts.js';
-import { HEADINGS, MARKS, SEVERITIES, THRESHOLD_CAVEAT, VERDICT_TEXT } from './labels.js';
+import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, VERDICT_HEADLINE, verdictSentence } from './labels.js';
 import { mdText as m } from './md-escape.js';
 import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from './stat-tables.js';
 import type { StatTable } from './stat-tables.js';
@@ -13,7 +13,8 @@ import type { Report } from './types.js';
  */
 export function renderMarkdown(report: Report): string {
   const out: string[] = [];
-  out.push(`# nestready: ${VERDICT_TEXT[report.verdict]} (grade ${report.grade}, score ${formatNumber(report.score, 0)}/100)`, '');
+  out.push(`# nestready: ${VERDICT_HEADLINE[report.verdict]}`, '', `**${verdictSentence(report)}**`, '');
+  out.push(`${gradeLine(report)} (${SCORE_RULE})`, '');
   out.push(
     `Delivery ${m(report.input.path)}: ${report.input.rows} records in ${report.groups.count} groups` +
       (report.input.rowsRejected ? `, ${report.input.rowsRejected} unreadable lines` : '') +
@@ -21,7 +22,7 @@ export function renderMarkdown(report: Report): string {
     '',
   );
   out.push(
-    `| ${SEVERITIES.map((s) => HEADINGS[s].toLowerCase()).join(' | ')} |`,
+    `| ${SEVERITIES.map((s) => SEVERITY_WORD[s].many).join(' | ')} |`,
     `|${SEVERITIES.map(() => '---:').join('|')}|`,
     `| ${SEVERITIES.map((s) => bySeverity(report.findings, s).length).join(' | ')} |`,
     '',
@@ -32,14 +33,14 @@ export function renderMarkdown(report: Report): string {
   for (const severity of SEVERITIES) {
     const list = bySeverity(report.findings, severity);
     if (!list.length) continue;
-    out.push(`### ${MARKS[severity]} ${HEADINGS[severity]} (${list.length})`, '');
-    out.push('| rule | column | finding | ask for | groups | records |', '|---|---|---|---|---|---|');
+    out.push(`### ${SEVERITY_ACTION[severity].heading} (${list.length})`, '');
+    out.push('| finding | ask for | groups | records | rule | column |', '|---|---|---|---|---|---|');
     for (const f of list) {
       const values = shownValues(f);
       const finding = m(f.message) + (values.length ? ` (values: ${m(values.join('; '))})` : '');
       out.push(
-        `| \`${f.rule}\` | ${f.column !== undefined ? m(f.column) : ''} | ${finding} | ${m(f.fix)} | ` +
-          `${f.groups?.length ? m(listed(f.groups, f.count)) : ''} | ${f.rows?.length ? m(listed(f.rows.map(String))) : ''} |`,
+        `| ${finding} | ${m(f.fix)} | ${f.groups?.length ? m(listed(f.groups, f.count)) : ''} | ` +
+          `${f.rows?.length ? m(listed(f.rows.map(String))) : ''} | ${f.rule} | ${f.column !== undefined ? m(f.column) : ''} |`,
       );
     }
     out.push('');

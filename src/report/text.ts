@@ -1,9 +1,11 @@
 import { Chalk } from 'chalk';
 import type { ChalkInstance } from 'chalk';
 import type { Finding } from '../rules/types.js';
+import { SEVERITIES, SEVERITY_ACTION, SEVERITY_SHAPE, SEVERITY_WORD } from '../severity.js';
+import type { Severity } from '../severity.js';
 import { formatNumber, formatP } from '../util/format.js';
-import { listed, shownValues } from './finding-parts.js';
-import { HEADINGS, MARKS, SEVERITIES, THRESHOLD_CAVEAT, VERDICT_TEXT } from './labels.js';
+import { bySeverity, listed, origin, shownValues } from './finding-parts.js';
+import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, verdictSentence } from './labels.js';
 import type { Report } from './types.js';
 
 export interface TextOptions {
@@ -11,13 +13,23 @@ export interface TextOptions {
   color: 0 | 1 | 2 | 3;
 }
 
-/** Terminal report, read top-down: verdict, then findings with the fix to ask for, then statistics. */
+/** Width of the severity column: number, shape and word, so that every message starts at one place. */
+const WORD_WIDTH = Math.max(...SEVERITIES.map((s) => SEVERITY_WORD[s].one.length));
+const GUTTER = ' '.repeat(3 + 2 + 2 + WORD_WIDTH + 2);
+
+/**
+ * Terminal report, read top-down: the verdict as a sentence about the delivery, grade and score
+ * below it, then the findings numbered through (so a reply to the sender can name them), each
+ * with its severity as a word in a fixed column, the fix to ask for and the rule after it, then
+ * the statistics.
+ */
 export function renderText(report: Report, options: TextOptions): string {
   const c = new Chalk({ level: options.color });
   const tone = palette(c);
   const out: string[] = [];
   const verdictTone = report.verdict === 'ready' ? tone.ok : report.verdict === 'caveats' ? tone.warning : tone.blocker;
-  out.push(verdictTone(`${VERDICT_TEXT[report.verdict]}  grade ${report.grade}  score ${report.score}/100`));
+  out.push(verdictTone(verdictSentence(report)));
+  out.push(`${gradeLine(report)} ${tone.dim(`(${SCORE_RULE})`)}`);
   out.push(
     tone.dim(
       `${report.input.path}: ${report.input.rows} records in ${report.groups.count} groups` +
@@ -26,14 +38,14 @@ export function renderText(report: Report, options: TextOptions): string {
     ),
   );
   out.push('');
+  let number = 0;
   for (const severity of SEVERITIES) {
-    const list = report.findings.filter((f) => f.severity === severity);
+    const list = bySeverity(report.findings, severity);
     if (!list.length) continue;
-    out.push(c.bold(`${HEADINGS[severity]} (${list.length})`));
-    for (const f of list) out.push(...findingLines(f, tone[severity], tone.dim));
-    out.push('');
+    out.push(c.bold(`${SEVERITY_ACTION[severity].heading} (${list.length})`));
+    for (const f of list) out.push(...findingLines(++number, f, tone[severity], tone.dim), '');
   }
-  if (!report.findings.length) out.push(tone.ok('No findings.'), '');
+  if (!report.findings.length) out.push(tone.ok('No findings: every rule that ran passed.'), '');
   out.push(...statisticsLines(report, c));
   out.push('');
   out.push(tone.dim(THRESHOLD_CAVEAT));
@@ -41,7 +53,7 @@ export function renderText(report: Report, options: TextOptions): string {
 }
 
 function palette(c: ChalkInstance) {
-  // our own colours; severity is also carried by the [X]/[!]/[i] marks and headings, never colour alone
+  // our own colours; severity is also carried by the word and shape in its column, never colour alone
   return {
     blocker: c.hex('#c2185b').bold,
     warning: c.hex('#b26a00'),
@@ -51,13 +63,19 @@ function palette(c: ChalkInstance) {
   };
 }
 
-function findingLines(f: Finding, tone: (s: string) => string, dim: (s: string) => string): string[] {
-  const lines = [`  ${tone(MARKS[f.severity])} ${tone(f.rule)}${f.column ? ` (${f.column})` : ''}: ${f.message}`];
-  lines.push(`      ask for: ${f.fix}`);
-  if (f.groups?.length) lines.push(dim(`      groups: ${listed(f.groups, f.count)}`));
-  if (f.rows?.length) lines.push(dim(`      records: ${listed(f.rows.map(String), undefined)}`));
+/** The severity column of a finding's first line: "  3  ◆ warning  ". */
+function severityColumn(number: number, severity: Severity): string {
+  return `${String(number).padStart(3)}  ${SEVERITY_SHAPE[severity]} ${SEVERITY_WORD[severity].one.padEnd(WORD_WIDTH)}  `;
+}
+
+function findingLines(number: number, f: Finding, tone: (s: string) => string, dim: (s: string) => string): string[] {
+  const lines = [`${tone(severityColumn(number, f.severity))}${f.message}`];
+  lines.push(`${GUTTER}ask for: ${f.fix}`);
+  if (f.groups?.length) lines.push(dim(`${GUTTER}groups: ${listed(f.groups, f.count)}`));
+  if (f.rows?.length) lines.push(dim(`${GUTTER}records: ${listed(f.rows.map(String), undefined)}`));
   const values = shownValues(f);
-  if (values.length) lines.push(dim(`      values: ${values.join('; ')}`));
+  if (values.length) lines.push(dim(`${GUTTER}values: ${values.join('; ')}`));
+  lines.push(dim(`${GUTTER}${origin(f)}`));
   return lines;
 }
 

@@ -13,15 +13,12 @@ header.top { background: ${P.accent}; color: #fff; padding: 1.5rem 0 1.25rem; }
 header.top .eyebrow { margin: 0; text-transform: uppercase; letter-spacing: 0.08em; font-size: 0.8rem; opacity: 0.9; }
 header.top h1 { margin: 0.15rem 0 0.35rem; font-size: 1.9rem; line-height: 1.2; }
 header.top .source { margin: 0; opacity: 0.95; overflow-wrap: anywhere; }
-.verdict { display: flex; flex-wrap: wrap; gap: 1rem; align-items: stretch; margin: -1rem 0 1.5rem; }
-.verdict > div { background: ${P.panel}; border: 1px solid ${P.line}; border-radius: 8px; padding: 0.9rem 1.1rem; }
-.verdict .state { flex: 1 1 20rem; border-left: 8px solid var(--tone); }
-.verdict p { margin: 0; }
-.verdict .state .word { font-size: 1.45rem; font-weight: 700; color: var(--tone); }
-.verdict .grade { text-align: center; min-width: 7rem; }
-.verdict .grade .letter { display: block; font-size: 2.4rem; font-weight: 800; line-height: 1; color: var(--tone); }
-.verdict .counts { flex: 1 1 16rem; }
-.verdict .counts ul { margin: 0.2rem 0 0; padding: 0; list-style: none; }
+.verdict { margin: 1.5rem 0 1.25rem; padding: 0.2rem 0 0.9rem 1.1rem; border-left: 10px double var(--tone); }
+.verdict h2 { margin: 0 0 0.4rem; padding: 0; border: 0; font-size: 1.65rem; line-height: 1.25; color: var(--tone); }
+.verdict p { margin: 0.3rem 0 0; }
+.verdict .tally { display: flex; flex-wrap: wrap; gap: 0.2rem 1.6rem; margin: 0; padding: 0; list-style: none; font-size: 1.05rem; }
+.verdict .tally .shape { color: var(--tone); }
+.verdict .grade-line { font-size: 0.92rem; }
 .tone-ready { --tone: ${P.ok}; }
 .tone-caveats { --tone: ${P.warning}; }
 .tone-not-ready { --tone: ${P.blocker}; }
@@ -31,18 +28,22 @@ h2 { font-size: 1.4rem; margin: 2rem 0 0.75rem; padding-bottom: 0.3rem; border-b
 h3 { font-size: 1.12rem; margin: 1.5rem 0 0.6rem; }
 .sev-heading { display: flex; align-items: center; gap: 0.5rem; }
 ol.findings { list-style: none; margin: 0; padding: 0; display: grid; gap: 0.75rem; }
-.finding { background: ${P.panel}; border: 1px solid ${P.line}; border-left: 6px solid var(--tone); border-radius: 6px; padding: 0.75rem 1rem; }
+.finding { display: grid; grid-template-columns: 8.5rem 1fr; gap: 0 1rem; background: ${P.panel}; border: 1px solid ${P.line}; border-top: 3px solid var(--tone); padding: 0.7rem 1rem; }
 .finding p { margin: 0.25rem 0; }
-.finding .head { display: flex; flex-wrap: wrap; gap: 0.5rem; align-items: baseline; }
-.finding .ask { background: ${P.paper}; border-radius: 4px; padding: 0.4rem 0.6rem; }
+.finding .sev { margin: 0.25rem 0; font-weight: 700; color: var(--tone); white-space: nowrap; font-variant-numeric: tabular-nums; }
+.finding .sev .num { display: inline-block; min-width: 1.6rem; color: ${P.muted}; font-weight: 600; }
+.finding .body { min-width: 0; }
+.finding .message { font-weight: 600; }
+.finding .ask { border-left: 3px solid ${P.line}; padding: 0.1rem 0 0.1rem 0.6rem; }
 .finding dl { margin: 0.4rem 0 0; display: grid; grid-template-columns: max-content 1fr; gap: 0.15rem 0.8rem; font-size: 0.92rem; }
 .finding dt { font-weight: 600; color: ${P.muted}; }
 .finding dd { margin: 0; overflow-wrap: anywhere; }
 .finding dd ul { margin: 0; padding-left: 1.1rem; }
+.finding .origin { font-size: 0.88rem; color: ${P.muted}; }
+@media (max-width: 40rem) { .finding { grid-template-columns: 1fr; } }
 .sev-blocker { --tone: ${P.blocker}; --soft: ${P.blockerSoft}; }
 .sev-warning { --tone: ${P.warning}; --soft: ${P.warningSoft}; }
 .sev-note { --tone: ${P.note}; --soft: ${P.noteSoft}; }
-.badge { display: inline-flex; align-items: center; gap: 0.3rem; font-size: 0.78rem; font-weight: 700; text-transform: uppercase; letter-spacing: 0.04em; color: var(--tone); background: var(--soft); border: 1px solid var(--tone); border-radius: 999px; padding: 0.05rem 0.55rem; }
 .none { background: ${P.okSoft}; border: 1px solid ${P.ok}; border-radius: 6px; padding: 0.75rem 1rem; }
 table { border-collapse: collapse; background: ${P.panel}; margin: 0.5rem 0 1rem; font-size: 0.93rem; min-width: 20rem; }
 caption { text-align: left; font-weight: 600; padding: 0.3rem 0; color: ${P.ink}; caption-side: top; }
