@@ -56,8 +56,8 @@ describe.concurrent('nestready audit: exit codes', () => {
     expect(run.code, run.stderr).toBe(0);
     expect(run.stderr).toBe('');
     // the clean demo has notes only (e.g. predictor-between-share reports every level-1 predictor)
-    expect(run.stdout).toMatch(/^READY {2}grade A {2}score \d+\/100\n/);
-    expect(run.stdout).not.toMatch(/Blockers|Warnings/);
+    expect(run.stdout).toMatch(/^Ready for a multilevel model: \d+ notes? for the record\.\ngrade A, score \d+ of 100 \(/);
+    expect(run.stdout).not.toMatch(/Blockers|Warnings|blocker {2}|warning {2}/);
     expect(run.stdout).not.toMatch(/\x1b\[/); // NO_COLOR
   });
 
@@ -65,8 +65,13 @@ describe.concurrent('nestready audit: exit codes', () => {
     const run = await nestready('audit', ...delivery);
     expect(run.code, run.stderr).toBe(1);
     expect(run.stderr).toBe('');
-    expect(run.stdout).toMatch(/^NOT READY {2}grade F/);
-    expect(run.stdout).toContain('Blockers (4)');
+    expect(run.stdout).toMatch(/^Not ready for a multilevel model: 4 blockers to send back, 2 warnings to settle, \d+ notes for the record\.\ngrade F, score 0 of 100 /);
+    expect(run.stdout).toContain('Blockers: send back to the sender (4)');
+    // severity as a word in a fixed column, numbered through; the rule said plainly after the message
+    expect(run.stdout).toMatch(/^ {2}4 {2}■ blocker {2}10 of 3007 records have no workshop/m);
+    expect(run.stdout).toMatch(/^ {2}5 {2}◆ warning {2}/m);
+    expect(run.stdout).toMatch(/^ {16}rule missing-group-id, column workshop$/m);
+    expect(run.stdout).not.toMatch(/\[X\]|\[!\]|\[i\]/);
     expect(run.stdout).toContain('ask for: Ask the sender to supply workshop for the listed records');
     expect(run.stdout).toContain('records: 309, 609, 742, 817, 1147, 1526, 1546, 1564, 2738, 2983');
     expect(run.stdout).not.toMatch(/\x1b\[/);
@@ -75,7 +80,7 @@ describe.concurrent('nestready audit: exit codes', () => {
   it('--fail-on never: exit 0 even with blockers, the report is still written', async ({ expect }) => {
     const run = await nestready('audit', ...delivery, '--fail-on', 'never');
     expect(run.code).toBe(0);
-    expect(run.stdout).toMatch(/^NOT READY/);
+    expect(run.stdout).toMatch(/^Not ready for a multilevel model: /);
   });
 
   it('--fail-on warning: a warning fails the gate, by default it does not', async ({ expect }) => {
@@ -91,7 +96,7 @@ describe.concurrent('nestready audit: exit codes', () => {
       nestready('audit', csv, '-r', roles, '--fail-on', 'never'),
     ]);
     expect(warning.code).toBe(1);
-    expect(warning.stdout).toMatch(/^READY WITH CAVEATS/);
+    expect(warning.stdout).toMatch(/^Ready for a multilevel model, with caveats: 1 warning to settle/);
     expect(never.code).toBe(0);
   });
 

@@ -94,7 +94,13 @@ describe.skipIf(!available)('the HTML report in a real browser', () => {
       expect(c.width).toBeGreaterThan(200);
       expect(c.height).toBeGreaterThan(80);
     }
-    expect(headings.slice(0, 4)).toEqual(['H1 fixtures/demo/repairs-delivery.csv', 'H2 Findings', 'H3 ✖ Blockers (3)', 'H3 ℹ Notes (1)']);
+    expect(headings.slice(0, 5)).toEqual([
+      'H1 fixtures/demo/repairs-delivery.csv',
+      'H2 Not ready for a multilevel model',
+      'H2 Findings',
+      'H3 ■ Blockers: send back to the sender (3)',
+      'H3 ○ Notes: for the record (1)',
+    ]);
     expect(existsSync(join(OUT, 'report-demo.png'))).toBe(true);
   });
 

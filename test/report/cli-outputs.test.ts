@@ -50,8 +50,8 @@ describe('nestready audit with several outputs', () => {
     const full = JSON.parse(readFileSync(p('full.json'), 'utf8'));
     expect(full.rulesRun.length).toBeGreaterThanOrEqual(6);
     const failing = new Set(full.findings.filter((f: { severity: string }) => f.severity === 'blocker').map((f: { rule: string }) => f.rule));
-    expect(readFileSync(p('r.md'), 'utf8')).toMatch(/^# nestready: NOT READY/);
-    expect(readFileSync(p('r.other'), 'utf8')).toMatch(/^# nestready: NOT READY/);
+    expect(readFileSync(p('r.md'), 'utf8')).toMatch(/^# nestready: Not ready for a multilevel model\n/);
+    expect(readFileSync(p('r.other'), 'utf8')).toMatch(/^# nestready: Not ready for a multilevel model\n/);
     expect(readFileSync(p('r.xml'), 'utf8')).toMatch(
       new RegExp(`^<\\?xml version="1.0" encoding="UTF-8"\\?>\n<testsuites name="nestready" tests="${full.rulesRun.length}" failures="${failing.size}"`),
     );

@@ -19,14 +19,18 @@ function attributes(tag: string): string[][] {
 }
 
 describe('renderHtml', () => {
-  it('puts verdict and grade first, then findings by severity, then statistics', async () => {
+  it('puts the verdict first as a sentence, grade and score beneath it, then findings by severity, then statistics', async () => {
     const report = demoReport();
     const html = await renderHtml(report);
     const at = (s: string) => html.indexOf(s);
-    expect(at('NOT READY')).toBeGreaterThan(0);
-    expect(at('<span class="letter">F</span>')).toBeGreaterThan(0);
-    expect(html).toContain(`score ${report.score}/100`);
-    expect(at('NOT READY')).toBeLessThan(at('id="findings-h"'));
+    expect(at('<h2 id="verdict-h">Not ready for a multilevel model</h2>')).toBeGreaterThan(0);
+    expect(html).toMatch(/<li class="sev-blocker"><span class="shape" aria-hidden="true">■<\/span> <strong>3 blockers<\/strong> to send back<\/li>/);
+    expect(html).toContain('<strong>no warning</strong></li>');
+    expect(html).toContain(`<p class="grade-line"><strong>grade F, score ${report.score} of 100</strong>`);
+    expect(at('<h2 id="verdict-h">')).toBeLessThan(at('<p class="grade-line">'));
+    expect(at('<p class="grade-line">')).toBeLessThan(at('id="findings-h"'));
+    // no report card and no badges
+    expect(html).not.toMatch(/class="(letter|badge)"|\/100/);
     expect(at('id="sev-blocker-h"')).toBeLessThan(at('id="sev-note-h"'));
     expect(at('id="findings-h"')).toBeLessThan(at('id="statistics-h"'));
     expect(html).toMatch(/^<!DOCTYPE html>\n<html lang="en">/);
@@ -43,8 +47,12 @@ describe('renderHtml', () => {
       if (f.rows?.length) expect(html).toContain(f.rows.join(', '));
     }
     // severity is carried by words, not colour alone
-    expect(html).toContain('Blockers (3)');
-    expect(html).toMatch(/<span class="badge"><span aria-hidden="true">✖<\/span> Blocker<\/span>/);
+    expect(html).toContain('Blockers: send back to the sender (3)</h3>');
+    expect(html).toContain('<ol class="findings" start="4">'); // numbered through the report
+    expect(html).toContain(
+      '<li class="finding sev-blocker"><p class="sev"><span class="num">1</span> <span class="shape" aria-hidden="true">■</span> <span class="word">blocker</span></p>',
+    );
+    for (const f of report.findings) expect(html).toContain(`<p class="origin">rule ${f.rule}${f.column ? `, column ${escapeHtml(f.column)}` : ''}</p>`);
   });
 
   it('formats the statistics', async () => {
@@ -133,7 +141,8 @@ describe('renderHtml', () => {
     o.anova.ci95 = [null, null];
     const html = await renderHtml(report);
     expect(html).toContain('No findings.');
-    expect(html).toContain('</span> READY</p>');
+    expect(html).toContain('<h2 id="verdict-h">Ready for a multilevel model</h2>');
+    expect(html).toContain('grade A, score 100 of 100');
     expect(html).toContain('>n/a<');
     expect(charts(html).length).toBeGreaterThanOrEqual(3);
   });

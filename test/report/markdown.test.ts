@@ -13,11 +13,18 @@ describe('renderMarkdown', () => {
   it('has the verdict first, findings per severity as tables, then statistics', () => {
     const report = demoReport();
     const md = renderMarkdown(report);
-    expect(md.split('\n')[0]).toBe(`# nestready: NOT READY (grade F, score ${report.score}/100)`);
+    expect(md.split('\n').slice(0, 5)).toEqual([
+      '# nestready: Not ready for a multilevel model',
+      '',
+      '**Not ready for a multilevel model: 3 blockers to send back, 1 note for the record.**',
+      '',
+      expect.stringMatching(new RegExp(`^grade F, score ${report.score} of 100 \\(100 less 25 a blocker, `)),
+    ]);
     const at = (s: string) => md.indexOf(s);
-    expect(at('### [X] Blockers (3)')).toBeGreaterThan(at('## Findings'));
-    expect(at('### [i] Notes (1)')).toBeGreaterThan(at('### [X] Blockers (3)'));
-    expect(at('## Statistics')).toBeGreaterThan(at('### [i] Notes (1)'));
+    expect(at('### Blockers: send back to the sender (3)')).toBeGreaterThan(at('## Findings'));
+    expect(at('### Notes: for the record (1)')).toBeGreaterThan(at('### Blockers: send back to the sender (3)'));
+    expect(at('## Statistics')).toBeGreaterThan(at('### Notes: for the record (1)'));
+    expect(md).not.toMatch(/\[X\]|\[!\]|\[i\]/);
     for (const f of report.findings) {
       expect(md).toContain(mdText(f.message));
       expect(md).toContain(mdText(f.fix));
