@@ -1,12 +1,12 @@
 import { writeFileSync } from 'node:fs';
 import { InputError } from './errors.js';
-import { formatForPath } from './report/render.js';
+import { formatForPath, FORMAT_NAMES } from './report/render.js';
 import type { ReportFormat } from './report/render.js';
 
-/** Where one rendering of the report goes: a file, or stdout (path null). */
+/** Where one output goes: a file, or stdout (path null); `problems` is the CSV of problem rows. */
 export interface OutputTarget {
   path: string | null;
-  format: ReportFormat;
+  format: ReportFormat | 'problems';
 }
 
 /**
@@ -14,21 +14,28 @@ export interface OutputTarget {
  * .xml = JUnit, .txt), or in `--format` when the extension names none; stdout in `--format`
  * when there is no `--out`.
  */
-export function planOutputs(outs: readonly string[], format: ReportFormat): OutputTarget[] {
+export function planOutputs(outs: readonly string[], format: ReportFormat): (OutputTarget & { format: ReportFormat })[] {
   if (!outs.length) return [{ path: null, format }];
   return outs.map((path) => ({ path, format: formatForPath(path) ?? format }));
 }
 
-/** Write one output; a file that cannot be written is an input error (exit 2), not a crash. */
-export function writeOutput(target: OutputTarget | string, text: string): void {
-  const path = typeof target === 'string' ? target : target.path;
-  if (path === null) {
+/**
+ * Write one output, and say on stderr where a file went (unless `quiet`): with several `--out`
+ * files and no stdout, that line is how a user learns what the run made. A file that cannot be
+ * written is an input error (exit 2), not a crash.
+ */
+export function writeOutput(target: OutputTarget, text: string, options: { quiet: boolean }): void {
+  if (target.path === null) {
     process.stdout.write(text);
     return;
   }
   try {
-    writeFileSync(path, text);
+    writeFileSync(target.path, text);
   } catch (e) {
-    throw new InputError(`${path}: cannot write the output (${(e as NodeJS.ErrnoException).code ?? e})`);
+    throw new InputError(`${target.path}: cannot write the output (${(e as NodeJS.ErrnoException).code ?? e})`);
+  }
+  if (!options.quiet) {
+    const what = target.format === 'problems' ? 'the problem rows (CSV)' : `the ${FORMAT_NAMES[target.format]} report`;
+    process.stderr.write(`nestready: wrote ${what} to ${target.path}\n`);
   }
 }

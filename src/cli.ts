@@ -74,7 +74,8 @@ function count(value: string): number {
   return Number(value);
 }
 
-function buildProgram(): Command {
+/** The command line's definition, not run: `main` parses with it, and `npm run docs` reads its options for the README. */
+export function buildProgram(): Command {
   const program = new Command('nestready')
     .description('Audit a two-level delivery (records nested in groups) before multilevel modelling')
     .version(TOOL.version)
@@ -88,16 +89,16 @@ function buildProgram(): Command {
     .requiredOption('-r, --roles <file>', 'the YAML role map')
     .addOption(new Option('--preset <name>', 'rule settings merged under the role map\'s own (README: Presets)').choices(Object.keys(PRESETS)))
     .addOption(new Option('-f, --format <format>', 'report format on stdout, or for --out files without a known extension').choices(REPORT_FORMATS).default('text'))
-    .option('-o, --out <file>', 'write the report to this file instead of stdout; repeatable, format from the extension (.html .json .md .xml=JUnit .txt)', collect, [])
+    .option('-o, --out <file>', 'write the report to this file instead of stdout; repeat it for several files, each in the format its extension names (.html .json .md .xml = JUnit .txt), else in --format', collect, [])
     .option('--with-plot-data', 'JSON: also write the plot data and the rules that ran (the whole report object)')
     .option('--problems <file>', 'write every offending record to this CSV (record, group, unit, rule, severity, column, reason)')
     .option('--max-rows <n>', 'at most this many problem rows; a last "#" line counts the rest', count, DEFAULT_MAX_ROWS)
-    .option('-q, --quiet', 'no progress line and no notes on stderr')
+    .option('-q, --quiet', 'no progress line, no "wrote" line per file and no notes on stderr')
     .addOption(new Option('--fail-on <severity>', 'exit 1 when a finding is at least this severe').choices(Object.keys(FAIL_ON)).default('blocker'))
-    .option('--no-values', 'leave raw data values out of the report (IDs and record numbers stay)')
-    .option('--color', 'force colour')
+    .option('--no-values', 'leave raw data values out of every output (IDs and record numbers stay: the sender needs them to fix the records)')
+    .option('--color', 'force colour (by default only on a terminal, never with NO_COLOR set or into a file)')
     .option('--no-color', 'no colour')
-    .option('--memory-limit <size>', 'DuckDB memory before it spills to disk', '100MB')
+    .option('--memory-limit <size>', 'DuckDB memory before it spills to disk (an aggregate that cannot run within it is run again with four times the limit, up to 4 GiB)', '100MB')
     .addOption(new Option('--input-format <format>', 'the delivery format (default: from the name and content)').choices(INPUT_FORMATS))
     .addOption(new Option('--encoding <encoding>', 'text encoding of a CSV/TSV delivery').choices(ENCODINGS).default('utf-8'))
     .option('--sheet <name>', 'Excel: the worksheet to read (default the first)')
@@ -127,7 +128,7 @@ function buildProgram(): Command {
         }).finally(stop);
         for (const target of targets) {
           const options = { color: colorLevel(flags, target.path !== null), failOn: flags.failOn, withPlotData };
-          writeOutput(target, await renderReport(report, target.format, options));
+          writeOutput(target, await renderReport(report, target.format, options), { quiet: flags.quiet === true });
         }
         if (flags.problems) {
           const stopRows = startProgress(delivery, 'collecting problem rows of', { quiet: flags.quiet === true });
@@ -140,7 +141,7 @@ function buildProgram(): Command {
             encoding: flags.encoding,
             sheet: flags.sheet,
           }).finally(stopRows);
-          writeOutput(flags.problems, problemsCsv(found));
+          writeOutput({ path: flags.problems, format: 'problems' }, problemsCsv(found), { quiet: flags.quiet === true });
           if (found.omitted && !flags.quiet) {
             process.stderr.write(`nestready: ${flags.problems}: ${found.omitted} of ${found.total} problem rows left out (--max-rows ${flags.maxRows})\n`);
           }

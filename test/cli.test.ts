@@ -114,6 +114,28 @@ describe.concurrent('nestready audit: exit codes', () => {
   });
 });
 
+describe.concurrent('nestready audit --out: where the files went', () => {
+  it('says on stderr where it wrote each --out file, one line each, and nothing with --quiet', async ({ expect }) => {
+    const [html, json, quietHtml, quietJson] = ['wrote.html', 'wrote.json', 'wrote-quiet.html', 'wrote-quiet.json'].map((n) => join(dir, n));
+    const [loud, quiet] = await Promise.all([
+      nestready('audit', ...clean, '--out', html, '--out', json),
+      nestready('audit', ...clean, '--out', quietHtml, '--out', quietJson, '-q'),
+    ]);
+    expect(loud.code, loud.stderr).toBe(0);
+    expect(loud.stdout).toBe('');
+    expect(loud.stderr).toBe(`nestready: wrote the HTML report to ${html}\nnestready: wrote the JSON report to ${json}\n`);
+    expect(existsSync(html) && existsSync(json)).toBe(true);
+    expect(quiet.code, quiet.stderr).toBe(0);
+    expect(quiet.stderr).toBe('');
+    expect(existsSync(quietHtml) && existsSync(quietJson)).toBe(true);
+  });
+
+  it('says nothing when the report goes to stdout', async ({ expect }) => {
+    const run = await once('audit', ...clean);
+    expect(run.stderr).toBe('');
+  });
+});
+
 describe.concurrent('nestready audit: usage and input errors exit 2 with one line', () => {
   it('too little memory for DuckDB: one line naming --memory-limit, not a crash', async ({ expect }) => {
     // DuckDB's CSV reader needs a buffer of about 30 MiB, so 10MB cannot work for any file
@@ -189,7 +211,7 @@ describe.concurrent('nestready audit --format json', () => {
     const run = await nestready('audit', ...delivery, '--format', 'json', '--out', out);
     expect(run.code).toBe(1);
     expect(run.stdout).toBe('');
-    expect(run.stderr).toBe('');
+    expect(run.stderr).toBe(`nestready: wrote the JSON report to ${out}\n`);
     const text = readFileSync(out, 'utf8');
     expect(text).not.toMatch(/\x1b\[/);
     const report = JSON.parse(text) as Report;

@@ -26,6 +26,9 @@ export const RENDERERS = {
 } satisfies Record<string, Renderer>;
 
 export type ReportFormat = keyof typeof RENDERERS;
+
+/** What each format is called in messages to the user. */
+export const FORMAT_NAMES: Record<ReportFormat, string> = { text: 'text', json: 'JSON', md: 'Markdown', html: 'HTML', junit: 'JUnit XML' };
 export const REPORT_FORMATS = Object.keys(RENDERERS) as ReportFormat[];
 
 /** Whether a format reads the report's `plots` (JSON only with `withPlotData`): the audit can skip them otherwise. */

@@ -43,7 +43,16 @@ describe('nestready audit with several outputs', () => {
     const run = await nestready('audit', ...DEMO, '--out', p('r.html'), '--out', p('r.json'), '--out', p('r.md'), '--out', p('r.xml'), '--out', p('r.other'), '-f', 'md', '--problems', p('rows.csv'), '--out', p('full.json'), '--with-plot-data');
     expect(run.code, run.stderr).toBe(1); // the demo has blockers
     expect(run.stdout).toBe('');
-    expect(run.stderr).toBe('');
+    // one line per file written, in the order written: the reports, then the problem rows
+    expect(run.stderr.trimEnd().split('\n')).toEqual([
+      `nestready: wrote the HTML report to ${p('r.html')}`,
+      `nestready: wrote the JSON report to ${p('r.json')}`,
+      `nestready: wrote the Markdown report to ${p('r.md')}`,
+      `nestready: wrote the JUnit XML report to ${p('r.xml')}`,
+      `nestready: wrote the Markdown report to ${p('r.other')}`,
+      `nestready: wrote the JSON report to ${p('full.json')}`,
+      `nestready: wrote the problem rows (CSV) to ${p('rows.csv')}`,
+    ]);
     expect(readFileSync(p('r.html'), 'utf8')).toMatch(/^<!DOCTYPE html>/);
     const json = JSON.parse(readFileSync(p('r.json'), 'utf8'));
     expect(json.plots).toBeDefined(); // --with-plot-data applies to every JSON output
@@ -78,7 +87,8 @@ describe('nestready audit with several outputs', () => {
       nestready('audit', ...DEMO, '--max-rows', 'lots'),
       nestready('audit', ...DEMO, '--out', join(dir, 'no/such/dir/r.html')),
     ]);
-    const m = /^nestready: (.+): (\d+) of (\d+) problem rows left out \(--max-rows 3\)\n$/.exec(loud.stderr)!;
+    expect(loud.stderr.split('\n')[0]).toBe(`nestready: wrote the problem rows (CSV) to ${join(dir, 'few.csv')}`);
+    const m = /^nestready: (.+): (\d+) of (\d+) problem rows left out \(--max-rows 3\)\n$/m.exec(loud.stderr)!;
     expect(m, loud.stderr).not.toBeNull();
     expect(m[1]).toBe(join(dir, 'few.csv'));
     expect(Number(m[3]) - Number(m[2])).toBe(3);
