@@ -1,6 +1,6 @@
 import { writeFileSync } from 'node:fs';
 import { InputError } from './errors.js';
-import { formatForPath, FORMAT_NAMES } from './report/render.js';
+import { formatForPath, formatName } from './report/render.js';
 import type { ReportFormat } from './report/render.js';
 
 /** Where one output goes: a file, or stdout (path null); `problems` is the CSV of problem rows. */
@@ -35,7 +35,7 @@ export function writeOutput(target: OutputTarget, text: string, options: { quiet
     throw new InputError(`${target.path}: cannot write the output (${(e as NodeJS.ErrnoException).code ?? e})`);
   }
   if (!options.quiet) {
-    const what = target.format === 'problems' ? 'the problem rows (CSV)' : `the ${FORMAT_NAMES[target.format]} report`;
+    const what = target.format === 'problems' ? 'the problem rows (CSV)' : `the ${formatName(target.format)} report`;
     process.stderr.write(`nestready: wrote ${what} to ${target.path}\n`);
   }
 }

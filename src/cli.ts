@@ -9,7 +9,7 @@ import { startProgress } from './cli-progress.js';
 import { problemsCsv } from './problems/csv.js';
 import { DEFAULT_MAX_ROWS } from './problems/types.js';
 import { catalogueJson, catalogueMarkdown, catalogueText } from './report/catalogue.js';
-import { needsPlotData, REPORT_FORMATS, renderReport } from './report/render.js';
+import { needsPlotData, REPORT_FORMAT_TABLE, REPORT_FORMATS, renderReport } from './report/render.js';
 import type { ReportFormat } from './report/render.js';
 import { PRESETS } from './presets/index.js';
 import type { PresetName } from './presets/index.js';
@@ -21,6 +21,7 @@ import { spoolStdin } from './source/stdin.js';
 import { TOOL } from './version.js';
 
 const CATALOGUE_FORMATS = { text: catalogueText, json: catalogueJson, md: catalogueMarkdown };
+const OUT_EXTENSIONS = REPORT_FORMATS.map((f) => `${REPORT_FORMAT_TABLE[f].extensions.join(' ')} ${f}`).join(', ');
 const FAIL_ON = { blocker: true, warning: true, never: true } satisfies Record<FailOn, true>;
 
 interface AuditFlags {
@@ -89,7 +90,7 @@ export function buildProgram(): Command {
     .requiredOption('-r, --roles <file>', 'the YAML role map')
     .addOption(new Option('--preset <name>', 'rule settings merged under the role map\'s own (README: Presets)').choices(Object.keys(PRESETS)))
     .addOption(new Option('-f, --format <format>', 'report format on stdout, or for --out files without a known extension').choices(REPORT_FORMATS).default('text'))
-    .option('-o, --out <file>', 'write the report to this file instead of stdout; repeat it for several files, each in the format its extension names (.html .json .md .xml = JUnit .txt), else in --format', collect, [])
+    .option('-o, --out <file>', `write the report to this file instead of stdout; repeat it for several files, each in the format its extension names (${OUT_EXTENSIONS}), else in --format`, collect, [])
     .option('--with-plot-data', 'JSON: also write the plot data and the rules that ran (the whole report object)')
     .option('--problems <file>', 'write every offending record to this CSV (record, group, unit, rule, severity, column, reason)')
     .option('--max-rows <n>', 'at most this many problem rows; a last "#" line counts the rest', count, DEFAULT_MAX_ROWS)
