@@ -90,16 +90,26 @@ export function buildProgram(): Command {
     .requiredOption('-r, --roles <file>', 'the YAML role map')
     .addOption(new Option('--preset <name>', 'rule settings merged under the role map\'s own (README: Presets)').choices(Object.keys(PRESETS)))
     .addOption(new Option('-f, --format <format>', 'report format on stdout, or for --out files without a known extension').choices(REPORT_FORMATS).default('text'))
-    .option('-o, --out <file>', `write the report to this file instead of stdout; repeat it for several files, each in the format its extension names (${OUT_EXTENSIONS}), else in --format`, collect, [])
+    .option(
+      '-o, --out <file>',
+      'write the report to this file instead of stdout; repeat it for several files, each in the format its extension names ' +
+        `(${OUT_EXTENSIONS}), else in --format`,
+      collect,
+      [],
+    )
     .option('--with-plot-data', 'JSON: also write the plot data and the rules that ran (the whole report object)')
     .option('--problems <file>', 'write every offending record to this CSV (record, group, unit, rule, severity, column, reason)')
     .option('--max-rows <n>', 'at most this many problem rows; a last "#" line counts the rest', count, DEFAULT_MAX_ROWS)
     .option('-q, --quiet', 'no progress line, no "wrote" line per file and no notes on stderr')
     .addOption(new Option('--fail-on <severity>', 'exit 1 when a finding is at least this severe').choices(Object.keys(FAIL_ON)).default('blocker'))
-    .option('--no-values', 'leave raw data values out of every output (IDs and record numbers stay: the sender needs them to fix the records)')
+    .option('--no-values', 'leave raw data values out of every output (IDs and record numbers stay: the sender needs them)')
     .option('--color', 'force colour (by default only on a terminal, never with NO_COLOR set or into a file)')
     .option('--no-color', 'no colour')
-    .option('--memory-limit <size>', 'DuckDB memory before it spills to disk (an aggregate that cannot run within it is run again with four times the limit, up to 4 GiB)', '100MB')
+    .option(
+      '--memory-limit <size>',
+      'DuckDB memory before it spills to disk (an aggregate that cannot run within it is run again with four times the limit, up to 4 GiB)',
+      '100MB',
+    )
     .addOption(new Option('--input-format <format>', 'the delivery format (default: from the name and content)').choices(INPUT_FORMATS))
     .addOption(new Option('--encoding <encoding>', 'text encoding of a CSV/TSV delivery').choices(ENCODINGS).default('utf-8'))
     .option('--sheet <name>', 'Excel: the worksheet to read (default the first)')

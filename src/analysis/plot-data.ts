@@ -19,7 +19,12 @@ import type { PlotData } from './types.js';
  * @param outcomes the statistics of each numeric outcome, as the report carries them
  * @param thresholds the thresholds the rules ran with (see plotThresholds)
  */
-export function buildPlotData(profile: Profile, roles: Roles, outcomes: Record<string, OutcomeStats>, thresholds: PlotThresholds): PlotData {
+export function buildPlotData(
+  profile: Profile,
+  roles: Roles,
+  outcomes: Record<string, OutcomeStats>,
+  thresholds: PlotThresholds,
+): PlotData {
   const groupMeansByOutcome: PlotData['groupMeans'] = {};
   for (const [name, stats] of Object.entries(outcomes)) groupMeansByOutcome[name] = groupMeans(profile, name, stats);
 

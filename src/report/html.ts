@@ -16,7 +16,8 @@ const CSP = "default-src 'none'; style-src 'unsafe-inline'; img-src data:; base-
 
 /**
  * The report as one self-contained HTML page for a data manager to read and mail on: the verdict
- * as a sentence about the delivery first (grade and score beneath it), findings by severity with the fix to ask for, then the statistics with plots.
+ * as a sentence about the delivery first (grade and score beneath it), findings by severity with
+ * the fix to ask for, then the statistics with plots.
  * No script, no network: inline CSS and SVG only (Vega-Lite charts rendered headless), a
  * Content-Security-Policy that forbids anything else, and every data value escaped.
  * Async only because Vega renders asynchronously; it reads nothing but the report.
@@ -81,7 +82,8 @@ function verdictHtml(report: Report): string {
   const tally = SEVERITIES.map((s) => {
     const n = bySeverity(report.findings, s).length;
     const what = n ? ` ${SEVERITY_ACTION[s].tally}` : '';
-    return `<li class="sev-${s}"><span class="shape" aria-hidden="true">${SEVERITY_SHAPE[s]}</span> <strong>${countOf(s, n)}</strong>${what}</li>`;
+    const shape = `<span class="shape" aria-hidden="true">${SEVERITY_SHAPE[s]}</span>`;
+    return `<li class="sev-${s}">${shape} <strong>${countOf(s, n)}</strong>${what}</li>`;
   }).join('');
   return `<section class="verdict tone-${report.verdict}" aria-labelledby="verdict-h">
 <h2 id="verdict-h">${e(VERDICT_HEADLINE[report.verdict])}</h2>

@@ -67,7 +67,8 @@ describe('buildPlotData', () => {
   });
 
   it('carries the thresholds it is given, and only those', () => {
-    expect(buildPlotData(profile, roles(), {}, { smallGroups: 3, lowIcc: 0.1 })).toMatchObject({ smallGroupThreshold: 3, lowIccThreshold: 0.1 });
+    const given = buildPlotData(profile, roles(), {}, { smallGroups: 3, lowIcc: 0.1 });
+    expect(given).toMatchObject({ smallGroupThreshold: 3, lowIccThreshold: 0.1 });
     const none = buildPlotData(profile, roles(), {}, {});
     expect('smallGroupThreshold' in none || 'lowIccThreshold' in none).toBe(false);
   });

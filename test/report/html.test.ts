@@ -24,7 +24,8 @@ describe('renderHtml', () => {
     const html = await renderHtml(report);
     const at = (s: string) => html.indexOf(s);
     expect(at('<h2 id="verdict-h">Not ready for a multilevel model</h2>')).toBeGreaterThan(0);
-    expect(html).toMatch(/<li class="sev-blocker"><span class="shape" aria-hidden="true">■<\/span> <strong>3 blockers<\/strong> to send back<\/li>/);
+    const blockers = /<li class="sev-blocker"><span class="shape" aria-hidden="true">■<\/span> <strong>3 blockers<\/strong> to send back/;
+    expect(html).toMatch(blockers);
     expect(html).toContain('<strong>no warning</strong></li>');
     expect(html).toContain(`<p class="grade-line"><strong>grade F, score ${report.score} of 100</strong>`);
     expect(at('<h2 id="verdict-h">')).toBeLessThan(at('<p class="grade-line">'));
@@ -50,9 +51,12 @@ describe('renderHtml', () => {
     expect(html).toContain('Blockers: send back to the sender (3)</h3>');
     expect(html).toContain('<ol class="findings" start="4">'); // numbered through the report
     expect(html).toContain(
-      '<li class="finding sev-blocker"><p class="sev"><span class="num">1</span> <span class="shape" aria-hidden="true">■</span> <span class="word">blocker</span></p>',
+      '<li class="finding sev-blocker"><p class="sev"><span class="num">1</span> ' +
+        '<span class="shape" aria-hidden="true">■</span> <span class="word">blocker</span></p>',
     );
-    for (const f of report.findings) expect(html).toContain(`<p class="origin">rule ${f.rule}${f.column ? `, column ${escapeHtml(f.column)}` : ''}</p>`);
+    for (const f of report.findings) {
+      expect(html).toContain(`<p class="origin">rule ${f.rule}${f.column ? `, column ${escapeHtml(f.column)}` : ''}</p>`);
+    }
   });
 
   it('formats the statistics', async () => {

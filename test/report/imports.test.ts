@@ -21,7 +21,11 @@ interface Import {
 function importsOf(file: string): Import[] {
   const text = readFileSync(file, 'utf8');
   const found: Import[] = [];
-  const patterns = [/^\s*(import|export)\s+(type\s+)?[^'";]*?\sfrom\s+'([^']+)'/gm, /^\s*import\s+'([^']+)'/gm, /import\(\s*'([^']+)'\s*\)/g];
+  const patterns = [
+    /^\s*(import|export)\s+(type\s+)?[^'";]*?\sfrom\s+'([^']+)'/gm,
+    /^\s*import\s+'([^']+)'/gm,
+    /import\(\s*'([^']+)'\s*\)/g,
+  ];
   for (const [i, re] of patterns.entries()) {
     for (const m of text.matchAll(re)) {
       const spec = i === 0 ? m[3] : m[1];

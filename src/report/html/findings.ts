@@ -18,7 +18,8 @@ export function findingsHtml(report: Report): string {
     if (!list.length) continue;
     out.push(
       `<section class="sev-${severity}" aria-labelledby="sev-${severity}-h">`,
-      `<h3 class="sev-heading" id="sev-${severity}-h"><span class="shape" aria-hidden="true">${SEVERITY_SHAPE[severity]}</span> ${SEVERITY_ACTION[severity].heading} (${list.length})</h3>`,
+      `<h3 class="sev-heading" id="sev-${severity}-h"><span class="shape" aria-hidden="true">${SEVERITY_SHAPE[severity]}</span> ` +
+        `${SEVERITY_ACTION[severity].heading} (${list.length})</h3>`,
       `<ol class="findings" start="${start}">`,
       ...list.map((f, i) => findingHtml(f, start + i)),
       '</ol>',

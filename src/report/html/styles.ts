@@ -28,7 +28,8 @@ h2 { font-size: 1.4rem; margin: 2rem 0 0.75rem; padding-bottom: 0.3rem; border-b
 h3 { font-size: 1.12rem; margin: 1.5rem 0 0.6rem; }
 .sev-heading { display: flex; align-items: center; gap: 0.5rem; }
 ol.findings { list-style: none; margin: 0; padding: 0; display: grid; gap: 0.75rem; }
-.finding { display: grid; grid-template-columns: 8.5rem 1fr; gap: 0 1rem; background: ${P.panel}; border: 1px solid ${P.line}; border-top: 3px solid var(--tone); padding: 0.7rem 1rem; }
+.finding { display: grid; grid-template-columns: 8.5rem 1fr; gap: 0 1rem; padding: 0.7rem 1rem; }
+.finding { background: ${P.panel}; border: 1px solid ${P.line}; border-top: 3px solid var(--tone); }
 .finding p { margin: 0.25rem 0; }
 .finding .sev { margin: 0.25rem 0; font-weight: 700; color: var(--tone); white-space: nowrap; font-variant-numeric: tabular-nums; }
 .finding .sev .num { display: inline-block; min-width: 1.6rem; color: ${P.muted}; font-weight: 600; }
