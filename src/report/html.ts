@@ -83,7 +83,8 @@ function verdictHtml(report: Report): string {
     const n = bySeverity(report.findings, s).length;
     const what = n ? ` ${SEVERITY_ACTION[s].tally}` : '';
     const shape = `<span class="shape" aria-hidden="true">${SEVERITY_SHAPE[s]}</span>`;
-    return `<li class="sev-${s}">${shape} <strong>${countOf(s, n)}</strong>${what}</li>`;
+    // a severity with nothing found stays in the tally (the reader sees it was looked for), muted
+    return `<li class="sev-${s}${n ? '' : ' nil'}">${shape} <strong>${countOf(s, n)}</strong>${what}</li>`;
   }).join('');
   return `<section class="verdict tone-${report.verdict}" aria-labelledby="verdict-h">
 <h2 id="verdict-h">${e(VERDICT_HEADLINE[report.verdict])}</h2>

@@ -26,7 +26,8 @@ describe('renderHtml', () => {
     expect(at('<h2 id="verdict-h">Not ready for a multilevel model</h2>')).toBeGreaterThan(0);
     const blockers = /<li class="sev-blocker"><span class="shape" aria-hidden="true">■<\/span> <strong>3 blockers<\/strong> to send back/;
     expect(html).toMatch(blockers);
-    expect(html).toContain('<strong>no warning</strong></li>');
+    // a severity with nothing found stays in the tally, muted
+    expect(html).toContain('<li class="sev-warning nil"><span class="shape" aria-hidden="true">◆</span> <strong>no warning</strong>');
     expect(html).toContain(`<p class="grade-line"><strong>grade F, score ${report.score} of 100</strong>`);
     expect(at('<h2 id="verdict-h">')).toBeLessThan(at('<p class="grade-line">'));
     expect(at('<p class="grade-line">')).toBeLessThan(at('id="findings-h"'));

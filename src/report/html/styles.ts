@@ -18,6 +18,8 @@ header.top .source { margin: 0; opacity: 0.95; overflow-wrap: anywhere; }
 .verdict p { margin: 0.3rem 0 0; }
 .verdict .tally { display: flex; flex-wrap: wrap; gap: 0.2rem 1.6rem; margin: 0; padding: 0; list-style: none; font-size: 1.05rem; }
 .verdict .tally .shape { color: var(--tone); }
+.verdict .tally .nil, .verdict .tally .nil .shape { color: ${P.muted}; font-weight: 400; }
+.verdict .tally .nil strong { font-weight: 400; }
 .verdict .grade-line { font-size: 0.92rem; }
 .tone-ready { --tone: ${P.ok}; }
 .tone-caveats { --tone: ${P.warning}; }
