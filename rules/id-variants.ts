@@ -1,6 +1,6 @@
 import { defineRule } from '../src/rules/define.js';
 import { firstRows, listSome, quoteId } from '../src/rules/describe.js';
-import { normalizeId } from '../src/rules/lookup.js';
+import { normalizeId } from '../src/source/lookups/lookup.js';
 import type { FindingDraft } from '../src/rules/types.js';
 
 interface Params {

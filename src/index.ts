@@ -19,7 +19,7 @@ export type { JsonOptions } from './report/json.js';
 export { renderReport, formatForPath, REPORT_FORMATS } from './report/render.js';
 export type { RenderOptions, ReportFormat } from './report/render.js';
 export { buildPlotData } from './report/plot-data.js';
-export { problemRows } from './problems/collect.js';
+export { problemRows } from './problem-rows.js';
 export { problemsCsv } from './problems/csv.js';
 export type { ProblemOptions, ProblemRow, ProblemRows } from './problems/types.js';
 export { catalogueJson, catalogueMarkdown, catalogueText } from './report/catalogue.js';

@@ -2,7 +2,7 @@ import { parse } from 'csv-parse/sync';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { catalogue } from '../../rules/index.js';
 import { audit } from '../../src/audit.js';
-import { problemRows } from '../../src/problems/collect.js';
+import { problemRows } from '../../src/problem-rows.js';
 import { csvField, PROBLEM_COLUMNS, problemsCsv } from '../../src/problems/csv.js';
 import type { ProblemRows } from '../../src/problems/types.js';
 import type { Report } from '../../src/report/types.js';
