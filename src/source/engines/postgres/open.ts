@@ -44,7 +44,16 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
     closed = true;
     await client.end().catch(() => undefined);
   };
-  const all = async <T,>(sql: string) => (await client.query(sql)).rows as T[];
+  // one client runs one query at a time: the rules' look-ups, asked for at once, wait their turn
+  // here rather than in the client's own queue (which pg has deprecated, with a warning on stderr)
+  let turn: Promise<unknown> = Promise.resolve();
+  const queued = <R,>(fn: () => Promise<R>): Promise<R> => {
+    const run = turn.then(fn);
+    turn = run.catch(() => undefined);
+    return run;
+  };
+  const query = (sql: string) => queued(() => client.query(sql));
+  const all = async <T,>(sql: string) => (await query(sql)).rows as T[];
   try {
     const base = input.table ? qualified(input.table) : `(${input.query}) AS nr_base`;
     let byCtid = false;
@@ -53,7 +62,7 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
       if (!kind?.relkind) throw new InputError(`${display}: no such table or view`);
       byCtid = kind.relkind === 'r' || kind.relkind === 'm';
     }
-    const probe = await client.query(`SELECT * FROM ${base} LIMIT 0`);
+    const probe = await query(`SELECT * FROM ${base} LIMIT 0`);
     const fields = probe.fields.map((f) => ({ name: f.name, numeric: NUMERIC_OIDS.has(f.dataTypeID) }));
     const header = fields.map((f) => f.name);
     const ids = new Set([roles.group, roles.unit, roles.parent]);
@@ -85,9 +94,9 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
       viewVersion++;
       const list = select();
       // a view's column types cannot change in place (a probed column settled as numbers)
-      await client.query('DROP VIEW IF EXISTS pg_temp.nr_delivery, pg_temp.nr_numbered');
-      await client.query(`CREATE TEMP VIEW nr_delivery AS SELECT ${list} FROM ${base}`);
-      await client.query(
+      await query('DROP VIEW IF EXISTS pg_temp.nr_delivery, pg_temp.nr_numbered');
+      await query(`CREATE TEMP VIEW nr_delivery AS SELECT ${list} FROM ${base}`);
+      await query(
         `CREATE TEMP VIEW nr_numbered AS SELECT row_number() OVER (${byCtid ? 'ORDER BY ctid' : ''}) AS __rec, ${list} FROM ${base}`,
       );
     };
@@ -110,7 +119,7 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
       all,
       // no onScanned: the one client runs one query at a time, so a look-up could not run beside
       async columns(sql) {
-        const res = await client.query({ text: sql, rowMode: 'array' });
+        const res = await queued(() => client.query({ text: sql, rowMode: 'array' }));
         const out: Record<string, unknown[]> = {};
         res.fields.forEach((f, i) => {
           const col = new Array(res.rows.length);
@@ -120,7 +129,7 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
         return out;
       },
       // one client, one session: its queries queue up, and its temp tables are the session's
-      session: (fn) => fn({ all, run: async (sql) => void (await client.query(sql)) }),
+      session: (fn) => fn({ all, run: async (sql) => void (await query(sql)) }),
       // a table has no unreadable lines: whatever loaded it has already parsed every record
       rejects: async (): Promise<RejectedLine[]> => [],
       async readAsText(columns) {
