@@ -22,7 +22,7 @@ export interface FoundRecord {
   rec: bigint | number | string;
   grp: string | null;
   unit: string | null;
-  /** deviating records: the value the record holds */
+  /** deviating records, and listed ones asked with a column: the value the record holds */
   value?: unknown;
   /** deviating records: the value most records of its group hold */
   expected?: unknown;
@@ -42,8 +42,8 @@ export interface RecordQueries {
    * numbers, any other value when `tolerance` is null (compared as written).
    */
   deviating(column: string, tolerance: number | null): RecordQuery;
-  /** the records with these numbers */
-  listed(rows: readonly number[]): RecordQuery;
+  /** the records with these numbers; with a column, its value in each (as `value`) */
+  listed(rows: readonly number[], column?: string): RecordQuery;
   /**
    * Whether a column reads as numbers as the profile reads it: its declared type, else read as
    * numbers, else when at least 95% of its values are numbers (one count over the delivery).
@@ -75,9 +75,10 @@ export function recordQueries(source: Source, group: string): RecordQueries {
         extra: `, d.${c} AS value, m.v AS expected`,
       };
     },
-    listed(rows) {
+    listed(rows, column) {
       const list = rows.filter((r) => Number.isSafeInteger(r)).map(String);
-      return { with: '', from: `FROM ${numbered} d WHERE d.__rec IN (${list.length ? list.join(', ') : 'NULL'})`, extra: '' };
+      const extra = column === undefined ? '' : `, d.${ident(column)} AS value`;
+      return { with: '', from: `FROM ${numbered} d WHERE d.__rec IN (${list.length ? list.join(', ') : 'NULL'})`, extra };
     },
     async readsAsNumber(column, declared) {
       if (declared === 'categorical') return false;
