@@ -2,9 +2,9 @@ import pg from 'pg';
 import { InputError } from '../../../errors.js';
 import type { Roles } from '../../../roles/types.js';
 import { postgres } from '../../dialect.js';
-import { numericTokens, sampleHints } from '../../plan/sample-hints.js';
+import { readingList, readingStorage } from '../../plan/reading.js';
+import { sampleHints } from '../../plan/sample-hints.js';
 import { ident, literal } from '../../sql.js';
-import type { Storage } from '../../sql.js';
 import type { OpenOptions, RejectedLine, Source } from '../../types.js';
 import { redactUrl } from './input.js';
 import type { PostgresInput } from './input.js';
@@ -63,32 +63,13 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
       byCtid = kind.relkind === 'r' || kind.relkind === 'm';
     }
     const probe = await query(`SELECT * FROM ${base} LIMIT 0`);
-    const fields = probe.fields.map((f) => ({ name: f.name, numeric: NUMERIC_OIDS.has(f.dataTypeID) }));
+    const fields = probe.fields.map((f) => ({ name: f.name, number: NUMERIC_OIDS.has(f.dataTypeID), text: false }));
     const header = fields.map((f) => f.name);
     const ids = new Set([roles.group, roles.unit, roles.parent]);
-    const storage = new Map<string, Storage>();
-    for (const f of fields) storage.set(f.name, f.numeric && !ids.has(f.name) && roles.types[f.name] !== 'categorical' ? 'double' : 'text');
-
+    const storage = readingStorage(fields, roles);
     const missing = [...new Set(['', ...options.missing])];
-    const tokens = missing.map(literal).join(', ');
-    const nums = numericTokens(missing);
-    const select = () =>
-      fields
-        .map(({ name, numeric }) => {
-          const c = ident(name);
-          const t = `CAST(${c} AS text)`;
-          let expr: string;
-          if (name === roles.group) expr = `CASE WHEN trim(${t}) IN (${tokens}) THEN NULL ELSE ${t} END`;
-          else if (numeric && storage.get(name) === 'double') {
-            const v = `CAST(${c} AS double precision)`;
-            expr = nums.length ? `CASE WHEN ${c} IN (${nums.join(', ')}) THEN NULL ELSE ${v} END` : v;
-          } else {
-            const nulled = `CASE WHEN ${t} IN (${tokens}) THEN NULL ELSE ${t} END`;
-            expr = storage.get(name) === 'double' ? postgres.numeric(nulled) : nulled;
-          }
-          return `${expr} AS ${c}`;
-        })
-        .join(', ');
+    // no `* REPLACE` in PostgreSQL: the group ID's blank-looking values are made NULL in the list itself
+    const select = () => readingList(fields, storage, missing, postgres, roles.group);
     let viewVersion = 0;
     const define = async () => {
       viewVersion++;
