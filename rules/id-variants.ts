@@ -106,7 +106,8 @@ export default defineRule<Params>({
         reason: (r: FoundRecord) => {
           const lead = r.grp === null ? undefined : usual.get(normalizeId(r.grp));
           const spelt = `${roles.group} ${r.grp === null ? '(missing)' : quoteId(r.grp)}`;
-          return lead !== undefined && lead !== r.grp ? `${spelt} is ${quoteId(lead)} written another way` : `${spelt} is one ID written in more than one way`;
+          if (lead !== undefined && lead !== r.grp) return `${spelt} is ${quoteId(lead)} written another way`;
+          return `${spelt} is one ID written in more than one way`;
         },
       };
     }

@@ -203,7 +203,9 @@ describe('problemRows on other shapes', () => {
       ]);
       expect(reasons('non-numeric-values')).toEqual([[3, 'visits holds "lots", which does not read as a number']]);
       const withheld = await problemRows(dd.csv, r, rep.findings, { includeValues: false });
-      expect(withheld.rows.find((x) => x.rule === 'non-numeric-values')?.reason).toBe('visits holds a value that does not read as a number (values withheld)');
+      expect(withheld.rows.find((x) => x.rule === 'non-numeric-values')?.reason).toBe(
+        'visits holds a value that does not read as a number (values withheld)',
+      );
       // IDs are what the sender fixes: they stay under --no-values
       expect(withheld.rows.find((x) => x.rule === 'id-variants')?.reason).toContain('"w-014 "');
     } finally {

@@ -26,5 +26,9 @@ export function isFileInput(input: DeliveryInput): input is string {
  */
 export function databaseInput(url: string, relation: { table?: string; query?: string }): PostgresInput {
   if (inputKind(url) !== 'url') throw new InputError('--source: expected a postgres:// URL');
-  return { url, ...(relation.table !== undefined && { table: relation.table }), ...(relation.query !== undefined && { query: relation.query }) };
+  return {
+    url,
+    ...(relation.table !== undefined && { table: relation.table }),
+    ...(relation.query !== undefined && { query: relation.query }),
+  };
 }

@@ -15,7 +15,8 @@ export function formatsMarkdown(): string {
       const look = i === 0 ? 'any other text' : f.looksLike ? 'a look at the text' : '';
       const detected = [f.magic ? 'magic number' : '', names, look].filter(Boolean).join(', ');
       const notes = f.gzip ? `${f.notes}; may be gzip-compressed (\`.gz\`)` : f.notes;
-      return `| \`${f.name}\` | ${f.label} | ${detected} | ${cell(f.readBy)} | ${f.options.map((o) => OPTION_FLAGS[o]).join(' ')} | ${cell(notes)} |`;
+      const options = f.options.map((o) => OPTION_FLAGS[o]).join(' ');
+      return `| \`${f.name}\` | ${f.label} | ${detected} | ${cell(f.readBy)} | ${options} | ${cell(notes)} |`;
     }),
     `| | \`-\` | the content, as above | standard input, spooled to a temp file deleted afterwards | | any of the above |`,
   ];

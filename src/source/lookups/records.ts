@@ -97,7 +97,8 @@ export function recordQueries(source: Source, group: string): RecordQueries {
 export function selectRecordsSql(source: Source, q: RecordQuery, group: string, unit: string | undefined, limit: number): string {
   const d = source.dialect;
   const u = unit ? d.text(`d.${ident(unit)}`) : 'NULL';
-  return `${q.with} SELECT d.__rec AS rec, ${d.text(`d.${ident(group)}`)} AS grp, ${u} AS unit${q.extra} ${q.from} ORDER BY d.__rec LIMIT ${limit}`;
+  const grp = d.text(`d.${ident(group)}`);
+  return `${q.with} SELECT d.__rec AS rec, ${grp} AS grp, ${u} AS unit${q.extra} ${q.from} ORDER BY d.__rec LIMIT ${limit}`;
 }
 
 /** How many rows a record query has in all. */

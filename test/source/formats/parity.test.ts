@@ -40,7 +40,9 @@ describe('every delivery format gives the report of the same data as CSV', () =>
   });
 
   it('every format of the registry has a fixture here, detected as that format from its content', () => {
-    const detected = cases.filter(([, , options]) => !options?.inputFormat).map(([, file]) => detectFormat(`fixtures/formats/${file}`).format);
+    const detected = cases
+      .filter(([, , options]) => !options?.inputFormat)
+      .map(([, file]) => detectFormat(`fixtures/formats/${file}`).format);
     expect([...new Set(detected)].sort()).toEqual([...INPUT_FORMATS].sort());
   });
 

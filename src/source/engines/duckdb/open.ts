@@ -59,7 +59,9 @@ export async function openDelivery(path: string, roles: Roles, options: OpenOpti
     engine.close();
     if (e instanceof InputError) throw e;
     const first = (e as Error).message.split('\n')[0];
-    if (/Out of Memory Error/i.test(first)) throw new InputError(`${display}: out of memory within --memory-limit (${first}); raise --memory-limit`);
+    if (/Out of Memory Error/i.test(first)) {
+      throw new InputError(`${display}: out of memory within --memory-limit (${first}); raise --memory-limit`);
+    }
     throw new InputError(`${display}: cannot read as ${format.toUpperCase()} (${first})`);
   }
 }

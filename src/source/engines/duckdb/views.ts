@@ -37,7 +37,8 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
   await define();
 
   const ids = new Set([roles.group, roles.unit, roles.parent]);
-  const { probe, textOnly, sampledGroups } = await sampleHints(all, layout.sample ? `(SELECT * FROM ${layout.sample()} WHERE ${everyColumn})` : 'nr_delivery', header, storage, roles, ids, !layout.typedReader, duckdb.numeric);
+  const sampled = layout.sample ? `(SELECT * FROM ${layout.sample()} WHERE ${everyColumn})` : 'nr_delivery';
+  const { probe, textOnly, sampledGroups } = await sampleHints(all, sampled, header, storage, roles, ids, !layout.typedReader, duckdb.numeric);
   if (manyGroups(sampledGroups)) await raiseMemory(engine);
 
   return {
