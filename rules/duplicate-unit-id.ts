@@ -1,5 +1,6 @@
 import { defineRule } from '../src/rules/define.js';
 import { firstRows, listSome, quoteId } from '../src/rules/describe.js';
+import type { FoundRecord } from '../src/rules/rows.js';
 import type { FindingDraft } from '../src/rules/types.js';
 
 /** A unit ID names one record; repeats are either re-sent copies or different records sharing an ID. */
@@ -54,5 +55,14 @@ export default defineRule<Record<string, never>>({
       });
     }
     return findings;
+  },
+  // the records the finding lists, each naming its repeated ID (an ID, so kept under --no-values)
+  rows: (finding, { records }) => {
+    const column = finding.column;
+    if (column === undefined || !finding.rows?.length) return null;
+    return {
+      query: records.listed(finding.rows),
+      reason: (r: FoundRecord) => `${column} ${r.unit === null ? '(missing)' : quoteId(r.unit)} is on more than one record of the delivery`,
+    };
   },
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { normalizeId } from '../src/rules/lookup.js';
+import { normalizeId } from '../src/source/lookups/lookup.js';
 import { auditRows, findingsOf, onlyFinding } from '../test/helpers/delivery.js';
 import type { Row } from '../test/helpers/delivery.js';
 

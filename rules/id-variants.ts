@@ -1,6 +1,7 @@
 import { defineRule } from '../src/rules/define.js';
 import { firstRows, listSome, quoteId } from '../src/rules/describe.js';
-import { normalizeId } from '../src/rules/lookup.js';
+import { normalizeId } from '../src/source/lookups/lookup.js';
+import type { FoundRecord } from '../src/rules/rows.js';
 import type { FindingDraft } from '../src/rules/types.js';
 
 interface Params {
@@ -89,5 +90,31 @@ export default defineRule<Params>({
       }
     }
     return findings;
+  },
+  // the records the finding lists, each naming its spelling and, for group IDs, the usual one
+  rows: (finding, { roles, records }) => {
+    if (!finding.rows?.length) return null;
+    if (finding.column === roles.group) {
+      // the finding's groups come set by set, the most common spelling of each set first
+      const usual = new Map<string, string>();
+      for (const id of finding.groups ?? []) {
+        const key = normalizeId(id);
+        if (!usual.has(key)) usual.set(key, id);
+      }
+      return {
+        query: records.listed(finding.rows),
+        reason: (r: FoundRecord) => {
+          const lead = r.grp === null ? undefined : usual.get(normalizeId(r.grp));
+          const spelt = `${roles.group} ${r.grp === null ? '(missing)' : quoteId(r.grp)}`;
+          if (lead !== undefined && lead !== r.grp) return `${spelt} is ${quoteId(lead)} written another way`;
+          return `${spelt} is one ID written in more than one way`;
+        },
+      };
+    }
+    const column = finding.column ?? 'the unit ID';
+    return {
+      query: records.listed(finding.rows),
+      reason: (r: FoundRecord) => `${column} ${r.unit === null ? '(missing)' : quoteId(r.unit)} is one ID written in more than one way`,
+    };
   },
 });

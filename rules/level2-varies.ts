@@ -1,5 +1,7 @@
 import { defineRule } from '../src/rules/define.js';
-import { key } from '../src/profile/sql.js';
+import type { FoundRecord } from '../src/rules/rows.js';
+import { showValue } from '../src/rules/show-value.js';
+import { key } from '../src/source/plan/profile-query.js';
 
 interface Params {
   tolerance: number;
@@ -66,5 +68,18 @@ export default defineRule<Params>({
       });
     }
     return findings;
+  },
+  // every record that departs from its group's most common value, in every group where it varies
+  async rows(finding, { roles, params, records, includeValues }) {
+    const column = finding.column;
+    if (column === undefined || !records.has(column)) return null;
+    const tolerance = (await records.readsAsNumber(column, roles.types[column])) ? params.tolerance : null;
+    return {
+      query: records.deviating(column, tolerance),
+      reason: (r: FoundRecord) =>
+        includeValues
+          ? `${column} is ${showValue(r.value)} here but ${showValue(r.expected)} in most records of the group`
+          : `${column} differs from the value in most records of the group (values withheld)`,
+    };
   },
 });

@@ -35,4 +35,8 @@ export default defineRule<Record<string, never>>({
       },
     ];
   },
+  rows: (_finding, { roles, records }) => ({
+    query: records.missingGroup(),
+    reason: () => `no ${roles.group} (blank or a missing code): the record belongs to no group`,
+  }),
 });

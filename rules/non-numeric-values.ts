@@ -1,6 +1,7 @@
 import { defineRule } from '../src/rules/define.js';
 import { firstRows, percent, quoteId } from '../src/rules/describe.js';
 import type { Severity } from '../src/roles/types.js';
+import type { FoundRecord } from '../src/rules/rows.js';
 import type { FindingDraft } from '../src/rules/types.js';
 
 interface Params {
@@ -80,5 +81,17 @@ export default defineRule<Params>({
       });
     }
     return findings;
+  },
+  // the records the finding lists, each with the value that is not a number
+  rows: (finding, { records, includeValues }) => {
+    const column = finding.column;
+    if (column === undefined || !finding.rows?.length || !records.has(column)) return null;
+    return {
+      query: records.listed(finding.rows, column),
+      reason: (r: FoundRecord) =>
+        includeValues
+          ? `${column} holds ${quoteId(String(r.value))}, which does not read as a number`
+          : `${column} holds a value that does not read as a number (values withheld)`,
+    };
   },
 });

@@ -1,5 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
-import { key } from '../src/profile/sql.js';
+import { key } from '../src/source/plan/profile-query.js';
 import { firstRows } from '../src/rules/describe.js';
 import type { FindingDraft } from '../src/rules/types.js';
 

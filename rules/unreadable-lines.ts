@@ -1,4 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
+import type { RejectedLine } from '../src/rules/rows.js';
 
 /** Lines the reader could not turn into a record are skipped: they must be counted and named. */
 export default defineRule<Record<string, never>>({
@@ -35,4 +36,8 @@ export default defineRule<Record<string, never>>({
       },
     ];
   },
+  rows: (_finding, { rejected }) => ({
+    lines: rejected,
+    reason: (r: RejectedLine) => `line ${r.line} (the header is line 1) could not be read: ${r.reason}`,
+  }),
 });

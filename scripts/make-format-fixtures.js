@@ -1,7 +1,7 @@
 #!/usr/bin/env node
 // Regenerate fixtures/formats/ from fixtures/demo/repairs-delivery.csv: the same delivery in every
 // format nestready reads, plus small cases for encodings and unreadable lines. The parity tests
-// (test/formats/) audit each one and compare with the audit of the CSV.
+// (test/source/formats/) audit each one and compare with the audit of the CSV.
 //
 //   node scripts/make-format-fixtures.js
 //

@@ -12,11 +12,10 @@ import { REPORT_SCHEMA } from './report/types.js';
 import type { Report } from './report/types.js';
 import type { AnyRule } from './rules/define.js';
 import { runRules } from './rules/engine.js';
-import { createLookup } from './rules/lookup.js';
 import { InputError } from './errors.js';
-import { openDelivery } from './source/open.js';
-import type { Encoding, InputFormat, Source } from './source/open.js';
-import type { PostgresInput } from './source/postgres.js';
+import { createLookup } from './source/lookups/lookup.js';
+import { openSource } from './source/open.js';
+import type { DeliveryInput, Encoding, InputFormat, Source } from './source/open.js';
 import { outcomeStats } from './stats/index.js';
 import { binaryGroupsFromMoments, logisticNullModel, momentsAreZeroOne } from './stats/logistic-null-model.js';
 import type { OutcomeStats } from './stats/types.js';
@@ -48,14 +47,14 @@ export interface AuditOptions {
 }
 
 /** A delivery: a file path (`-` for standard input), or a table or query in PostgreSQL. */
-export type AuditInput = string | PostgresInput;
+export type AuditInput = DeliveryInput;
 
-async function openInput(input: AuditInput, roles: Roles, options: AuditOptions): Promise<Source> {
-  const common = { missing: roles.missing, memoryLimit: options.memoryLimit, threads: options.threads };
-  // the PostgreSQL client is loaded only for a database source
-  if (typeof input !== 'string') return (await import('./source/postgres.js')).openPostgres(input, roles, common);
-  return openDelivery(input, roles, {
-    ...common,
+/** The delivery opened in the engine its kind calls for (src/source/engines/registry.ts). */
+export function openInput(input: AuditInput, roles: Roles, options: AuditOptions): Promise<Source> {
+  return openSource(input, roles, {
+    missing: roles.missing,
+    memoryLimit: options.memoryLimit,
+    threads: options.threads,
     format: options.inputFormat,
     encoding: options.encoding,
     sheet: options.sheet,

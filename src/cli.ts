@@ -15,6 +15,8 @@ import { PRESETS } from './presets/index.js';
 import type { PresetName } from './presets/index.js';
 import { loadRoles } from './roles/load.js';
 import { roleMapSchema } from './roles/schema.js';
+import { databaseInput, isFileInput } from './source/engines/kinds.js';
+import { deliveryHelp } from './source/formats/registry.js';
 import { ENCODINGS, INPUT_FORMATS, STDIN } from './source/types.js';
 import type { Encoding, InputFormat } from './source/types.js';
 import { spoolStdin } from './source/stdin.js';
@@ -50,10 +52,9 @@ interface AuditFlags {
 async function deliveryInput(delivery: string | undefined, flags: AuditFlags) {
   if (flags.source !== undefined) {
     if (delivery !== undefined) throw new InputError('give either a delivery file or --source, not both');
-    if (!/^postgres(ql)?:\/\//.test(flags.source)) throw new InputError(`--source: expected a postgres:// URL`);
+    const input = databaseInput(flags.source, flags);
     if ((flags.table === undefined) === (flags.query === undefined)) throw new InputError('--source needs exactly one of --table or --query');
-    if (flags.problems) throw new InputError('--problems needs a delivery file (not --source)');
-    return { input: { url: flags.source, table: flags.table, query: flags.query }, label: flags.table ?? 'query', done: () => {} };
+    return { input, label: flags.table ?? 'query', done: () => {} };
   }
   if (delivery === undefined) throw new InputError('no delivery: give a file, - for stdin, or --source postgres://… --table NAME');
   if (flags.table !== undefined || flags.query !== undefined) throw new InputError('--table and --query go with --source');
@@ -86,7 +87,7 @@ export function buildProgram(): Command {
   program
     .command('audit')
     .description('profile a delivery, run the rule catalogue, grade it and print the report')
-    .argument('[delivery]', 'the data file (CSV, TSV, Parquet, Arrow IPC, JSON, NDJSON, .xlsx; CSV/JSON may be .gz), or - for stdin')
+    .argument('[delivery]', deliveryHelp())
     .requiredOption('-r, --roles <file>', 'the YAML role map')
     .addOption(new Option('--preset <name>', 'rule settings merged under the role map\'s own (README: Presets)').choices(Object.keys(PRESETS)))
     .addOption(new Option('-f, --format <format>', 'report format on stdout, or for --out files without a known extension').choices(REPORT_FORMATS).default('text'))
@@ -120,7 +121,7 @@ export function buildProgram(): Command {
     .action(async (deliveryArg: string | undefined, flags: AuditFlags) => {
       const roles = loadRoles(flags.roles, catalogue, { preset: flags.preset });
       const resolved = await deliveryInput(deliveryArg, flags);
-      const delivery = typeof resolved.input === 'string' ? resolved.input : resolved.label;
+      const delivery = isFileInput(resolved.input) ? resolved.input : resolved.label;
       try {
         const stop = startProgress(resolved.label, 'auditing', { quiet: flags.quiet === true });
         // the engine (DuckDB, arquero, stats) loads only for an audit: `rules` and `schema` start fast
@@ -143,14 +144,15 @@ export function buildProgram(): Command {
         }
         if (flags.problems) {
           const stopRows = startProgress(delivery, 'collecting problem rows of', { quiet: flags.quiet === true });
-          const { problemRows } = await import('./problems/collect.js');
-          const found = await problemRows(delivery, roles.roles, report.findings, {
+          const { problemRows } = await import('./problem-rows.js');
+          const found = await problemRows(resolved.input, roles.roles, report.findings, {
             maxRows: flags.maxRows,
             includeValues: flags.values,
             memoryLimit: flags.memoryLimit,
             format: flags.inputFormat,
             encoding: flags.encoding,
             sheet: flags.sheet,
+            displayPath: resolved.displayPath,
           }).finally(stopRows);
           writeOutput({ path: flags.problems, format: 'problems' }, problemsCsv(found), { quiet: flags.quiet === true });
           if (found.omitted && !flags.quiet) {

@@ -21,7 +21,7 @@ export type { RenderOptions, ReportFormat } from './report/render.js';
 export { buildPlotData } from './analysis/plot-data.js';
 export { plotThresholds } from './analysis/plot-thresholds.js';
 export type { PlotThresholds } from './analysis/plot-thresholds.js';
-export { problemRows } from './problems/collect.js';
+export { problemRows } from './problem-rows.js';
 export { problemsCsv } from './problems/csv.js';
 export type { ProblemOptions, ProblemRow, ProblemRows } from './problems/types.js';
 export { catalogueJson, catalogueMarkdown, catalogueText } from './report/catalogue.js';

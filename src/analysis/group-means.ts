@@ -1,4 +1,4 @@
-import { key } from '../profile/sql.js';
+import { key } from '../source/plan/profile-query.js';
 import type { Profile } from '../profile/types.js';
 import type { OutcomeStats } from '../stats/types.js';
 import type { GroupMean, GroupMeans } from './types.js';

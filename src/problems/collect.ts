@@ -1,147 +1,99 @@
-import { catalogue } from '../../rules/index.js';
 import type { Roles } from '../roles/types.js';
+import type { AnyRule } from '../rules/define.js';
 import { resolveParams } from '../rules/engine.js';
+import type { FindingRecords } from '../rules/rows.js';
 import type { Finding } from '../rules/types.js';
-import type { RejectedLine, Source } from '../source/open.js';
-import { openSettled } from './open-settled.js';
-import { countSql, level2Query, listedRowsQuery, missingGroupQuery, numericShareSql, selectSql, singletonQuery } from './queries.js';
-import type { RowQuery } from './queries.js';
+import { countRecordsSql, recordQueries, selectRecordsSql } from '../source/lookups/records.js';
+import type { FoundRecord, RecordQueries } from '../source/lookups/records.js';
+import type { DeliveryInput } from '../source/open.js';
+import type { RejectedLine } from '../source/types.js';
+import { openSettled } from '../source/plan/open-settled.js';
 import { DEFAULT_MAX_ROWS } from './types.js';
 import type { ProblemOptions, ProblemRow, ProblemRows } from './types.js';
-
-interface Found {
-  rec: bigint | number;
-  grp: string | null;
-  unit: string | null;
-  value?: unknown;
-  expected?: unknown;
-}
 
 /**
  * Every offending record behind the findings, for the file a data manager sends back: record
  * number, group ID, unit ID, rule, severity, column and a short reason. The delivery is opened
- * again and one bounded query runs per finding, in report order:
- * - missing-group-id: every record whose group ID is missing;
- * - level2-varies: every record whose level-2 value differs from its group's most common value
- *   (beyond the rule's tolerance for numeric columns), in every group where it varies;
- * - singleton-groups: the record of every single-record group;
- * - unreadable-lines: each unreadable line (no record number; the reason names the line);
- * - any other finding: the records it lists (its first 20, as in the report), with the rule's
- *   title as the reason.
- * Findings without records (few-groups, low-icc) give none. At most `maxRows` rows are returned
- * in all; `omitted` counts the rest, which are still counted by a query each.
+ * again in the engine the audit used, and one bounded query runs per finding, in report order.
+ * Which records a finding covers, and why, is its rule's `rows` part; a rule without one sends
+ * back the records its finding lists (its first 20, as in the report) with the rule's title as
+ * the reason. Findings without records (few-groups, low-icc) give none. At most `maxRows` rows
+ * are returned in all; `omitted` counts the rest, which are still counted by a query each.
  *
- * @param path the delivery the report was made from
+ * @param input the delivery the report was made from (a file, or a table or query in a database)
  * @param roles the role map it was audited with
  * @param findings the report's findings
+ * @param rules the rules the report ran (their `rows` parts and titles)
  */
-export async function problemRows(path: string, roles: Roles, findings: readonly Finding[], options: ProblemOptions = {}): Promise<ProblemRows> {
-  const maxRows = options.maxRows ?? DEFAULT_MAX_ROWS;
-  const includeValues = options.includeValues ?? true;
+export async function collectProblemRows(
+  input: DeliveryInput,
+  roles: Roles,
+  findings: readonly Finding[],
+  rules: readonly AnyRule[],
+  options: ProblemOptions = {},
+): Promise<ProblemRows> {
+  const { maxRows = DEFAULT_MAX_ROWS, includeValues = true, ...open } = options;
   if (!findings.length) return { rows: [], total: 0, omitted: 0, maxRows };
-  const { source, rejected } = await openSettled(path, roles, options);
+  const { source, rejected } = await openSettled(input, roles, open);
   try {
+    const records = recordQueries(source, roles.group);
     const rows: ProblemRow[] = [];
     let total = 0;
     for (const f of findings) {
-      if (f.rule === 'unreadable-lines') {
-        total += rejected.length;
-        for (const r of rejected.slice(0, Math.max(0, maxRows - rows.length))) rows.push(unreadableRow(f, r));
+      const rule = rules.find((r) => r.meta.id === f.rule);
+      const part = (await ownRows(rule, f, { roles, records, rejected, includeValues })) ?? listedRows(f, rule, records);
+      if (!part) continue;
+      const room = Math.max(0, maxRows - rows.length);
+      if ('lines' in part) {
+        total += part.lines.length;
+        for (const line of part.lines.slice(0, room)) rows.push(lineRow(f, line, part.reason(line)));
         continue;
       }
-      const q = await queryFor(f, source, roles);
-      if (!q) continue;
-      const [{ k }] = await source.all<{ k: bigint }>(countSql(q));
+      const [{ k }] = await source.all<{ k: unknown }>(countRecordsSql(part.query));
       total += Number(k);
-      const room = maxRows - rows.length;
       if (room <= 0) continue;
-      const found = await source.all<Found>(selectSql(q, roles.group, roles.unit, room));
-      for (const r of found) rows.push(problemRow(f, r, roles, includeValues));
+      const found = await source.all<FoundRecord>(selectRecordsSql(source, part.query, roles.group, roles.unit, room));
+      for (const r of found) rows.push(recordRow(f, r, part.reason(r)));
     }
     return { rows, total, omitted: total - rows.length, maxRows };
   } finally {
-    source.close();
+    await source.close();
   }
 }
 
-async function queryFor(f: Finding, source: Source, roles: Roles): Promise<RowQuery | null> {
-  if (f.rule === 'missing-group-id') return missingGroupQuery(source.numbered, roles.group);
-  if (f.rule === 'singleton-groups') return singletonQuery(source.view, source.numbered, roles.group);
-  if (f.rule === 'level2-varies' && f.column !== undefined && source.header.includes(f.column)) {
-    const tolerance = (await readsAsNumber(source, roles, f.column)) ? level2Tolerance(roles) : null;
-    return level2Query(source.view, source.numbered, roles.group, f.column, tolerance);
-  }
-  if (f.rows?.length) return listedRowsQuery(source.numbered, f.rows);
-  return null;
+/** The rule's own account of the finding's records, with the params it ran with. */
+async function ownRows(
+  rule: AnyRule | undefined,
+  f: Finding,
+  ctx: { roles: Roles; records: RecordQueries; rejected: readonly RejectedLine[]; includeValues: boolean },
+): Promise<FindingRecords | null> {
+  if (!rule?.rows) return null;
+  const params = resolveParams(rule, ctx.roles);
+  if (params === 'off') return null;
+  return (await rule.rows(f, { ...ctx, params })) ?? null;
 }
 
-/** Whether level2-varies compares the column as numbers: the profile's reading of its type. */
-async function readsAsNumber(source: Source, roles: Roles, column: string): Promise<boolean> {
-  const declared = roles.types[column];
-  if (declared === 'categorical') return false;
-  if (declared === 'numeric' || declared === 'binary' || source.storage.get(column) === 'double') return true;
-  // a declared variable counts as numeric when at least 95% of its values are numbers (columnProfile)
-  const [{ nn, num }] = await source.all<{ nn: bigint; num: bigint }>(numericShareSql(source.view, column));
-  return Number(num) > 0 && Number(num) >= 0.95 * Number(nn);
+/** The records the finding lists, with the rule's title (else its message cut short) as the reason. */
+function listedRows(f: Finding, rule: AnyRule | undefined, records: RecordQueries): FindingRecords | null {
+  if (!f.rows?.length) return null;
+  const title = rule?.meta.title;
+  const reason = title
+    ? `${title}${f.column !== undefined ? ` (${f.column})` : ''}: one of the records the report lists`
+    : f.message.length > 120
+      ? `${f.message.slice(0, 119)}…`
+      : f.message;
+  return { query: records.listed(f.rows), reason: () => reason };
 }
 
-function level2Tolerance(roles: Roles): number {
-  const rule = catalogue.find((r) => r.meta.id === 'level2-varies');
-  const params = rule ? resolveParams(rule, roles) : 'off';
-  return params !== 'off' && typeof params.tolerance === 'number' ? params.tolerance : 0;
-}
-
-function problemRow(f: Finding, r: Found, roles: Roles, includeValues: boolean): ProblemRow {
-  const row: ProblemRow = {
-    record: Number(r.rec),
-    group: r.grp,
-    unit: r.unit,
-    rule: f.rule,
-    severity: f.severity,
-    reason: reason(f, r, roles, includeValues),
-  };
+function recordRow(f: Finding, r: FoundRecord, reason: string): ProblemRow {
+  const row: ProblemRow = { record: Number(r.rec), group: r.grp, unit: r.unit, rule: f.rule, severity: f.severity, reason };
   if (f.column !== undefined) row.column = f.column;
   return row;
 }
 
-function reason(f: Finding, r: Found, roles: Roles, includeValues: boolean): string {
-  switch (f.rule) {
-    case 'missing-group-id':
-      return `no ${roles.group} (blank or a missing code): the record belongs to no group`;
-    case 'singleton-groups':
-      return 'the only record of its group';
-    case 'level2-varies':
-      return includeValues
-        ? `${f.column} is ${show(r.value)} here but ${show(r.expected)} in most records of the group`
-        : `${f.column} differs from the value in most records of the group (values withheld)`;
-    default:
-      return shortReason(f);
-  }
-}
-
-/** Any other rule: its title (the finding's full message is in the report), else the message cut short. */
-function shortReason(f: Finding): string {
-  const title = catalogue.find((r) => r.meta.id === f.rule)?.meta.title;
-  if (title) return `${title}${f.column !== undefined ? ` (${f.column})` : ''}: one of the records the report lists`;
-  return f.message.length > 120 ? `${f.message.slice(0, 119)}…` : f.message;
-}
-
-function unreadableRow(f: Finding, r: RejectedLine): ProblemRow {
-  const row: ProblemRow = {
-    record: null,
-    group: null,
-    unit: null,
-    rule: f.rule,
-    severity: f.severity,
-    reason: `line ${r.line} (the header is line 1) could not be read: ${r.reason}`,
-  };
+/** An unreadable line: no record number; the column only where a value failed to convert. */
+function lineRow(f: Finding, r: RejectedLine, reason: string): ProblemRow {
+  const row: ProblemRow = { record: null, group: null, unit: null, rule: f.rule, severity: f.severity, reason };
   if (r.column) row.column = r.column;
   return row;
-}
-
-/** A value as it reads: numbers without a trailing ".0", text in quotes. */
-function show(v: unknown): string {
-  if (typeof v === 'number') return String(v);
-  if (typeof v === 'bigint') return v.toString();
-  return `"${String(v)}"`;
 }

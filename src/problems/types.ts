@@ -33,6 +33,8 @@ export interface ProblemOptions {
   format?: InputFormat;
   encoding?: Encoding;
   sheet?: string;
+  /** what messages call a file input (default its path; the CLI passes "-" for a spooled stdin) */
+  displayPath?: string;
 }
 
 /** Default bound of the problem-rows file (`--max-rows`). */

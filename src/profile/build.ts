@@ -1,11 +1,11 @@
 import type { ColumnTable } from 'arquero';
 import type { Roles } from '../roles/types.js';
 import type { Source } from '../source/open.js';
-import { settleProbes } from '../source/probe.js';
+import { settleProbes } from '../source/plan/settle-probes.js';
 import type { GroupMoments } from '../stats/types.js';
-import { key, profileQuery } from './sql.js';
+import { key, profileQuery } from '../source/plan/profile-query.js';
 import type { Storage } from '../source/sql.js';
-import type { ProfileColumnPlan } from './sql.js';
+import type { ProfileColumnPlan } from '../source/plan/profile-query.js';
 import { columnProfile } from './columns.js';
 import { roleOf } from './role-of.js';
 import type { ColumnProfile, Profile } from './types.js';

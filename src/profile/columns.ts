@@ -1,7 +1,7 @@
 import type { ColumnTable } from 'arquero';
 import type { Roles, ValueType } from '../roles/types.js';
-import { key } from './sql.js';
-import type { ProfileColumnPlan } from './sql.js';
+import { key } from '../source/plan/profile-query.js';
+import type { ProfileColumnPlan } from '../source/plan/profile-query.js';
 import { roleOf } from './role-of.js';
 import type { ColumnProfile } from './types.js';
 

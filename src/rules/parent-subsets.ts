@@ -1,7 +1,7 @@
-import { key } from '../profile/sql.js';
+import { key } from '../source/plan/profile-query.js';
 import type { Profile } from '../profile/types.js';
 import type { Roles } from '../roles/types.js';
-import type { Lookup, ParentSubset } from './lookup.js';
+import type { Lookup, ParentSubset } from '../source/lookups/lookup.js';
 
 /** A group ID found under more than one parent, with what its parent subsets say. */
 export interface ParentSplit {

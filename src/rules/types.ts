@@ -1,7 +1,8 @@
 import type { Profile } from '../profile/types.js';
 import type { Roles, Severity } from '../roles/types.js';
 import type { OutcomeStats } from '../stats/types.js';
-import type { Lookup } from './lookup.js';
+import type { Lookup } from '../source/lookups/lookup.js';
+import type { RowsPart } from './rows.js';
 
 export type RuleLevel = 'data' | 'structure' | 'variance';
 
@@ -70,4 +71,6 @@ export interface RuleContext<P> {
 export interface Rule<P = Record<string, unknown>> {
   meta: RuleMeta;
   check(ctx: RuleContext<P>): FindingDraft[] | Promise<FindingDraft[]>;
+  /** which records a finding covers and why, for the problem-rows file (see rows.ts) */
+  rows?: RowsPart<P>;
 }

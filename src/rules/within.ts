@@ -1,4 +1,4 @@
-import { key } from '../profile/sql.js';
+import { key } from '../source/plan/profile-query.js';
 import type { Profile } from '../profile/types.js';
 
 /**

@@ -1,5 +1,9 @@
 import type { Dialect } from './dialect.js';
+import type { InputFormat } from './formats/registry.js';
 import type { Storage } from './sql.js';
+
+export type { InputFormat } from './formats/registry.js';
+export { INPUT_FORMATS } from './formats/registry.js';
 
 /** A line of the delivery that could not be read as a record. */
 export interface RejectedLine {
@@ -10,12 +14,10 @@ export interface RejectedLine {
   kind: string;
 }
 
-/** Delivery formats read from files (or stdin); `postgres` is a table or query in a database. */
 /** `-` as the delivery: read stdin (spooled to a temp file first, deleted afterwards). */
 export const STDIN = '-';
 
-export const INPUT_FORMATS = ['csv', 'tsv', 'parquet', 'arrow', 'json', 'ndjson', 'xlsx'] as const;
-export type InputFormat = (typeof INPUT_FORMATS)[number];
+/** Delivery formats read from files (or stdin, see formats/registry.ts); `postgres` is a table or query in a database. */
 export type SourceFormat = InputFormat | 'postgres';
 
 export const ENCODINGS = ['utf-8', 'latin1'] as const;

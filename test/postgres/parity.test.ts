@@ -3,8 +3,8 @@ import { catalogue } from '../../rules/index.js';
 import { audit } from '../../src/audit.js';
 import type { Report } from '../../src/report/types.js';
 import { loadRoles } from '../../src/roles/load.js';
-import { redactUrl } from '../../src/source/postgres.js';
-import { expectSameAudit } from '../formats/same.js';
+import { redactUrl } from '../../src/source/engines/postgres/input.js';
+import { expectSameAudit } from '../source/formats/same.js';
 import { loadCsv, TYPED } from './load.js';
 
 // .ci/run starts a throwaway server (scripts/pg-server.sh) and exports NESTREADY_PG_URL; outside

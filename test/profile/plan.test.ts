@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { parseRoles } from '../../src/roles/load.js';
 import { catalogue } from '../../rules/index.js';
 import { planColumns } from '../../src/profile/build.js';
-import { profileQuery } from '../../src/profile/sql.js';
+import { profileQuery } from '../../src/source/plan/profile-query.js';
 import { profileOf } from '../helpers/profile-of.js';
 import { writeDelivery } from '../helpers/delivery.js';
 

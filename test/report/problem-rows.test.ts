@@ -2,7 +2,7 @@ import { parse } from 'csv-parse/sync';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { catalogue } from '../../rules/index.js';
 import { audit } from '../../src/audit.js';
-import { problemRows } from '../../src/problems/collect.js';
+import { problemRows } from '../../src/problem-rows.js';
 import { csvField, PROBLEM_COLUMNS, problemsCsv } from '../../src/problems/csv.js';
 import type { ProblemRows } from '../../src/problems/types.js';
 import type { Report } from '../../src/report/types.js';
@@ -177,5 +177,39 @@ describe('problemRows on other shapes', () => {
     expect(finding.rows).toEqual([3, 4]);
     expect(varies.map((x) => x.record)).toEqual(finding.rows);
     expect(varies[0].reason).toBe('staff is "10" here but 9 in most records of the group');
+  });
+
+  it('names the spelling, the repeated ID and the value that is not a number', async () => {
+    const data: Row[] = [
+      { g: 'W-014', u: 'a1', y: 1, visits: '3' },
+      { g: 'W-014', u: 'a2', y: 2, visits: '4' },
+      { g: 'W-014', u: 'a3', y: 3, visits: 'lots' },
+      { g: 'w-014 ', u: 'a4', y: 3, visits: '5' },
+      { g: 'B', u: 'a1', y: 3, visits: '2' },
+      { g: 'B', u: 'b2', y: 4, visits: '2' },
+      { g: 'B', u: 'b3', y: 5, visits: '1' },
+    ];
+    const map = { group: 'g', unit: 'u', outcomes: ['y'], level1: ['visits'], types: { visits: 'numeric' } };
+    const dd = writeDelivery(data, map);
+    try {
+      const r = parseRoles(toYaml(map), dd.roles, catalogue).roles;
+      const rep = await audit(dd.csv, r, { threads: 1 });
+      const found = await problemRows(dd.csv, r, rep.findings);
+      const reasons = (rule: string) => found.rows.filter((x) => x.rule === rule).map((x) => [x.record, x.reason]);
+      expect(reasons('id-variants')).toEqual([[4, 'g "w-014 " is "W-014" written another way']]);
+      expect(reasons('duplicate-unit-id')).toEqual([
+        [1, 'u "a1" is on more than one record of the delivery'],
+        [5, 'u "a1" is on more than one record of the delivery'],
+      ]);
+      expect(reasons('non-numeric-values')).toEqual([[3, 'visits holds "lots", which does not read as a number']]);
+      const withheld = await problemRows(dd.csv, r, rep.findings, { includeValues: false });
+      expect(withheld.rows.find((x) => x.rule === 'non-numeric-values')?.reason).toBe(
+        'visits holds a value that does not read as a number (values withheld)',
+      );
+      // IDs are what the sender fixes: they stay under --no-values
+      expect(withheld.rows.find((x) => x.rule === 'id-variants')?.reason).toContain('"w-014 "');
+    } finally {
+      dd.remove();
+    }
   });
 });

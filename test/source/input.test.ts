@@ -2,7 +2,7 @@ import { spawnSync } from 'node:child_process';
 import { readFileSync, readdirSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { describe, expect, it } from 'vitest';
-import { delimiterHint, detectFormat } from '../../src/source/detect.js';
+import { delimiterHint, detectFormat } from '../../src/source/formats/detect.js';
 
 const CLI = 'bin/nestready.js';
 const ROLES = 'fixtures/demo/repairs-delivery.roles.yaml';

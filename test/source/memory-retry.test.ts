@@ -1,7 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { catalogue } from '../../rules/index.js';
 import { parseRoles } from '../../src/roles/load.js';
-import { createEngine, manyGroups, readColumns } from '../../src/source/duck.js';
+import { createEngine } from '../../src/source/engines/duckdb/engine.js';
+import { manyGroups } from '../../src/source/engines/duckdb/memory.js';
+import { readColumns } from '../../src/source/engines/duckdb/stream.js';
 import { openDelivery } from '../../src/source/open.js';
 import { writeDelivery } from '../helpers/delivery.js';
 import type { Row } from '../helpers/delivery.js';

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { normalizedIdQuery, normalizeId } from '../../src/rules/lookup.js';
+import { normalizedIdQuery, normalizeId } from '../../src/source/lookups/lookup.js';
 import { duckdb } from '../../src/source/dialect.js';
-import { createEngine } from '../../src/source/duck.js';
+import { createEngine } from '../../src/source/engines/duckdb/engine.js';
 import { literal } from '../../src/source/sql.js';
 
 // The unit-ID check keys IDs in SQL (kd, ks); id-variants keys group IDs in JS (normalizeId).

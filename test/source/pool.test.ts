@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { DuckDBConnection } from '@duckdb/node-api';
-import { connectionPool } from '../../src/source/pool.js';
+import { connectionPool } from '../../src/source/engines/duckdb/pool.js';
 
 // stand-ins: the pool only lends them out and closes them
 const fake = (name: string) => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseRoles } from '../../src/roles/load.js';
 import { catalogue } from '../../rules/index.js';
-import { createLookup } from '../../src/rules/lookup.js';
+import { createLookup } from '../../src/source/lookups/lookup.js';
 import { openDelivery } from '../../src/source/open.js';
 import { writeDelivery } from '../helpers/delivery.js';
 import type { Row } from '../helpers/delivery.js';

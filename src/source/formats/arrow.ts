@@ -2,8 +2,8 @@ import { open } from 'node:fs/promises';
 import { DataType, RecordBatchReader } from 'apache-arrow';
 import type { Field } from 'apache-arrow';
 import { InputError } from '../../errors.js';
-import type { Roles } from '../../roles/types.js';
-import type { DuckEngine, DuckLayout } from '../duck.js';
+import type { DuckLayout } from '../engines/duckdb/layout.js';
+import type { ReadContext } from './registry.js';
 import { Stager, stagedLayout } from './staged.js';
 import type { StagedColumn, StagedValue } from './staged.js';
 
@@ -27,13 +27,7 @@ function toValue(v: unknown, type: StagedColumn['type'], temporal: boolean): Sta
  * Arrow IPC (file or stream format): DuckDB has no Arrow reader built in here, so record
  * batches are read one at a time with apache-arrow and appended to a staged DuckDB table.
  */
-export async function arrowLayout(
-  engine: DuckEngine,
-  file: string,
-  display: string,
-  roles: Roles,
-  missing: readonly string[],
-): Promise<DuckLayout> {
+export async function arrowLayout({ engine, file, display, roles, missing }: ReadContext): Promise<DuckLayout> {
   const handle = await open(file, 'r');
   try {
     let reader;

@@ -1,24 +1,22 @@
 import { closeSync, openSync, readSync } from 'node:fs';
-import type { Roles } from '../../roles/types.js';
-import { readCsv, typedColumns } from '../sql.js';
-import type { CsvOptions } from '../sql.js';
-import type { DuckEngine, DuckLayout } from '../duck.js';
+import { readCsv, typedColumns } from '../engines/duckdb/read-csv.js';
+import type { CsvOptions } from '../engines/duckdb/read-csv.js';
+import type { DuckLayout } from '../engines/duckdb/layout.js';
 import type { RejectedLine, SourceFormat } from '../types.js';
+import type { ReadContext } from './registry.js';
 
 /**
  * CSV/TSV: one sniff (DESCRIBE) gives the header and DuckDB's type guesses; the delivery is then
  * read with a type per column (text, or DOUBLE where the sniffer saw numbers) and missing tokens
  * as NULL (nullstr). Lines that cannot be read go to DuckDB's rejects table, with line numbers.
  */
-export async function csvLayout(
-  engine: DuckEngine,
-  file: string,
-  display: string,
-  format: SourceFormat,
-  roles: Roles,
-  missing: readonly string[],
-  options: CsvOptions,
-): Promise<DuckLayout> {
+export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: string | undefined): Promise<DuckLayout> {
+  const { engine, file, display, roles, missing } = ctx;
+  let options: CsvOptions = {
+    ...(delim !== undefined && { delim }),
+    ...(ctx.options.encoding === 'latin1' ? { encoding: 'latin-1' as const } : {}),
+    ...(ctx.gzip && !/\.gz$/i.test(file) ? { compression: 'gzip' as const } : {}),
+  };
   const { all, con } = engine;
   // one sniff: the dialect and the columns with DuckDB's type guesses (from a sample: hints only)
   const [found] = await all<{

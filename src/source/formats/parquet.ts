@@ -1,20 +1,17 @@
-import type { Roles } from '../../roles/types.js';
 import { literal } from '../sql.js';
-import { typedSelect, typedStorage } from '../duck.js';
-import type { DuckEngine, DuckLayout } from '../duck.js';
+import { typedSelect, typedStorage } from '../engines/duckdb/typed-select.js';
+import type { DuckLayout } from '../engines/duckdb/layout.js';
+import type { ReadContext } from './registry.js';
 
 /**
  * Parquet and JSON/NDJSON are read by DuckDB's own readers (built into the binding): typed
  * columns, numbers as DOUBLE, everything else as text; text columns that hold only numbers are
  * settled by the profile (see Source.probe).
  */
-export async function typedFileLayout(
-  engine: DuckEngine,
+async function typedFileLayout(
+  { engine, display, roles, missing }: ReadContext,
   reader: string,
-  display: string,
   format: 'parquet' | 'json' | 'ndjson',
-  roles: Roles,
-  missing: readonly string[],
 ): Promise<DuckLayout> {
   const columns = (await engine.all<{ column_name: string; column_type: string }>(`DESCRIBE SELECT * FROM ${reader}`)).map(
     (d) => ({ name: d.column_name, type: d.column_type }),
@@ -32,12 +29,13 @@ export async function typedFileLayout(
   };
 }
 
-export function parquetReader(file: string): string {
-  return `read_parquet(${literal(file)})`;
+export function parquetLayout(ctx: ReadContext): Promise<DuckLayout> {
+  return typedFileLayout(ctx, `read_parquet(${literal(ctx.file)})`, 'parquet');
 }
 
 /** JSON: an array of objects (or one object per line for NDJSON), gzip allowed. */
-export function jsonReader(file: string, format: 'json' | 'ndjson', gzip: boolean): string {
+export function jsonLayout(ctx: ReadContext, format: 'json' | 'ndjson'): Promise<DuckLayout> {
   const f = format === 'ndjson' ? 'newline_delimited' : 'auto';
-  return `read_json(${literal(file)}, format = '${f}', records = true${gzip ? ", compression = 'gzip'" : ''})`;
+  const reader = `read_json(${literal(ctx.file)}, format = '${f}', records = true${ctx.gzip ? ", compression = 'gzip'" : ''})`;
+  return typedFileLayout(ctx, reader, format);
 }

@@ -1,7 +1,7 @@
 import ExcelJS from 'exceljs';
 import { InputError } from '../../errors.js';
-import type { Roles } from '../../roles/types.js';
-import type { DuckEngine, DuckLayout } from '../duck.js';
+import type { DuckLayout } from '../engines/duckdb/layout.js';
+import type { ReadContext } from './registry.js';
 import type { RejectedLine } from '../types.js';
 import { Stager, stagedLayout } from './staged.js';
 import type { StagedColumn, StagedValue } from './staged.js';
@@ -32,14 +32,8 @@ export function cellText(v: unknown): string | number | null {
  * beyond the header's last column is rejected (with its row number, the header being row 1);
  * empty rows are not records.
  */
-export async function xlsxLayout(
-  engine: DuckEngine,
-  file: string,
-  display: string,
-  roles: Roles,
-  missing: readonly string[],
-  sheet: string | undefined,
-): Promise<DuckLayout> {
+export async function xlsxLayout({ engine, file, display, roles, missing, options }: ReadContext): Promise<DuckLayout> {
+  const { sheet } = options;
   const workbook = new ExcelJS.stream.xlsx.WorkbookReader(file, {
     worksheets: 'emit',
     sharedStrings: 'cache',

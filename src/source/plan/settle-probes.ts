@@ -1,5 +1,5 @@
-import type { Roles } from '../roles/types.js';
-import type { Source } from './types.js';
+import type { Roles } from '../../roles/types.js';
+import type { Source } from '../types.js';
 
 /** The plan entry of one column, as the profile builds it (kept structural to avoid an import cycle). */
 interface PlanEntry {

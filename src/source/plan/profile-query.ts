@@ -1,7 +1,7 @@
-import { duckdb } from '../source/dialect.js';
-import type { Dialect } from '../source/dialect.js';
-import { ident } from '../source/sql.js';
-import type { Storage } from '../source/sql.js';
+import { duckdb } from '../dialect.js';
+import type { Dialect } from '../dialect.js';
+import { ident } from '../sql.js';
+import type { Storage } from '../sql.js';
 
 export interface ProfileColumnPlan {
   name: string;

@@ -1,9 +1,12 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { catalogue } from '../../rules/index.js';
-import { audit } from '../../src/audit.js';
-import type { AuditOptions } from '../../src/audit.js';
-import type { Report } from '../../src/report/types.js';
-import { loadRoles } from '../../src/roles/load.js';
+import { catalogue } from '../../../rules/index.js';
+import { audit } from '../../../src/audit.js';
+import { problemRows } from '../../../src/problem-rows.js';
+import type { AuditOptions } from '../../../src/audit.js';
+import type { Report } from '../../../src/report/types.js';
+import { loadRoles } from '../../../src/roles/load.js';
+import { detectFormat } from '../../../src/source/formats/detect.js';
+import { INPUT_FORMATS } from '../../../src/source/formats/registry.js';
 import { expectSameAudit } from './same.js';
 
 // every fixture in fixtures/formats is repairs-delivery.csv in another format
@@ -35,6 +38,20 @@ describe('every delivery format gives the report of the same data as CSV', () =>
     const got = await audit(path, roles, options);
     expect(got.input.path).toBe(path);
     expectSameAudit(got, csv);
+  });
+
+  it('every format of the registry has a fixture here, detected as that format from its content', () => {
+    const detected = cases
+      .filter(([, , options]) => !options?.inputFormat)
+      .map(([, file]) => detectFormat(`fixtures/formats/${file}`).format);
+    expect([...new Set(detected)].sort()).toEqual([...INPUT_FORMATS].sort());
+  });
+
+  it('an Excel file gives the problem rows of the CSV (text cells that hold numbers read as numbers)', async () => {
+    const rows = await problemRows(CSV, roles.roles, csv.findings);
+    const xlsx = await problemRows('fixtures/formats/repairs.xlsx', roles.roles, csv.findings);
+    expect(rows.rows.length).toBeGreaterThan(0);
+    expect(xlsx).toEqual(rows);
   });
 
   it('Latin-1 with --encoding latin1 reads as the UTF-8 file does', async () => {

@@ -1,5 +1,5 @@
-import type { Dialect } from './dialect.js';
-import { ident } from './sql.js';
+import type { Dialect } from '../dialect.js';
+import { ident } from '../sql.js';
 
 /** The SQL of a group's modal value and of a record that differs from it. */
 export interface ModalValueSql {

@@ -1,5 +1,5 @@
 import { expect } from 'vitest';
-import type { Report } from '../../src/report/types.js';
+import type { Report } from '../../../src/report/types.js';
 
 /** Numbers equal to ~1e-9 relative (engines sum in different orders); everything else exactly. */
 function close(a: unknown, b: unknown, path: string): void {

@@ -1,0 +1,23 @@
+import type { Storage } from '../../sql.js';
+import type { RejectedLine, SourceFormat } from '../../types.js';
+
+/** How a DuckDB-read delivery is laid out before the shared views are put on it. */
+export interface DuckLayout {
+  path: string;
+  format: SourceFormat;
+  header: string[];
+  storage: Map<string, Storage>;
+  /**
+   * The relation with missing tokens already NULL and each column read per `storage`.
+   * `rowid`: the relation has a `__rec` column (a staged table's rowid + 1); else numbered by a window.
+   */
+  relation(storage: Map<string, Storage>): string;
+  numbering: 'window' | 'rowid';
+  /** a relation to sample the first rows from, when not nr_delivery */
+  sample?(): string;
+  /** a typed reader (CSV) converts while reading and rejects lines; other sources are probed */
+  typedReader: boolean;
+  rejects(): Promise<RejectedLine[]>;
+  /** before the views are redefined with columns read as text (CSV: start the rejects log afresh) */
+  beforeRetype?(): Promise<void>;
+}

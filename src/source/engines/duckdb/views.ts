@@ -1,0 +1,94 @@
+import type { Roles } from '../../../roles/types.js';
+import { duckdb } from '../../dialect.js';
+import { sampleHints } from '../../plan/sample-hints.js';
+import { blankAsNull, ident } from '../../sql.js';
+import type { Source } from '../../types.js';
+import type { DuckEngine } from './engine.js';
+import type { DuckLayout } from './layout.js';
+import { manyGroups, raiseMemory, withMemory } from './memory.js';
+import { readAll, readColumns } from './stream.js';
+
+/** The Source over a layout: the views nr_delivery and nr_numbered, the sample hints, the look-up API. */
+export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: Roles, missing: readonly string[]): Promise<Source> {
+  const { con, all } = engine;
+  const { header, storage } = layout;
+  const group = header.includes(roles.group)
+    ? ` REPLACE (${blankAsNull(roles.group, missing)} AS ${ident(roles.group)})`
+    : '';
+  // DuckDB 1.5's CSV reader fails (and invalidates the database) when a line with invalid UTF-8
+  // is met by a scan that reads only some of the columns; once such a line is known, the views
+  // read every column (a filter that uses them all and is always true)
+  const everyColumn = `hash(${header.map(ident).join(', ')}) IS NOT NULL`;
+  let guarded = false;
+  let viewVersion = 0;
+  const define = async () => {
+    viewVersion++;
+    const rel = layout.relation(storage) + (guarded ? ` WHERE ${everyColumn}` : '');
+    if (layout.numbering === 'rowid') {
+      await con.run(`CREATE OR REPLACE VIEW nr_numbered AS SELECT *${group} FROM ${rel}`);
+      await con.run('CREATE OR REPLACE VIEW nr_delivery AS SELECT * EXCLUDE (__rec) FROM nr_numbered');
+    } else {
+      // a blank-looking group ID (only spaces, or a missing token with spaces around it) is
+      // missing; other IDs keep their spaces ("W-014 " is a variant to report, not W-014)
+      await con.run(`CREATE OR REPLACE VIEW nr_delivery AS SELECT *${group} FROM ${rel}`);
+      await con.run('CREATE OR REPLACE VIEW nr_numbered AS SELECT row_number() OVER () AS __rec, * FROM nr_delivery');
+    }
+  };
+  await define();
+
+  const ids = new Set([roles.group, roles.unit, roles.parent]);
+  const sampled = layout.sample ? `(SELECT * FROM ${layout.sample()} WHERE ${everyColumn})` : 'nr_delivery';
+  const { probe, textOnly, sampledGroups } = await sampleHints(all, sampled, header, storage, roles, ids, !layout.typedReader, duckdb.numeric);
+  if (manyGroups(sampledGroups)) await raiseMemory(engine);
+
+  return {
+    path: layout.path,
+    format: layout.format,
+    dialect: duckdb,
+    header,
+    storage,
+    probe,
+    textOnly,
+    view: 'nr_delivery',
+    numbered: 'nr_numbered',
+    get viewVersion() {
+      return viewVersion;
+    },
+    all: (sql) => engine.lookups.use((c) => readAll(c, sql)),
+    columns: (sql, options) => readColumns(engine, sql, options?.onScanned),
+    session: (fn) =>
+      engine.lookups.use((c) =>
+        fn({
+          all: (sql) => readAll(c, sql),
+          async run(sql, options) {
+            const run = async () => void (await c.run(sql));
+            await (options?.grow ? withMemory(engine, run) : run());
+          },
+        }),
+      ),
+    async rejects() {
+      const rejected = await layout.rejects();
+      if (!guarded && layout.typedReader && rejected.some((r) => r.kind === 'INVALID ENCODING')) {
+        guarded = true;
+        await define();
+      }
+      return rejected;
+    },
+    async readAsText(columns) {
+      for (const c of columns) {
+        storage.set(c, 'text');
+        probe.delete(c);
+      }
+      await layout.beforeRetype?.();
+      await define();
+    },
+    async readAsDouble(columns) {
+      for (const c of columns) {
+        storage.set(c, 'double');
+        probe.delete(c);
+      }
+      await define();
+    },
+    close: () => engine.close(),
+  };
+}

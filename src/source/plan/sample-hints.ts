@@ -1,0 +1,46 @@
+import type { Roles } from '../../roles/types.js';
+import { ident } from '../sql.js';
+import type { Storage } from '../sql.js';
+
+/** Rows sampled to tell text columns that hold numbers from those that hold none. */
+export const SAMPLE_ROWS = 20480;
+
+/**
+ * Read the first rows once: a text column whose sampled values are all numbers is probed (the
+ * profile decides whether it is numeric throughout); one whose sampled values hold no number
+ * (and whose type the role map leaves open) gets no numeric reading — converting every value of
+ * a text column such as "18-29" only to fail is the dearest thing a pass can do.
+ */
+export async function sampleHints(
+  all: <T>(sql: string) => Promise<T[]>,
+  view: string,
+  header: readonly string[],
+  storage: Map<string, Storage>,
+  roles: Roles,
+  ids: Set<string | undefined>,
+  probing: boolean,
+  numeric: (expr: string) => string,
+): Promise<{ probe: Set<string>; textOnly: Set<string>; sampledGroups: number }> {
+  const probe = new Set<string>();
+  const textOnly = new Set<string>();
+  const candidates = header.filter((c) => storage.get(c) === 'text' && !ids.has(c) && roles.types[c] !== 'categorical');
+  const aggs = [
+    `count(DISTINCT ${ident(roles.group)}) AS sampled_groups`,
+    ...candidates.map((c, i) => `count(${ident(c)}) AS n${i}, count(${numeric(ident(c))}) AS k${i}`),
+  ];
+  const [row] = await all<Record<string, unknown>>(
+    `SELECT ${aggs.join(', ')} FROM (SELECT * FROM ${view} LIMIT ${SAMPLE_ROWS}) AS nr_sample`,
+  );
+  candidates.forEach((c, i) => {
+    const n = Number(row[`n${i}`]);
+    const k = Number(row[`k${i}`]);
+    if (probing && n > 0 && k === n) probe.add(c);
+    else if (n > 0 && k === 0 && roles.types[c] === undefined) textOnly.add(c);
+  });
+  return { probe, textOnly, sampledGroups: Number(row.sampled_groups) };
+}
+
+/** Missing tokens that are numbers, compared as numbers in numeric columns ("-999" ↔ -999.0). */
+export function numericTokens(missing: readonly string[]): number[] {
+  return [...new Set(missing.filter((t) => t.trim() !== '' && Number.isFinite(Number(t))).map(Number))];
+}
