@@ -1,4 +1,5 @@
 #!/usr/bin/env node
+// @ts-check
 // Synthetic two-level dataset generator (records nested in sites, sites in regions).
 //
 //   import { writeSynthetic } from './synth.js';
@@ -23,6 +24,7 @@
 import { open } from 'node:fs/promises';
 import { fileURLToPath } from 'node:url';
 import { resolve } from 'node:path';
+import { mulberry32, normalGen } from './prng.js';
 
 export const ALL_COLUMNS = [
   'record_id', 'site_code', 'region_code', 'wait_minutes', 'age_band',
@@ -35,37 +37,6 @@ const AGE_SHIFT = [-1.5, -0.5, 0, 1, 2.5];
 const SITE_TYPES = ['mobile', 'fixed', 'pop-up'];
 const N_REGIONS = 20;
 const CHUNK_CHARS = 1 << 20; // flush at ~1 MB
-
-/** mulberry32: small, fast, seedable 32-bit PRNG returning floats in [0, 1). */
-export function mulberry32(seed) {
-  let a = seed >>> 0;
-  return function rand() {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t = (t + Math.imul(t ^ (t >>> 7), t | 61)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-/** Box–Muller standard normal generator on top of a uniform PRNG (caches the spare). */
-export function normalGen(rand) {
-  let spare = 0;
-  let has = false;
-  return function normal() {
-    if (has) {
-      has = false;
-      return spare;
-    }
-    let u = rand();
-    while (u <= 1e-300) u = rand();
-    const v = rand();
-    const r = Math.sqrt(-2 * Math.log(u));
-    const th = 2 * Math.PI * v;
-    spare = r * Math.sin(th);
-    has = true;
-    return r * Math.cos(th);
-  };
-}
 
 /** Vose alias table for O(1) weighted sampling. */
 function aliasTable(weights) {
