@@ -1,10 +1,11 @@
+// @ts-check
 // `npm run docs`: regenerate the README's rule table and preset tables from the rules' own meta
 // and src/presets (test/readme.test.ts and test/presets.test.ts fail when they drift apart), and
 // the role map's precompiled validator from its schema (test/roles/role-map-validator.test.ts).
 import { readFileSync, writeFileSync } from 'node:fs';
 import { catalogue } from '../dist/rules/index.js';
-import { catalogueMarkdown } from '../dist/src/report/catalogue.js';
 import { presetsMarkdown } from '../dist/src/presets/index.js';
+import { catalogueMarkdown } from '../dist/src/report/catalogue.js';
 import { ROLE_MAP_VALIDATOR_FILE, roleMapValidatorSource } from '../dist/src/roles/validator-source.js';
 
 const blocks = [

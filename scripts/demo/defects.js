@@ -28,7 +28,7 @@
  * @param {Plan} plan
  */
 export function describeDefects(clean, tagged, plan) {
-  const { target, byWs, variants, level2, blankIdx, naIdx, m999Idx, naTokIdx, dupIdx, singletons } = plan;
+  const { byWs, variants, level2, blankIdx, naIdx, m999Idx, naTokIdx, dupIdx, singletons } = plan;
   // 1-based data record numbers in the final file
   /** @type {Map<number, number>} */
   const rowOfSrc = new Map();

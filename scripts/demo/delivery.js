@@ -3,8 +3,8 @@
 // defect draws its rows from a PRNG of its own seed, in a fixed order, so the file is the same
 // on every run; the record of what was planted is built in defects.js.
 import { mulberry32, normalGen } from '../prng.js';
-import { describeDefects } from './defects.js';
 import { makeRecord, makeWorkshop } from './clean.js';
+import { describeDefects } from './defects.js';
 import { jobId, N_RECORDS, N_WORKSHOPS, NETWORKS, orderRow, SEED, sample, wsId } from './design.js';
 
 /** @typedef {import('./design.js').Row} Row */
@@ -32,6 +32,7 @@ export function makeDelivery(clean, workshops) {
   }
   /** @param {string} ws */
   const rowsOf = (ws) => byWs.get(ws) ?? [];
+  /** @type {Set<number>} */
   const used = new Set(); // clean row indices already carrying a defect
 
   // (e) id variants of W-014
@@ -49,40 +50,7 @@ export function makeDelivery(clean, workshops) {
   }
 
   // (b) level-2 values that differ within a workshop
-  /** @param {(w: Workshop) => boolean} pred */
-  const pool = (pred) => workshops.filter((w) => !special.has(w.id) && pred(w)).map((w) => w.id);
-  const fmtA = sample(
-    pool((w) => w.format === 'weekly'),
-    1,
-    rand,
-  )[0];
-  special.add(fmtA);
-  const fmtB = sample(
-    pool((w) => w.format === 'monthly'),
-    1,
-    rand,
-  )[0];
-  special.add(fmtB);
-  const bnC = sample(
-    pool((w) => w.benches === 8),
-    1,
-    rand,
-  )[0];
-  if (!bnC) throw new Error('make-demo: no workshop with benches = 8 (change SEED)');
-  special.add(bnC);
-  /** @type {Plan['level2']} */
-  const level2 = [
-    { workshop: fmtA, column: 'workshop_format', expected: 'weekly', planted: 'monthly', k: 3, idx: [] },
-    { workshop: fmtB, column: 'workshop_format', expected: 'monthly', planted: 'weekly', k: 2, idx: [] },
-    { workshop: bnC, column: 'benches', expected: 8, planted: 6, k: 3, idx: [] },
-  ];
-  for (const d of level2) {
-    d.idx = sample(rowsOf(d.workshop), d.k, rand).sort((a, b) => a - b);
-    for (const i of d.idx) {
-      rows[i][d.column] = d.planted;
-      used.add(i);
-    }
-  }
+  const level2 = plantLevel2(rows, workshops, special, rowsOf, used, rand);
 
   // single-row defects come from ordinary workshops only
   const ordinary = rows.map((_, i) => i).filter((i) => !special.has(String(clean[i].workshop)));
@@ -125,8 +93,70 @@ export function makeDelivery(clean, workshops) {
   const tagged = rows.map((r, i) => ({ r, src: i }));
   /** @type {Tagged[]} */
   const extras = [...dupIdx.map((i) => ({ r: { ...clean[i] }, dupOf: i })), ...singletons.map((r) => ({ r, singleton: true }))];
+  insertApart(tagged, extras, rand);
+
+  const plan = { target: TARGET, byWs, variants, level2, blankIdx, naIdx, m999Idx, naTokIdx, dupIdx, singletons };
+  return { rows: tagged.map((t) => t.r), defects: describeDefects(clean, tagged, plan) };
+}
+
+/**
+ * (b) level-2 values that differ within a workshop: two workshops get another format on a few
+ * records, one another bench count.
+ * @param {Row[]} rows
+ * @param {Workshop[]} workshops
+ * @param {Set<string>} special workshops already carrying a defect (extended here)
+ * @param {(ws: string) => number[]} rowsOf
+ * @param {Set<number>} used rows already carrying a defect (extended here)
+ * @param {() => number} rand
+ */
+function plantLevel2(rows, workshops, special, rowsOf, used, rand) {
+  /** @param {(w: Workshop) => boolean} pred */
+  const pool = (pred) => workshops.filter((w) => !special.has(w.id) && pred(w)).map((w) => w.id);
+  const fmtA = sample(
+    pool((w) => w.format === 'weekly'),
+    1,
+    rand,
+  )[0];
+  special.add(fmtA);
+  const fmtB = sample(
+    pool((w) => w.format === 'monthly'),
+    1,
+    rand,
+  )[0];
+  special.add(fmtB);
+  const bnC = sample(
+    pool((w) => w.benches === 8),
+    1,
+    rand,
+  )[0];
+  if (!bnC) throw new Error('make-demo: no workshop with benches = 8 (change SEED)');
+  special.add(bnC);
+  /** @type {Plan['level2']} */
+  const level2 = [
+    { workshop: fmtA, column: 'workshop_format', expected: 'weekly', planted: 'monthly', k: 3, idx: [] },
+    { workshop: fmtB, column: 'workshop_format', expected: 'monthly', planted: 'weekly', k: 2, idx: [] },
+    { workshop: bnC, column: 'benches', expected: 8, planted: 6, k: 3, idx: [] },
+  ];
+  for (const d of level2) {
+    d.idx = sample(rowsOf(d.workshop), d.k, rand).sort((a, b) => a - b);
+    for (const i of d.idx) {
+      rows[i][d.column] = d.planted;
+      used.add(i);
+    }
+  }
+  return level2;
+}
+
+/**
+ * Insert the extra records at random positions, a re-sent copy at least 200 records away from
+ * its original.
+ * @param {Tagged[]} tagged
+ * @param {Tagged[]} extras
+ * @param {() => number} rand
+ */
+function insertApart(tagged, extras, rand) {
   for (const x of extras) {
-    for (;;) {
+    while (true) {
       const pos = Math.floor(rand() * (tagged.length + 1));
       if (x.dupOf !== undefined) {
         const orig = tagged.findIndex((t) => t.src === x.dupOf);
@@ -136,7 +166,4 @@ export function makeDelivery(clean, workshops) {
       break;
     }
   }
-
-  const plan = { target: TARGET, byWs, variants, level2, blankIdx, naIdx, m999Idx, naTokIdx, dupIdx, singletons };
-  return { rows: tagged.map((t) => t.r), defects: describeDefects(clean, tagged, plan) };
 }

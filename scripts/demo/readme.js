@@ -135,7 +135,9 @@ Notes:
 | \`repair_minutes\` = n/a | ${d.expected.repairMinutesNonNumeric} |
 | workshops with inconsistent level-2 values | ${d.expected.workshopsWithInconsistentLevel2} (${l2.map((x) => `${x.workshop} ${x.column}`).join('; ')}) |
 
-Group sizes as written: ${Object.entries(d.expected.groupSizes).map(([k, v]) => `\`${JSON.stringify(k)}\` ${v}`).join(', ')}.
+Group sizes as written: ${Object.entries(d.expected.groupSizes)
+    .map(([k, v]) => `\`${JSON.stringify(k)}\` ${v}`)
+    .join(', ')}.
 `);
   return lines.join('\n');
 }
