@@ -76,12 +76,17 @@ writeFileSync(join(out, 'accents.latin1.csv'), Buffer.from(`${accented.join('\n'
 // unreadable lines: 60 records (one of them with a quoted field) with broken lines between them
 const quoted = lines.find((l) => l.includes('"W-014 "'));
 const records = [quoted, ...lines.slice(1, 60)];
+const notUtf8 = Buffer.concat([
+  Buffer.from('J900004,W-001,amber,31.5,1,lamp'),
+  Buffer.from([0xff, 0xfe]),
+  Buffer.from(',2.0,1,weekly,9,2022'),
+]);
 /** @type {[number, string | Buffer][]} */
 const brokenLines = [
   [11, 'J900001,W-001,amber,31.5,1,lamp'], // file line 12: too few fields
   [21, 'J900002,W-001,amber,31.5,1,lamp,2.0,1,weekly,9,2022,surplus'], // line 22: too many fields
   [31, 'J900003,W-001,amber,31.5,1,"lamp"x,2.0,1,weekly,9,2022'], // line 32: text after a closing quote
-  [41, Buffer.concat([Buffer.from('J900004,W-001,amber,31.5,1,lamp'), Buffer.from([0xff, 0xfe]), Buffer.from(',2.0,1,weekly,9,2022')])], // line 42: not UTF-8
+  [41, notUtf8], // line 42: not UTF-8
 ];
 const parts = [Buffer.from(`${lines[0]}\n`)];
 let at = 1; // file line of the next record

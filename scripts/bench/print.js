@@ -33,14 +33,24 @@ const verdict = (r) => {
 };
 
 /**
+ * @typedef {object} RunInfo
+ * @property {number} repeat
+ * @property {number} seed
+ * @property {string} [memoryLimit]
+ * @property {{ commit: string | null, dirty: number | null }} code the commit measured, and its uncommitted files in src/ rules/
+ * @property {string} distBuiltAt
+ */
+
+/**
  * @param {Result[]} results
- * @param {{ repeat: number, seed: number, memoryLimit?: string, code: { commit: string | null, dirty: number | null }, distBuiltAt: string }} run
+ * @param {RunInfo} run
  */
 export function printResults(results, { repeat, seed, memoryLimit, code, distBuiltAt }) {
+  const dirty = code.dirty ? ` + ${code.dirty} uncommitted file(s) in src/ rules/` : '';
   console.log(
     `\nnestready bench — node ${process.version}, ${cpus().length} CPU(s), repeat ${repeat}, seed ${seed}` +
       `, audit memory limit ${memoryLimit ?? 'CLI default'}; wall = whole spawned process` +
-      `\ncode: ${code.commit ?? 'unknown'}${code.dirty ? ` + ${code.dirty} uncommitted file(s) in src/ rules/` : ''}, dist built ${distBuiltAt}\n`,
+      `\ncode: ${code.commit ?? 'unknown'}${dirty}, dist built ${distBuiltAt}\n`,
   );
   console.log(
     table(
@@ -107,7 +117,8 @@ export function printPhases(results) {
     ),
   );
   console.log(
-    '\n  node start    = process start -> bench-child.js body runs; import cli = the bundled dist/bundle/cli.js (commander, yaml, the rules; the engine loads in main)' +
+    '\n  node start    = process start -> bench-child.js body runs; import cli = the bundled dist/bundle/cli.js' +
+      ' (commander, yaml, the rules; the engine loads in main)' +
       '\n  main          = the audit itself: to profile q + profile q + after profile' +
       '\n  to profile q  = main() start -> profiling GROUP BY issued (role map, DuckDB instance, views, dialect/type sniff)' +
       '\n  profile q     = the one profiling GROUP BY incl. fetching its result into JS' +
@@ -145,10 +156,8 @@ export function printVerdicts(results) {
   if (!missed.length && !errored.length) console.log('all targets met');
 
   const loads = results.flatMap((r) => [r.load1.min, r.load1.max]).filter(Number.isFinite);
-  if (loads.length)
-    console.log(
-      `system load (1-min avg) at run starts: ${Math.min(...loads).toFixed(2)}..${Math.max(...loads).toFixed(2)} on ${cpus().length} CPU(s)`,
-    );
+  const [low, high] = [Math.min(...loads).toFixed(2), Math.max(...loads).toFixed(2)];
+  if (loads.length) console.log(`system load (1-min avg) at run starts: ${low}..${high} on ${cpus().length} CPU(s)`);
   if (loads.length && Math.max(...loads) > cpus().length)
     console.log('WARNING the machine was busy during the runs: wall times are inflated and noisy; compare the cpu s columns too');
 }

@@ -22,6 +22,17 @@ export function readme(clean, workshops, d, stats) {
   const sizes = workshops.map((w) => w.size);
   const netCounts = NETWORKS.map((n) => `${n} ${workshops.filter((w) => w.network === n).length}`).join(', ');
   const l2 = d.inconsistentLevel2;
+  /** @param {Defects['inconsistentLevel2'][number]} x */
+  const l2Row = (x) =>
+    `| b | \`${x.column}\` differs within ${x.workshop} (${x.expected} → ${x.planted}) | ${x.rows.length} | ${rowsList(x.rows)} |`;
+  const singletonList = d.singletonGroups.map((s) => `${s.workshop}: ${s.job_id} (row ${s.row})`).join(', ');
+  const nonNumeric = o.nonNumeric.rows;
+  const [spaced, lower] = d.groupIdVariants.map((v) => v.rows);
+  const dups = d.duplicateUnitIds;
+  const dupList = dups.map((x) => `${x.job_id} (rows ${x.rows.join(' and ')})`).join(', ');
+  const otherMinutes = d.dataRows - o.missingCode.rows.length - nonNumeric.length;
+  const sizeOf = d.expected.groupSizes;
+  const l2Columns = l2.map((x) => `${x.workshop} ${x.column}`).join('; ');
   const lines = [];
   lines.push(`# Demo fixtures: community repair workshops
 
@@ -89,15 +100,15 @@ records: the 4 singleton-workshop jobs and 3 exact re-sent copies.
 | --- | --- | --- | --- |
 | a | missing group id: \`workshop\` blank | ${m.blank.length} | ${rowsList(m.blank)} |
 | a | missing group id: \`workshop\` = \`NA\` | ${m.NA.length} | ${rowsList(m.NA)} |
-| b | \`workshop_format\` differs within ${l2[0].workshop} (${l2[0].expected} → ${l2[0].planted}) | ${l2[0].rows.length} | ${rowsList(l2[0].rows)} |
-| b | \`workshop_format\` differs within ${l2[1].workshop} (${l2[1].expected} → ${l2[1].planted}) | ${l2[1].rows.length} | ${rowsList(l2[1].rows)} |
-| b | \`benches\` differs within ${l2[2].workshop} (${l2[2].expected} → ${l2[2].planted}) | ${l2[2].rows.length} | ${rowsList(l2[2].rows)} |
-| c | singleton workshops (one record each) | ${d.singletonGroups.length} | ${d.singletonGroups.map((s) => `${s.workshop}: ${s.job_id} (row ${s.row})`).join(', ')} |
+${l2Row(l2[0])}
+${l2Row(l2[1])}
+${l2Row(l2[2])}
+| c | singleton workshops (one record each) | ${d.singletonGroups.length} | ${singletonList} |
 | d | \`repair_minutes\` = \`-999\` (declared missing code) | ${o.missingCode.rows.length} | ${rowsList(o.missingCode.rows)} |
-| d | \`repair_minutes\` = \`n/a\` (non-numeric token, not a declared missing code) | ${o.nonNumeric.rows.length} | ${rowsList(o.nonNumeric.rows)} |
-| e | workshop id variant \`"W-014 "\` (trailing space, written quoted) of W-014 | ${d.groupIdVariants[0].rows.length} | ${rowsList(d.groupIdVariants[0].rows)} |
-| e | workshop id variant \`w-014\` (lower case) of W-014 | ${d.groupIdVariants[1].rows.length} | ${rowsList(d.groupIdVariants[1].rows)} |
-| f | duplicated \`job_id\` (second row is an exact copy) | ${d.duplicateUnitIds.length} ids / ${d.duplicateUnitIds.length * 2} rows | ${d.duplicateUnitIds.map((x) => `${x.job_id} (rows ${x.rows.join(' and ')})`).join(', ')} |
+| d | \`repair_minutes\` = \`n/a\` (non-numeric token, not a declared missing code) | ${nonNumeric.length} | ${rowsList(nonNumeric)} |
+| e | workshop id variant \`"W-014 "\` (trailing space, written quoted) of W-014 | ${spaced.length} | ${rowsList(spaced)} |
+| e | workshop id variant \`w-014\` (lower case) of W-014 | ${lower.length} | ${rowsList(lower)} |
+| f | duplicated \`job_id\` (second row is an exact copy) | ${dups.length} ids / ${dups.length * 2} rows | ${dupList} |
 
 Notes:
 
@@ -107,12 +118,12 @@ Notes:
   does not honour them would instead see a 3-row pseudo-group \`NA\` spanning several
   networks with conflicting level-2 values (DuckDB's \`read_csv\` turns the blanks into
   NULL but keeps \`NA\` as a string).
-- (b) ${l2[0].workshop} has ${l2[0].workshopRows} records, ${l2[1].workshop} has ${l2[1].workshopRows}, ${l2[2].workshop} has ${l2[2].workshopRows}; all other
+- (b) ${l2.map((x, i) => `${x.workshop} has ${x.workshopRows}${i ? '' : ' records'}`).join(', ')}; all other
   rows of those workshops keep the expected value. \`opened_year\` and \`network\` are never altered.
 - (c) The singleton workshops are new ids (not in the clean file) with new job ids
   ${d.singletonGroups.map((s) => s.job_id).join(', ')}; their values are complete and valid.
-- (d) All other ${d.dataRows - o.missingCode.rows.length - o.nonNumeric.rows.length} \`repair_minutes\` values are positive numbers with 1 decimal.
-- (e) W-014 keeps ${d.expected.groupSizes['W-014']} rows under its canonical id; \`"W-014 "\` has ${d.expected.groupSizes['W-014 ']} and \`w-014\` has ${d.expected.groupSizes['w-014']}
+- (d) All other ${otherMinutes} \`repair_minutes\` values are positive numbers with 1 decimal.
+- (e) W-014 keeps ${sizeOf['W-014']} rows under its canonical id; \`"W-014 "\` has ${sizeOf['W-014 ']} and \`w-014\` has ${sizeOf['w-014']}
   (so neither variant is a singleton). The trailing-space value is written as a quoted
   CSV field so that parsers which trim unquoted fields still see it.
 - (f) The copies are inserted at least 200 rows away from the originals;
@@ -133,7 +144,7 @@ Notes:
 | duplicated \`job_id\` values | ${d.expected.duplicatedJobIdValues} |
 | \`repair_minutes\` = -999 | ${d.expected.repairMinutesMissingCode} |
 | \`repair_minutes\` = n/a | ${d.expected.repairMinutesNonNumeric} |
-| workshops with inconsistent level-2 values | ${d.expected.workshopsWithInconsistentLevel2} (${l2.map((x) => `${x.workshop} ${x.column}`).join('; ')}) |
+| workshops with inconsistent level-2 values | ${d.expected.workshopsWithInconsistentLevel2} (${l2Columns}) |
 
 Group sizes as written: ${Object.entries(d.expected.groupSizes)
     .map(([k, v]) => `\`${JSON.stringify(k)}\` ${v}`)
