@@ -1,4 +1,5 @@
 #!/usr/bin/env node
+// @ts-check
 // One audit run for scripts/bench.js, as its own process: the real CLI entry
 // (`main` from the bundled dist/bundle/cli.js) called in-process, report written with --out.
 //
@@ -27,7 +28,17 @@ if (!file || !roles || !out) {
 }
 
 const rssMB = () => process.resourceUsage().maxRSS / 1024;
+/** @param {number} x */
 const r1 = (x) => Math.round(x * 10) / 10;
+/** @param {unknown} e */
+const firstLine = (e) => String(/** @type {{ message?: unknown }} */ (e)?.message ?? e).split('\n')[0];
+
+/**
+ * One query nestready issued, timed from the call to its end (for a stream: its last chunk).
+ * @typedef {{ kind: string, sql: string, startMs: number, endMs: number, maxRssMB: number, error?: string }} Query
+ */
+/** @param {string} sql */
+const started = (sql) => ({ kind: label(sql), sql: String(sql).slice(0, 120), startMs: performance.now(), endMs: 0, maxRssMB: 0 });
 
 // ---- load the DuckDB binding first (so its cost is visible), then instrument it ------
 const t0 = performance.now();
@@ -35,6 +46,7 @@ const t0 = performance.now();
 const duck = createRequire(import.meta.url)('@duckdb/node-api');
 const duckImportedMs = performance.now();
 
+/** @type {Query[]} */
 const queries = [];
 // connections inside runAndReadAll (which calls run): per connection, since look-ups run at once
 const inReadAll = new WeakSet();
@@ -49,6 +61,7 @@ const origStream = proto.stream;
 //   describe     other DESCRIBE
 //   rejects      reads of the rejects table
 //   lookup       anything else (rule lookups: bounded output, but may scan the delivery)
+/** @param {string} sql */
 function label(sql) {
   const s = String(sql).replace(/\s+/g, ' ').trim();
   if (/count\(\*\)::DOUBLE AS n\b/.test(s) && /GROUP BY/i.test(s)) return 'profile';
@@ -57,13 +70,15 @@ function label(sql) {
   if (/\bnr_rejects\b/.test(s)) return 'rejects';
   return 'lookup';
 }
+/** @param {string} sql @param {unknown[]} rest */
 proto.run = async function run(sql, ...rest) {
   if (inReadAll.has(this)) return origRun.call(this, sql, ...rest); // timed by runAndReadAll below
-  const q = { kind: label(sql), sql: String(sql).slice(0, 120), startMs: performance.now() };
+  /** @type {Query} */
+  const q = started(sql);
   try {
     return await origRun.call(this, sql, ...rest);
   } catch (e) {
-    q.error = String(e?.message ?? e).split('\n')[0];
+    q.error = firstLine(e);
     throw e;
   } finally {
     q.endMs = performance.now();
@@ -73,13 +88,15 @@ proto.run = async function run(sql, ...rest) {
 };
 // the profiling query is streamed (read chunk by chunk): timed from the call to the last
 // chunk, so the result's conversion is in its time
+/** @param {string} sql @param {unknown[]} rest */
 proto.stream = async function stream(sql, ...rest) {
-  const q = { kind: label(sql), sql: String(sql).slice(0, 120), startMs: performance.now() };
+  /** @type {Query} */
+  const q = started(sql);
   let result;
   try {
     result = await origStream.call(this, sql, ...rest);
   } catch (e) {
-    q.error = String(e?.message ?? e).split('\n')[0];
+    q.error = firstLine(e);
     q.endMs = performance.now();
     q.maxRssMB = rssMB();
     queries.push(q);
@@ -100,7 +117,7 @@ proto.stream = async function stream(sql, ...rest) {
     } catch (e) {
       if (!done) {
         done = true;
-        q.error = String(e?.message ?? e).split('\n')[0];
+        q.error = firstLine(e);
         q.endMs = performance.now();
         q.maxRssMB = rssMB();
         queries.push(q);
@@ -110,13 +127,15 @@ proto.stream = async function stream(sql, ...rest) {
   };
   return result;
 };
+/** @param {string} sql @param {unknown[]} rest */
 proto.runAndReadAll = async function runAndReadAll(sql, ...rest) {
-  const q = { kind: label(sql), sql: String(sql).slice(0, 120), startMs: performance.now() };
+  /** @type {Query} */
+  const q = started(sql);
   inReadAll.add(this);
   try {
     return await origReadAll.call(this, sql, ...rest);
   } catch (e) {
-    q.error = String(e?.message ?? e).split('\n')[0];
+    q.error = firstLine(e);
     throw e;
   } finally {
     inReadAll.delete(this);
@@ -126,7 +145,9 @@ proto.runAndReadAll = async function runAndReadAll(sql, ...rest) {
   }
 };
 
-const { main } = await import('../dist/bundle/cli.js');
+// the bundle has no declarations; its main is src/cli.ts's
+/** @type {typeof import('../dist/src/cli.js')} */
+const { main } = await import(new URL('../dist/bundle/cli.js', import.meta.url).href);
 const cliImportedMs = performance.now();
 const rssAfterImportMB = rssMB();
 
@@ -141,6 +162,7 @@ const mainEndMs = performance.now();
 queries.sort((a, b) => a.startMs - b.startMs);
 // wall time during which a query of this kind ran: look-ups run at once, so overlapping
 // intervals count once
+/** @param {string} kind */
 const sumKind = (kind) => {
   let total = 0;
   let reach = -Infinity;
@@ -184,7 +206,7 @@ const timings = {
 
 // the fatal query: the last one that threw, when main ended in an error (a caught throw,
 // e.g. the rejects table not existing, is not a failure)
-const failed = (process.exitCode ?? 0) >= 2 ? [...queries].reverse().find((q) => q.error) : null;
+const failed = Number(process.exitCode ?? 0) >= 2 ? [...queries].reverse().find((q) => q.error) : null;
 const result = {
   maxRssMB: r1(rssMB()),
   exitCode: process.exitCode ?? 0,
@@ -201,6 +223,6 @@ const result = {
   })),
 };
 const line = JSON.stringify(result);
-if (process.env.NESTREADY_BENCH_RESULT) writeFileSync(process.env.NESTREADY_BENCH_RESULT, line + '\n');
-else process.stderr.write(line + '\n');
+if (process.env.NESTREADY_BENCH_RESULT) writeFileSync(process.env.NESTREADY_BENCH_RESULT, `${line}\n`);
+else process.stderr.write(`${line}\n`);
 // exit code stays whatever main set (process.exitCode)

@@ -1,4 +1,6 @@
 #!/usr/bin/env node
+
+// @ts-check
 // Baseline for the profiling pass: how long does a bare DuckDB group-by over the
 // CSV take, and how much memory does the process peak at?
 //
@@ -11,8 +13,8 @@
 //   maxRssMB = process.resourceUsage().maxRSS / 1024 (peak RSS of this process)
 //   groups   = number of result rows (distinct GROUPCOL values, NULL counted once)
 
-import { DuckDBInstance } from '@duckdb/node-api';
 import { existsSync } from 'node:fs';
+import { DuckDBInstance } from '@duckdb/node-api';
 
 const [file, groupCol, valueCol = 'wait_minutes'] = process.argv.slice(2);
 if (!file || !groupCol) {
@@ -24,12 +26,12 @@ if (!existsSync(file)) {
   process.exit(2);
 }
 
+/** @param {string} s */
 const sqlString = (s) => `'${String(s).replace(/'/g, "''")}'`;
+/** @param {string} s */
 const ident = (s) => `"${String(s).replace(/"/g, '""')}"`;
 
-const sql =
-  `SELECT ${ident(groupCol)}, count(*), avg(${ident(valueCol)}) ` +
-  `FROM read_csv(${sqlString(file)}) GROUP BY 1`;
+const sql = `SELECT ${ident(groupCol)}, count(*), avg(${ident(valueCol)}) FROM read_csv(${sqlString(file)}) GROUP BY 1`;
 
 const t0 = performance.now();
 const inst = await DuckDBInstance.create(':memory:', { threads: '2', memory_limit: '200MB' });

@@ -1,14 +1,15 @@
 #!/usr/bin/env node
+import { rmSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+// @ts-check
 // The command line starts from one bundle (dist/bundle/cli.js) rather than from the hundreds of
-// modules tsc writes to dist/: Node resolves and loads each module file on its own, and that
-// alone took a third of a second of every `nestready audit`. The library (dist/src/index.js)
+// modules tsc writes to dist/: Node resolves and loads each module file on its own, which was a
+// large part of every `nestready audit`'s start-up (docs/performance.md). The library (dist/src/index.js)
 // stays as tsc writes it. The native DuckDB binding and the libraries loaded only for some
 // formats and reports stay outside the bundle; the audit engine and the HTML renderer become
 // chunks loaded on demand, as their dynamic imports in src/ say.
 import { build } from 'esbuild';
-import { rmSync } from 'node:fs';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const outdir = join(root, 'dist/bundle');

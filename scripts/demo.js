@@ -1,8 +1,9 @@
+// @ts-check
 // `npm run demo`: audit the shipped demo delivery (it has planted defects, so its gate fails)
 // and explain that the failed gate is the expected outcome, exiting 0.
 import { spawnSync } from 'node:child_process';
-import { fileURLToPath } from 'node:url';
 import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const delivery = 'fixtures/demo/repairs-delivery.csv';

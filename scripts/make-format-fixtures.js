@@ -1,4 +1,5 @@
 #!/usr/bin/env node
+// @ts-check
 // Regenerate fixtures/formats/ from fixtures/demo/repairs-delivery.csv: the same delivery in every
 // format nestready reads, plus small cases for encodings and unreadable lines. The parity tests
 // (test/source/formats/) audit each one and compare with the audit of the CSV.
@@ -14,7 +15,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { gzipSync } from 'node:zlib';
 import { DuckDBInstance } from '@duckdb/node-api';
-import { Float64, Utf8, makeTable, tableToIPC, vectorFromArray } from 'apache-arrow';
+import { Float64, Table, tableToIPC, Utf8, vectorFromArray } from 'apache-arrow';
 import ExcelJS from 'exceljs';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
@@ -22,13 +23,17 @@ const demo = join(root, 'fixtures/demo/repairs-delivery.csv');
 const out = join(root, 'fixtures/formats');
 mkdirSync(out, { recursive: true });
 const csvText = readFileSync(demo, 'utf8');
+/** @param {string} s */
 const sql = (s) => `'${s.replace(/'/g, "''")}'`;
 
 // ---- text variants ----------------------------------------------------------------------
 writeFileSync(join(out, 'repairs-bom.csv'), `\ufeff${csvText}`);
 writeFileSync(join(out, 'repairs.csv.gz'), gzipSync(Buffer.from(csvText, 'utf8'), { level: 9 }));
 
-/** Split one CSV line into fields (the demo quotes only simple fields, never newlines). */
+/**
+ * Split one CSV line into fields (the demo quotes only simple fields, never newlines).
+ * @param {string} line
+ */
 function fields(line) {
   const outFields = [];
   let i = 0;
@@ -36,8 +41,12 @@ function fields(line) {
     if (line[i] === '"') {
       let j = i + 1;
       let v = '';
-      for (;;) {
-        if (line[j] === '"' && line[j + 1] === '"') { v += '"'; j += 2; } else if (line[j] === '"') break; else v += line[j++];
+      while (true) {
+        if (line[j] === '"' && line[j + 1] === '"') {
+          v += '"';
+          j += 2;
+        } else if (line[j] === '"') break;
+        else v += line[j++];
       }
       outFields.push(v);
       i = j + 2;
@@ -51,36 +60,56 @@ function fields(line) {
 }
 const lines = csvText.replace(/\n$/, '').split('\n');
 const table = lines.map(fields);
+/** @param {string} v */
 const tsvField = (v) => (/[\t"\n]|^\s|\s$/.test(v) ? `"${v.replace(/"/g, '""')}"` : v);
-writeFileSync(join(out, 'repairs.tsv'), table.map((r) => r.map(tsvField).join('\t')).join('\n') + '\n');
+writeFileSync(join(out, 'repairs.tsv'), `${table.map((r) => r.map(tsvField).join('\t')).join('\n')}\n`);
 
 // a subset with accented network names, in UTF-8 and in Latin-1
+/** @type {Record<string, string>} */
 const accents = { amber: 'ámbar', birch: 'bïrch', cobalt: 'cobalt', dune: 'düne', ember: 'émber', fern: 'fougère' };
-const accented = lines.slice(0, 601).map((l, i) => (i === 0 ? l : l.replace(/,(amber|birch|cobalt|dune|ember|fern),/, (_, n) => `,${accents[n]},`)));
-writeFileSync(join(out, 'accents.csv'), accented.join('\n') + '\n');
-writeFileSync(join(out, 'accents.latin1.csv'), Buffer.from(accented.join('\n') + '\n', 'latin1'));
+const accented = lines
+  .slice(0, 601)
+  .map((l, i) => (i === 0 ? l : l.replace(/,(amber|birch|cobalt|dune|ember|fern),/, (_, n) => `,${accents[n]},`)));
+writeFileSync(join(out, 'accents.csv'), `${accented.join('\n')}\n`);
+writeFileSync(join(out, 'accents.latin1.csv'), Buffer.from(`${accented.join('\n')}\n`, 'latin1'));
 
 // unreadable lines: 60 records (one of them with a quoted field) with broken lines between them
 const quoted = lines.find((l) => l.includes('"W-014 "'));
 const records = [quoted, ...lines.slice(1, 60)];
+const notUtf8 = Buffer.concat([
+  Buffer.from('J900004,W-001,amber,31.5,1,lamp'),
+  Buffer.from([0xff, 0xfe]),
+  Buffer.from(',2.0,1,weekly,9,2022'),
+]);
+/** @type {[number, string | Buffer][]} */
 const brokenLines = [
   [11, 'J900001,W-001,amber,31.5,1,lamp'], // file line 12: too few fields
   [21, 'J900002,W-001,amber,31.5,1,lamp,2.0,1,weekly,9,2022,surplus'], // line 22: too many fields
   [31, 'J900003,W-001,amber,31.5,1,"lamp"x,2.0,1,weekly,9,2022'], // line 32: text after a closing quote
-  [41, Buffer.concat([Buffer.from('J900004,W-001,amber,31.5,1,lamp'), Buffer.from([0xff, 0xfe]), Buffer.from(',2.0,1,weekly,9,2022')])], // line 42: not UTF-8
+  [41, notUtf8], // line 42: not UTF-8
 ];
-const parts = [Buffer.from(lines[0] + '\n')];
+const parts = [Buffer.from(`${lines[0]}\n`)];
 let at = 1; // file line of the next record
 for (const [i, r] of records.entries()) {
-  for (const [where, bad] of brokenLines) if (where === at) { parts.push(Buffer.concat([Buffer.from(bad), Buffer.from('\n')])); at++; }
-  parts.push(Buffer.from(r + '\n'));
+  for (const [where, bad] of brokenLines)
+    if (where === at) {
+      parts.push(Buffer.concat([typeof bad === 'string' ? Buffer.from(bad) : bad, Buffer.from('\n')]));
+      at++;
+    }
+  parts.push(Buffer.from(`${r}\n`));
   at++;
   if (i === records.length - 1) break;
 }
 writeFileSync(join(out, 'rejects.csv'), Buffer.concat(parts));
 // a quote never closed: the rest of the file becomes one (rejected) record, from line 6 on
-writeFileSync(join(out, 'runaway-quote.csv'), [lines[0], quoted, ...lines.slice(1, 4)].join('\n') + '\n' +
-  'J900005,W-001,amber,31.5,1,"lamp,2.0,1,weekly,9,2022\n' + lines.slice(4, 10).join('\n') + '\n');
+writeFileSync(
+  join(out, 'runaway-quote.csv'),
+  [lines[0], quoted, ...lines.slice(1, 4)].join('\n') +
+    '\n' +
+    'J900005,W-001,amber,31.5,1,"lamp,2.0,1,weekly,9,2022\n' +
+    lines.slice(4, 10).join('\n') +
+    '\n',
+);
 
 // ---- typed formats, through DuckDB's own typing of the CSV ----------------------------------
 const inst = await DuckDBInstance.create(':memory:');
@@ -93,14 +122,15 @@ await con.run(`COPY d TO ${sql(join(out, 'repairs.ndjson'))} (FORMAT json)`);
 
 const types = (await con.runAndReadAll('DESCRIBE d')).getRowObjectsJS();
 const columns = (await con.runAndReadAll('SELECT * FROM d')).getColumnsObjectJS();
+/** @type {Record<string, import('apache-arrow').Vector>} */
 const vectors = {};
 for (const { column_name: name, column_type: type } of types) {
-  const numeric = /INT|DOUBLE|FLOAT|DECIMAL/.test(type);
-  const values = columns[name].map((v) => (v === null ? null : numeric ? Number(v) : String(v)));
-  vectors[name] = vectorFromArray(values, numeric ? new Float64() : new Utf8());
+  const numeric = /INT|DOUBLE|FLOAT|DECIMAL/.test(String(type));
+  const values = columns[String(name)].map((v) => (v === null ? null : numeric ? Number(v) : String(v)));
+  vectors[String(name)] = vectorFromArray(values, numeric ? new Float64() : new Utf8());
 }
-writeFileSync(join(out, 'repairs.arrow'), tableToIPC(makeTable(vectors), 'file'));
-writeFileSync(join(out, 'repairs.arrows'), tableToIPC(makeTable(vectors), 'stream'));
+writeFileSync(join(out, 'repairs.arrow'), tableToIPC(new Table(vectors), 'file'));
+writeFileSync(join(out, 'repairs.arrows'), tableToIPC(new Table(vectors), 'stream'));
 con.closeSync();
 inst.closeSync();
 
@@ -110,6 +140,7 @@ wb.creator = 'nestready fixtures';
 wb.created = new Date(Date.UTC(2024, 5, 11));
 wb.modified = new Date(Date.UTC(2024, 5, 11));
 const ws = wb.addWorksheet('jobs');
+/** @param {string} v */
 const canonicalNumber = (v) => /^-?\d+(\.\d+)?$/.test(v) && String(Number(v)) === v;
 for (const [i, r] of table.entries()) ws.addRow(r.map((v) => (i > 0 && canonicalNumber(v) ? Number(v) : v === '' ? null : v)));
 wb.addWorksheet('notes').addRow(['repairs-delivery.csv as a workbook (fixtures/formats, scripts/make-format-fixtures.js)']);

@@ -7,7 +7,7 @@ export const ROLE_MAP_VALIDATOR_FILE = 'src/roles/role-map-validator.generated.t
 
 /**
  * Source of the role map's validator, compiled ahead of time: compiling the schema on every run
- * took 30 ms of each audit's start-up. Same options as createAjv, except that string lengths are
+ * would add to each audit's start-up. Same options as createAjv, except that string lengths are
  * counted in UTF-16 units (`unicode: false`), so the code needs nothing from ajv at run time; the
  * only length limits in the role map are "not empty", which both counts agree on.
  */

@@ -4,11 +4,11 @@ import type { Ajv, ErrorObject } from 'ajv';
 /**
  * The one Ajv factory: all errors, defaults filled in, unknown keywords tolerated in docs. The
  * schemas are the project's own, checked against the JSON Schema meta-schema by the tests
- * (`checkSchemas`); checking them again on every run compiled the meta-schema, 50 ms a run.
+ * (`checkSchemas`); checking them again on every run would compile the meta-schema each time.
  */
 export function createAjv(options: { checkSchemas?: boolean } = {}): Ajv {
   // loaded on first use: an audit whose role map sets no rule params never needs it (the role
-  // map itself is checked by precompiled code), and loading it took 10 ms of every start
+  // map itself is checked by precompiled code), and loading it would delay every start
   const { Ajv: AjvClass } = createRequire(import.meta.url)('ajv') as typeof import('ajv');
   return new AjvClass({ allErrors: true, useDefaults: true, strict: false, validateSchema: options.checkSchemas ?? false });
 }
