@@ -1,5 +1,7 @@
 import { catalogue } from '../../rules/index.js';
 import type { Profile } from '../profile/types.js';
+import { groupSizes } from '../profile/group-stats.js';
+import { readsAsNumbers } from '../profile/reads-as-numbers.js';
 import type { Roles } from '../roles/types.js';
 import { resolveParams } from '../rules/engine.js';
 import { variableStats } from '../rules/variable-stats.js';
@@ -32,14 +34,14 @@ export function buildPlotData(profile: Profile, roles: Roles, outcomes: Record<s
   const predictorShares: PlotData['predictorShares'] = {};
   for (const name of roles.level1) {
     const col = profile.column(name);
-    if (!col.numericProfiled || col.type === 'categorical') continue;
+    if (!readsAsNumbers(col)) continue;
     // the same cached fit the predictor rules read: one REML fit per predictor per audit
     const s = variableStats(profile, name);
     predictorShares[name] = { reml: s.reml.icc, anova: s.anova.icc };
   }
 
   const data: PlotData = {
-    groupSizes: sizeHistogram(profile.groups.array('n') as number[]),
+    groupSizes: sizeHistogram(groupSizes(profile.groups)),
     groupMeans: groupMeansByOutcome,
     predictorShares,
   };
