@@ -2,13 +2,13 @@ import { readdirSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { catalogue } from '../rules/index.js';
-import { createAjv } from '../src/util/ajv.js';
-import { resolveParams } from '../src/rules/engine.js';
-import type { Roles } from '../src/roles/types.js';
-import type { AnyRule } from '../src/rules/define.js';
+import { catalogue } from '../../rules/index.js';
+import { createAjv } from '../../src/util/ajv.js';
+import { resolveParams } from '../../src/rules/engine.js';
+import type { Roles } from '../../src/roles/types.js';
+import type { AnyRule } from '../../src/rules/define.js';
 
-const rulesDir = join(dirname(fileURLToPath(import.meta.url)), '..', 'rules');
+const rulesDir = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'rules');
 const ruleFiles = readdirSync(rulesDir)
   .filter((f) => f.endsWith('.ts') && !f.endsWith('.test.ts') && f !== 'index.ts')
   .sort();
