@@ -4,6 +4,10 @@ import { parseRoles } from '../src/roles/load.js';
 import { catalogue } from './index.js';
 import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import { expectMessage } from '../test/helpers/messages.js';
+import { checkRule, profileOfGroups } from '../test/helpers/check-rule.js';
+import type { Row } from '../test/helpers/delivery.js';
+import { outcomeStats } from '../src/stats/outcome-stats.js';
+import { momentsFromValues } from '../src/stats/moments-from-values.js';
 
 /** 10 groups of 4 with the values 1, 2, 3, 4 each: identical group means, so τ² = 0. */
 const identicalMeans = groupedRows(10, 4, (_, i) => ({ y: i + 1 }));
@@ -16,6 +20,17 @@ const identicalMeans = groupedRows(10, 4, (_, i) => ({ y: i + 1 }));
 const shifted = (c: number) => groupedRows(20, 50, (j, i) => ({ y: (c * (j - 9.5) + (i % 2 ? 1 : -1)).toFixed(6) }));
 
 const roles = { group: 'g', outcome: 'y' };
+
+/**
+ * low-icc reads only the outcome's statistics: for the params cases they are computed from the
+ * rows' group moments here, and the rule runs on them without a delivery.
+ */
+async function check(rows: Row[], rules: unknown) {
+  const byGroup = new Map<string, number[]>();
+  for (const r of rows) byGroup.set(String(r.g), [...(byGroup.get(String(r.g)) ?? []), Number(r.y)]);
+  const outcomes = { y: outcomeStats(momentsFromValues([...byGroup.values()])) };
+  return checkRule('low-icc', await profileOfGroups([...byGroup.values()].map((v) => v.length)), { ...roles, rules: { 'low-icc': rules } }, outcomes);
+}
 
 describe('low-icc', () => {
   it('identical group means (τ² = 0): warning, no evidence of between-group variance', async () => {
@@ -64,20 +79,17 @@ describe('low-icc', () => {
 
   it('icc_below and alpha come from the role map', async () => {
     // shifted(0.04) has ICC ≈ 0.034 (p < 0.001): below the limit 0.1, not below 0.03
-    const strict = await auditRows(shifted(0.04), { ...roles, rules: { 'low-icc': { icc_below: 0.03 } } });
-    expect(findingsOf(strict, 'low-icc')).toEqual([]);
-    const loose = await auditRows(shifted(0.04), { ...roles, rules: { 'low-icc': { icc_below: 0.1 } } });
-    expectMessage(onlyFinding(loose, 'low-icc'), 'small', { limit: 0.1 });
+    expect(await check(shifted(0.04), { icc_below: 0.03 })).toEqual([]);
+    const loose = await check(shifted(0.04), { icc_below: 0.1 });
+    expect(loose).toHaveLength(1);
+    expectMessage(loose[0], 'small', { limit: 0.1 });
     // p ≈ 0.004 is not below alpha = 0.001: no evidence, so a warning
-    const alpha = await auditRows(shifted(0.035), { ...roles, rules: { 'low-icc': { alpha: 0.001 } } });
-    expect(onlyFinding(alpha, 'low-icc').severity).toBe('warning');
+    expect((await check(shifted(0.035), { alpha: 0.001 })).map((f) => f.severity)).toEqual(['warning']);
   });
 
   it('off, and severity override', async () => {
-    const off = await auditRows(identicalMeans, { ...roles, rules: { 'low-icc': 'off' } });
-    expect(findingsOf(off, 'low-icc')).toEqual([]);
-    const noted = await auditRows(identicalMeans, { ...roles, rules: { 'low-icc': { severity: 'note' } } });
-    expect(onlyFinding(noted, 'low-icc').severity).toBe('note');
+    expect(await check(identicalMeans, 'off')).toEqual([]);
+    expect((await check(identicalMeans, { severity: 'note' })).map((f) => f.severity)).toEqual(['note']);
   });
 
   it('only numeric outcomes, and only when the ICC is defined', async () => {
