@@ -29,7 +29,8 @@ async function check(rows: Row[], rules: unknown) {
   const byGroup = new Map<string, number[]>();
   for (const r of rows) byGroup.set(String(r.g), [...(byGroup.get(String(r.g)) ?? []), Number(r.y)]);
   const outcomes = { y: outcomeStats(momentsFromValues([...byGroup.values()])) };
-  return checkRule('low-icc', await profileOfGroups([...byGroup.values()].map((v) => v.length)), { ...roles, rules: { 'low-icc': rules } }, outcomes);
+  const profile = await profileOfGroups([...byGroup.values()].map((v) => v.length));
+  return checkRule('low-icc', profile, { ...roles, rules: { 'low-icc': rules } }, outcomes);
 }
 
 describe('low-icc', () => {
@@ -53,7 +54,11 @@ describe('low-icc', () => {
     const f = onlyFinding(report, 'low-icc');
     expect(f.severity).toBe('note');
     expectMessage(f, 'small', { column: 'y', limit: 0.05 });
-    expect(f.data).toMatchObject({ icc: expect.stringMatching(/^0\.02\d$/), f: expect.stringMatching(/^2\.10\d$/), p: expect.stringMatching(/^0\.00\d$/) });
+    expect(f.data).toMatchObject({
+      icc: expect.stringMatching(/^0\.02\d$/),
+      f: expect.stringMatching(/^2\.10\d$/),
+      p: expect.stringMatching(/^0\.00\d$/),
+    });
     expect(f.data.deff).toMatch(/^2\.0\d$/);
   });
 
@@ -63,7 +68,11 @@ describe('low-icc', () => {
     const f = onlyFinding(report, 'low-icc');
     expect(f.severity).toBe('warning');
     expectMessage(f, 'none', { column: 'y', df1: 19, df2: 980 });
-    expect(f.data).toMatchObject({ icc: expect.stringMatching(/^0\.01\d$/), f: expect.stringMatching(/^1\.54\d$/), p: expect.stringMatching(/^0\.06\d$/) });
+    expect(f.data).toMatchObject({
+      icc: expect.stringMatching(/^0\.01\d$/),
+      f: expect.stringMatching(/^1\.54\d$/),
+      p: expect.stringMatching(/^0\.06\d$/),
+    });
   });
 
   it('HSB (Raudenbush & Bryk 2002): ICC ≈ 0.18 is strong clustering, no finding', async () => {

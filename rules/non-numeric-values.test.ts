@@ -15,7 +15,8 @@ describe('non-numeric-values', () => {
     expect(f.count).toBe(5);
     expect(f.rows).toEqual([3, 25, 47, 60, 81]);
     expect(f.values).toEqual(['"n/a" ×3 (records 3, 25, 47)', '"1,234" ×1 (records 81)', '"<5" ×1 (records 60)']);
-    expectMessage(f, 'tokens', { column: 'y', count: 5, present: 100, share: '5.0%', kinds: '3 missing codes, 1 thousands separator, 1 censored value' });
+    const kinds = '3 missing codes, 1 thousands separator, 1 censored value';
+    expectMessage(f, 'tokens', { column: 'y', count: 5, present: 100, share: '5.0%', kinds });
   });
 
   it('a few tokens warn; with values withheld the tokens are not shown', async () => {

@@ -9,9 +9,12 @@ const roles = { group: 'g' };
 /** `groups` groups, the last `singles` of which hold one record, the others two. */
 const delivery = (groups: number, singles: number) => groupedRows(groups, (j) => (j >= groups - singles ? 1 : 2));
 /** The same groups as a built profile, for the cases that need no delivery. */
-const sizes = (groups: number, singles: number) => profileOfGroups(Array.from({ length: groups }, (_, j) => (j >= groups - singles ? 1 : 2)));
-const check = async (groups: number, singles: number, rules?: unknown) =>
-  checkRule('singleton-groups', await sizes(groups, singles), { group: 'g', ...(rules !== undefined && { rules: { 'singleton-groups': rules } }) });
+const sizes = (groups: number, singles: number) =>
+  profileOfGroups(Array.from({ length: groups }, (_, j) => (j >= groups - singles ? 1 : 2)));
+const check = async (groups: number, singles: number, rules?: unknown) => {
+  const settings = rules !== undefined && { rules: { 'singleton-groups': rules } };
+  return checkRule('singleton-groups', await sizes(groups, singles), { group: 'g', ...settings });
+};
 const only = (found: Awaited<ReturnType<typeof check>>) => {
   expect(found).toHaveLength(1);
   return found[0];

@@ -113,7 +113,9 @@ export async function buildProfile(source: Source, roles: Roles, options: { onSc
         const mean = groupStat(groups, name, 'mean');
         const ss = groupStat(groups, name, 'ss');
         out = [];
-        for (let i = 0; i < n.length; i++) if (n[i] > 0) out.push(Object.freeze({ n: n[i], mean: mean[i] as number, ss: Math.max(0, ss[i] as number) }));
+        for (let i = 0; i < n.length; i++) {
+          if (n[i] > 0) out.push(Object.freeze({ n: n[i], mean: mean[i] as number, ss: Math.max(0, ss[i] as number) }));
+        }
         momentCache.set(name, out);
       }
       return out.slice();

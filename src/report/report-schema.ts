@@ -120,7 +120,12 @@ export const reportSchema = {
           fix: text,
           count,
           groups: { ...texts, maxItems: 20, description: 'the first 20 group IDs' },
-          rows: { type: 'array', items: { type: 'integer', minimum: 1 }, maxItems: 20, description: 'the first 20 record numbers, 1-based' },
+          rows: {
+            type: 'array',
+            items: { type: 'integer', minimum: 1 },
+            maxItems: 20,
+            description: 'the first 20 record numbers, 1-based',
+          },
           values: { ...texts, maxItems: 20, description: 'raw values seen; absent with --no-values' },
         },
       },

@@ -7,7 +7,10 @@ import type { Profile } from '../profile/types.js';
  * columns that read as numbers and hold nothing else (the number range would miss a stray token),
  * text otherwise. Equal ⇔ constant in the group.
  */
-export function groupRange(profile: Profile, column: string): { lo: (number | string | null)[]; hi: (number | string | null)[]; asNumbers: boolean } {
+export function groupRange(
+  profile: Profile,
+  column: string,
+): { lo: (number | string | null)[]; hi: (number | string | null)[]; asNumbers: boolean } {
   const col = profile.column(column);
   const asNumbers = readsAsNumbers(col) && (col.storage === 'double' || col.numericCount === col.nonMissing);
   const lo = asNumbers ? groupStat(profile.groups, column, 'numMin') : groupStat(profile.groups, column, 'textMin');

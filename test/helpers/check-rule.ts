@@ -12,7 +12,10 @@ import { groupId, toYaml } from './delivery.js';
  * read only the group table's IDs and sizes, so they need no delivery and no DuckDB. IDs default
  * to G001, G002, …; like the real profile's, they should be in ascending order.
  */
-export async function profileOfGroups(sizes: readonly number[], ids: readonly string[] = sizes.map((_, j) => groupId(j))): Promise<Profile> {
+export async function profileOfGroups(
+  sizes: readonly number[],
+  ids: readonly string[] = sizes.map((_, j) => groupId(j)),
+): Promise<Profile> {
   if (ids.length !== sizes.length) throw new Error('one ID per group size');
   const aq = await loadArquero();
   const none = (name: string): never => {

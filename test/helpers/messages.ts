@@ -17,7 +17,9 @@ export function expectMessage(finding: Finding, messageId: string, data?: Record
   const rule = catalogue.find((r) => r.meta.id === finding.rule);
   if (!rule) throw new Error(`no rule "${finding.rule}" in the catalogue`);
   const declared = Object.keys(rule.meta.messages);
-  if (!declared.includes(messageId)) throw new Error(`${finding.rule}: undeclared messageId "${messageId}" (declared: ${declared.join(', ')})`);
+  if (!declared.includes(messageId)) {
+    throw new Error(`${finding.rule}: undeclared messageId "${messageId}" (declared: ${declared.join(', ')})`);
+  }
   expect(finding.messageId, `${finding.rule}: messageId`).toBe(messageId);
   if (data) expect(finding.data, `${finding.rule}/${messageId}: data`).toMatchObject(data);
 }

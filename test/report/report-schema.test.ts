@@ -12,8 +12,9 @@ const check = (json: unknown) => {
   const ok = validate(json);
   return ok ? [] : (validate.errors ?? []).map((e) => `${e.instancePath} ${e.message}`);
 };
+const demoRoles = () => loadRoles('fixtures/demo/repairs-delivery.roles.yaml', catalogue);
 const demo = (includeValues = true) =>
-  audit('fixtures/demo/repairs-delivery.csv', loadRoles('fixtures/demo/repairs-delivery.roles.yaml', catalogue), { threads: 1, includeValues, plotData: false });
+  audit('fixtures/demo/repairs-delivery.csv', demoRoles(), { threads: 1, includeValues, plotData: false });
 
 describe('the report\'s JSON Schema', () => {
   it('accepts the frozen demo report', () => {
@@ -27,7 +28,8 @@ describe('the report\'s JSON Schema', () => {
   });
 
   it('accepts the HSB report', async () => {
-    const roles = parseRoles('group: school\nunit: student\noutcome: mathach\nlevel1: [ses, minority, sex]\nlevel2: [sector, size, meanses]\n', 'hsb.yaml', catalogue);
+    const yaml = 'group: school\nunit: student\noutcome: mathach\nlevel1: [ses, minority, sex]\nlevel2: [sector, size, meanses]\n';
+    const roles = parseRoles(yaml, 'hsb.yaml', catalogue);
     const json = JSON.parse(renderJson(await audit('fixtures/reference/hsb.csv', roles, { threads: 1, plotData: false })));
     expect(check(json)).toEqual([]);
     expect(json.outcomes.mathach.n).toBe(7185);
