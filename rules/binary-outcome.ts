@@ -1,4 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
+import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
 import { percent } from '../src/rules/describe.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { binaryGroupsFromMoments, logisticNullModel, momentsAreZeroOne } from '../src/stats/logistic-null-model.js';
@@ -65,7 +66,7 @@ export default defineRule<Params>({
     const findings: FindingDraft[] = [];
     for (const column of roles.outcomes) {
       const col = profile.column(column);
-      if (col.type !== 'binary' || !col.numericProfiled) continue;
+      if (col.type !== 'binary' || !readsAsNumbers(col)) continue;
       const moments = profile.moments(column);
       if (!momentsAreZeroOne(moments) || (col.numMin ?? 0) < 0 || (col.numMax ?? 1) > 1) {
         findings.push({ messageId: 'notBinary', severity: 'warning', column, data: { column, min: String(col.numMin), max: String(col.numMax) } });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { auditRows, findingsOf, onlyFinding } from '../test/helpers/delivery.js';
 import type { Row } from '../test/helpers/delivery.js';
+import { expectMessage } from '../test/helpers/messages.js';
 
 const base: Row[] = [
   { id: 'a1', g: 'A', y: 1 },
@@ -18,13 +19,10 @@ describe('duplicate-unit-id', () => {
     const [conflicting, copies] = found;
     expect(conflicting.count).toBe(1);
     expect(conflicting.rows).toEqual([4, 6, 7]);
-    expect(conflicting.message).toBe('1 id value(s) are on several records that differ (3 records): "b2" (3 records)');
-    expect(conflicting.fix).toMatch(/which record is right/);
+    expectMessage(conflicting, 'conflicting', { count: 1, column: 'id', records: 3, ids: '"b2" (3 records)' });
     expect(copies.count).toBe(1);
     expect(copies.rows).toEqual([1, 5]);
-    expect(copies.message).toContain('1 extra record(s), every column equal');
-    expect(copies.message).toContain('"a1" (2 records)');
-    expect(copies.fix).toMatch(/keep one of each/);
+    expectMessage(copies, 'copies', { count: 1, column: 'id', copies: 1, ids: '"a1" (2 records)' });
   });
 
   it('is silent when every unit ID is on one record, or when no unit is declared', async () => {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { auditRows, findingsOf, onlyFinding } from '../test/helpers/delivery.js';
 import { parentRows } from '../test/helpers/parent-rows.js';
+import { expectMessage } from '../test/helpers/messages.js';
 
 const roles = { group: 'g', parent: 'p', level2: ['size'] };
 
@@ -12,10 +13,9 @@ describe('group-code-reused', () => {
     expect(f.count).toBe(1);
     expect(f.groups).toEqual(['B']);
     expect(f.rows).toEqual([7, 8, 9, 10, 11, 12]);
-    expect(f.message).toContain('used by more than one p for different groups (size differs between them)');
-    expect(f.message).toContain('B: north (3) / south (3)');
+    expectMessage(f, 'reused', { group: 'g', parent: 'p', column: 'size' });
+    expect(f.data.splits).toContain('B: north (3) / south (3)');
     expect(f.values).toEqual(['B: size 10 / 20']);
-    expect(f.fix).toContain('composite ID such as "p/g"');
     // the same group is not also reported as split
     expect(onlyFinding(report, 'group-in-several-parents').groups).toEqual(['A']);
   });

@@ -1,27 +1,34 @@
 import { describe, expect, it } from 'vitest';
-import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
+import { checkRule, profileOfGroups } from '../test/helpers/check-rule.js';
+import { expectMessage } from '../test/helpers/messages.js';
 
-const delivery = (groups: number) => groupedRows(groups, 3, (j, i) => ({ y: i, a: j, b: j % 3, c: `t${j % 2}` }));
+// the rule reads how many groups there are and how many level-2 variables the role map declares
+const check = async (groups: number, level2: string[], rules?: Record<string, unknown>) =>
+  checkRule('groups-per-level2-predictor', await profileOfGroups(Array(groups).fill(3)), {
+    group: 'g',
+    ...(level2.length && { level2 }),
+    ...(rules && { rules: { 'groups-per-level2-predictor': rules } }),
+  });
 
 describe('groups-per-level2-predictor', () => {
   it('warns below 10 groups per level-2 variable (heuristic) and gives the J − q − 1 df', async () => {
-    const f = onlyFinding(await auditRows(delivery(20), { group: 'g', level2: ['a', 'b', 'c'] }), 'groups-per-level2-predictor');
+    const [f, ...more] = await check(20, ['a', 'b', 'c']);
+    expect(more).toEqual([]);
     expect(f.severity).toBe('warning');
     expect(f.count).toBe(20);
-    expect(f.message).toBe('20 groups for 3 level-2 variable(s) (6.7 per variable, below the heuristic 10): level-2 effects are tested on 16 degrees of freedom');
-    expect(f.fix).toMatch(/fewer level-2 variables/);
+    expectMessage(f, 'few', { groups: 20, q: 3, ratio: '6.7', limit: 10, df: 16 });
   });
 
   it('blocks when no degrees of freedom are left', async () => {
-    const f = onlyFinding(await auditRows(delivery(3), { group: 'g', level2: ['a', 'b'] }), 'groups-per-level2-predictor');
+    const [f, ...more] = await check(3, ['a', 'b']);
+    expect(more).toEqual([]);
     expect(f.severity).toBe('blocker');
-    expect(f.message).toContain('J − q − 1 = 0 degrees of freedom');
+    expectMessage(f, 'none', { groups: 3, q: 2, df: 0 });
   });
 
   it('is silent with enough groups, without level-2 variables, and follows per_predictor', async () => {
-    expect(findingsOf(await auditRows(delivery(30), { group: 'g', level2: ['a', 'b', 'c'] }), 'groups-per-level2-predictor')).toEqual([]);
-    expect(findingsOf(await auditRows(delivery(5), { group: 'g' }), 'groups-per-level2-predictor')).toEqual([]);
-    const rules = { 'groups-per-level2-predictor': { per_predictor: 5 } };
-    expect(findingsOf(await auditRows(delivery(20), { group: 'g', level2: ['a', 'b', 'c'], rules }), 'groups-per-level2-predictor')).toEqual([]);
+    expect(await check(30, ['a', 'b', 'c'])).toEqual([]);
+    expect(await check(5, [])).toEqual([]);
+    expect(await check(20, ['a', 'b', 'c'], { per_predictor: 5 })).toEqual([]);
   });
 });

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { normalizeId } from '../src/source/lookups/lookup.js';
 import { auditRows, findingsOf, onlyFinding } from '../test/helpers/delivery.js';
 import type { Row } from '../test/helpers/delivery.js';
+import { expectMessage } from '../test/helpers/messages.js';
 
 // records 1–6 "W-014" spelled three ways, 7–9 "007"/"7", 10–13 "12"/"12.0", 14–15 "A7" alone
 const spellings = ['W-014', 'W-014', 'W-014', 'W-014 ', 'W-014 ', 'w-014', '007', '007', '7', '12', '12', '12.0', '12.0', 'A7', 'A7'];
@@ -15,11 +16,10 @@ describe('id-variants', () => {
     expect(f.groups).toEqual(['007', '7', '12', '12.0', 'W-014', 'W-014 ', 'w-014']);
     // the minority spellings: "7" (record 9), "12.0" (12, 13; "12" wins the tie by name), "W-014 " and "w-014" (4–6)
     expect(f.rows).toEqual([4, 5, 6, 9, 12, 13]);
-    expect(f.message).toContain('3 g value(s) are one ID written in more than one way');
-    expect(f.message).toContain('"W-014" (3) / "W-014 " (2) / "w-014" (1)');
-    expect(f.message).toContain('"007" (2) / "7" (1)');
-    expect(f.message).toContain('"12" (2) / "12.0" (2)');
-    expect(f.fix).toMatch(/write each g one way/);
+    expectMessage(f, 'groups', { count: 3, column: 'g' });
+    expect(f.data.sets).toContain('"W-014" (3) / "W-014 " (2) / "w-014" (1)');
+    expect(f.data.sets).toContain('"007" (2) / "7" (1)');
+    expect(f.data.sets).toContain('"12" (2) / "12.0" (2)');
   });
 
   it('lists unit IDs written in more than one way from one bounded aggregate', async () => {
@@ -33,10 +33,10 @@ describe('id-variants', () => {
     ];
     const f = onlyFinding(await auditRows(units, { group: 'g', unit: 'id' }), 'id-variants', 'id');
     expect(f.count).toBe(2);
-    expect(f.message).toContain('"0042" (1) / "42" (1)');
-    expect(f.message).toContain('"u01" (2) / "U01" (1)');
+    expectMessage(f, 'units', { column: 'id' });
+    expect(f.data.sets).toContain('"0042" (1) / "42" (1)');
+    expect(f.data.sets).toContain('"u01" (2) / "U01" (1)');
     expect(f.rows).toEqual([2, 5]);
-    expect(f.fix).toMatch(/each spelling counts as a different unit/);
     const off = await auditRows(units, { group: 'g', unit: 'id', rules: { 'id-variants': { units: false } } });
     expect(findingsOf(off, 'id-variants')).toEqual([]);
   });

@@ -1,4 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
+import { groupIds, groupSizes } from '../src/profile/group-stats.js';
 import { firstRows, listSome, quoteId } from '../src/rules/describe.js';
 import { normalizeId } from '../src/source/lookups/lookup.js';
 import type { FoundRecord } from '../src/rules/rows.js';
@@ -48,8 +49,8 @@ export default defineRule<Params>({
   },
   async check({ profile, roles, params, lookup }) {
     const findings: FindingDraft[] = [];
-    const ids = profile.groups.array('group') as string[];
-    const sizes = profile.groups.array('n') as number[];
+    const ids = groupIds(profile.groups);
+    const sizes = groupSizes(profile.groups);
     const size = new Map(ids.map((id, i) => [id, sizes[i]]));
     const byKey = new Map<string, string[]>();
     // one key and one push per group: half a million groups are common

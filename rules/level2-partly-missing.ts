@@ -1,5 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
-import { key } from '../src/source/plan/profile-query.js';
+import { groupIds, groupSizes, groupStat } from '../src/profile/group-stats.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { groupRange } from '../src/rules/within.js';
 
@@ -27,10 +27,10 @@ export default defineRule<Record<string, never>>({
   },
   async check({ profile, roles, lookup }) {
     const findings: FindingDraft[] = [];
-    const ids = profile.groups.array('group') as string[];
-    const sizes = profile.groups.array('n') as number[];
+    const ids = groupIds(profile.groups);
+    const sizes = groupSizes(profile.groups);
     for (const column of roles.level2) {
-      const nn = profile.groups.array(key(column, 'nn')) as number[];
+      const nn = groupStat(profile.groups, column, 'nonMissing');
       const { lo, hi } = groupRange(profile, column);
       const partly = ids.map((_, i) => i).filter((i) => nn[i] > 0 && nn[i] < sizes[i]);
       if (partly.length === 0) continue;

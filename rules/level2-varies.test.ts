@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import type { Row } from '../test/helpers/delivery.js';
+import { expectMessage } from '../test/helpers/messages.js';
 
 const roles = { group: 'g', level2: ['format'] };
 
@@ -26,11 +27,9 @@ describe('level2-varies', () => {
     expect(f.groups).toEqual(['B', 'C']);
     expect(f.rows).toEqual([5, 7]);
     expect(f.values).toEqual(['B: weekly ×2 / monthly ×1', 'C: monthly ×2 / pop-up ×1']);
-    expect(f.message).toBe(
-      'format is declared level-2 but takes more than one value in 2 group(s): B: weekly ×2 / monthly ×1, C: monthly ×2 / pop-up ×1',
-    );
-    expect(f.fix).toContain('which format is right for each listed group');
-    expect(f.fix).toContain('correct the listed records');
+    expectMessage(f, 'varies', { column: 'format', count: 2 });
+    // {values} is filled from the values, in order
+    expect(f.message).toContain('B: weekly ×2 / monthly ×1, C: monthly ×2 / pop-up ×1');
   });
 
   it('is silent when every group has one value', async () => {
@@ -138,13 +137,15 @@ describe('level2-varies', () => {
     expect(f.groups![19]).toBe('G020');
     expect(f.rows).toEqual(Array.from({ length: 20 }, (_, j) => 3 * j + 3));
     expect(f.values).toHaveLength(20);
-    expect(f.message).toContain('in 25 group(s)');
+    expectMessage(f, 'varies', { count: 25 });
   });
 
   it('values withheld: no raw value in the message, fix or values, IDs and records stay', async () => {
     const report = await auditRows(varying, roles, { includeValues: false });
     const f = onlyFinding(report, 'level2-varies');
-    expect(f.message).toBe('format is declared level-2 but takes more than one value in 2 group(s): (values withheld)');
+    expectMessage(f, 'varies', { column: 'format', count: 2 });
+    expect(f.message).toMatch(/: \(values withheld\)$/);
+    for (const raw of ['weekly', 'monthly', 'pop-up']) expect(JSON.stringify(f)).not.toContain(raw);
     expect(f).not.toHaveProperty('values');
     expect(f.groups).toEqual(['B', 'C']);
     expect(f.rows).toEqual([5, 7]);

@@ -1,7 +1,8 @@
 import { defineRule } from '../src/rules/define.js';
 import type { FoundRecord } from '../src/rules/rows.js';
 import { showValue } from '../src/rules/show-value.js';
-import { key } from '../src/source/plan/profile-query.js';
+import { groupIds, groupStat } from '../src/profile/group-stats.js';
+import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
 
 interface Params {
   tolerance: number;
@@ -45,10 +46,10 @@ export default defineRule<Params>({
     const findings = [];
     for (const column of roles.level2) {
       const col = profile.column(column);
-      const numericType = col.numericProfiled && col.type !== 'categorical';
-      const ids = profile.groups.array('group') as string[];
-      const lo = profile.groups.array(key(column, numericType ? 'nmin' : 'min')) as (number | string | null)[];
-      const hi = profile.groups.array(key(column, numericType ? 'nmax' : 'max')) as (number | string | null)[];
+      const numericType = readsAsNumbers(col);
+      const ids = groupIds(profile.groups);
+      const lo = numericType ? groupStat(profile.groups, column, 'numMin') : groupStat(profile.groups, column, 'textMin');
+      const hi = numericType ? groupStat(profile.groups, column, 'numMax') : groupStat(profile.groups, column, 'textMax');
       const groups = ids.filter((_, i) =>
         numericType ? (hi[i] as number) - (lo[i] as number) > params.tolerance : lo[i] !== hi[i],
       );

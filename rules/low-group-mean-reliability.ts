@@ -1,4 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
+import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { variableStats } from '../src/rules/variable-stats.js';
 import type { VariableStats } from '../src/rules/variable-stats.js';
@@ -49,7 +50,7 @@ export default defineRule<Params>({
     for (const [name, s] of Object.entries(outcomes)) if (profile.column(name).type === 'numeric') stats.set(name, s);
     for (const name of roles.level1) {
       const col = profile.column(name);
-      if (!col.numericProfiled || col.type !== 'numeric') continue;
+      if (!readsAsNumbers(col) || col.type !== 'numeric') continue;
       const s = variableStats(profile, name);
       // without between-group variance nobody uses the group means: predictor-between-share says so
       if (s.reml.tau2 > 0) stats.set(name, s);

@@ -3,6 +3,11 @@ import { audit } from '../src/audit.js';
 import { parseRoles } from '../src/roles/load.js';
 import { catalogue } from './index.js';
 import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
+import { expectMessage } from '../test/helpers/messages.js';
+import { checkRule, profileOfGroups } from '../test/helpers/check-rule.js';
+import type { Row } from '../test/helpers/delivery.js';
+import { outcomeStats } from '../src/stats/outcome-stats.js';
+import { momentsFromValues } from '../src/stats/moments-from-values.js';
 
 /** 10 groups of 4 with the values 1, 2, 3, 4 each: identical group means, so τ² = 0. */
 const identicalMeans = groupedRows(10, 4, (_, i) => ({ y: i + 1 }));
@@ -16,6 +21,18 @@ const shifted = (c: number) => groupedRows(20, 50, (j, i) => ({ y: (c * (j - 9.5
 
 const roles = { group: 'g', outcome: 'y' };
 
+/**
+ * low-icc reads only the outcome's statistics: for the params cases they are computed from the
+ * rows' group moments here, and the rule runs on them without a delivery.
+ */
+async function check(rows: Row[], rules: unknown) {
+  const byGroup = new Map<string, number[]>();
+  for (const r of rows) byGroup.set(String(r.g), [...(byGroup.get(String(r.g)) ?? []), Number(r.y)]);
+  const outcomes = { y: outcomeStats(momentsFromValues([...byGroup.values()])) };
+  const profile = await profileOfGroups([...byGroup.values()].map((v) => v.length));
+  return checkRule('low-icc', profile, { ...roles, rules: { 'low-icc': rules } }, outcomes);
+}
+
 describe('low-icc', () => {
   it('identical group means (τ² = 0): warning, no evidence of between-group variance', async () => {
     const report = await auditRows(identicalMeans, roles);
@@ -23,8 +40,7 @@ describe('low-icc', () => {
     const f = onlyFinding(report, 'low-icc');
     expect(f.severity).toBe('warning');
     expect(f.column).toBe('y');
-    expect(f.message).toBe('y: ICC 0.000 (REML), F = 0.000 on (9, 30) df, p = 1.000: no evidence of between-group variance');
-    expect(f.fix).toMatch(/^No change to the delivery; an analyst may compare a single-level model/);
+    expectMessage(f, 'none', { column: 'y', icc: '0.000', f: '0.000', df1: 9, df2: 30, p: '1.000' });
     expect(f.rows).toBeUndefined();
     expect(f.groups).toBeUndefined();
   });
@@ -37,8 +53,13 @@ describe('low-icc', () => {
     expect(s.anova.p).toBeLessThan(0.05);
     const f = onlyFinding(report, 'low-icc');
     expect(f.severity).toBe('note');
-    expect(f.message).toMatch(/^y: ICC 0\.02\d \(REML\) is below 0\.05 but the groups do differ \(F = 2\.10\d, p = 0\.00\d\); design effect 2\.0\d$/);
-    expect(f.fix).toContain('keep the random intercept');
+    expectMessage(f, 'small', { column: 'y', limit: 0.05 });
+    expect(f.data).toMatchObject({
+      icc: expect.stringMatching(/^0\.02\d$/),
+      f: expect.stringMatching(/^2\.10\d$/),
+      p: expect.stringMatching(/^0\.00\d$/),
+    });
+    expect(f.data.deff).toMatch(/^2\.0\d$/);
   });
 
   it('small and not significant: a warning', async () => {
@@ -46,7 +67,12 @@ describe('low-icc', () => {
     expect(report.outcomes.y.anova.p).toBeGreaterThan(0.05);
     const f = onlyFinding(report, 'low-icc');
     expect(f.severity).toBe('warning');
-    expect(f.message).toMatch(/^y: ICC 0\.01\d \(REML\), F = 1\.54\d on \(19, 980\) df, p = 0\.06\d: no evidence/);
+    expectMessage(f, 'none', { column: 'y', df1: 19, df2: 980 });
+    expect(f.data).toMatchObject({
+      icc: expect.stringMatching(/^0\.01\d$/),
+      f: expect.stringMatching(/^1\.54\d$/),
+      p: expect.stringMatching(/^0\.06\d$/),
+    });
   });
 
   it('HSB (Raudenbush & Bryk 2002): ICC ≈ 0.18 is strong clustering, no finding', async () => {
@@ -62,20 +88,17 @@ describe('low-icc', () => {
 
   it('icc_below and alpha come from the role map', async () => {
     // shifted(0.04) has ICC ≈ 0.034 (p < 0.001): below the limit 0.1, not below 0.03
-    const strict = await auditRows(shifted(0.04), { ...roles, rules: { 'low-icc': { icc_below: 0.03 } } });
-    expect(findingsOf(strict, 'low-icc')).toEqual([]);
-    const loose = await auditRows(shifted(0.04), { ...roles, rules: { 'low-icc': { icc_below: 0.1 } } });
-    expect(onlyFinding(loose, 'low-icc').message).toContain('is below 0.1 but the groups do differ');
+    expect(await check(shifted(0.04), { icc_below: 0.03 })).toEqual([]);
+    const loose = await check(shifted(0.04), { icc_below: 0.1 });
+    expect(loose).toHaveLength(1);
+    expectMessage(loose[0], 'small', { limit: 0.1 });
     // p ≈ 0.004 is not below alpha = 0.001: no evidence, so a warning
-    const alpha = await auditRows(shifted(0.035), { ...roles, rules: { 'low-icc': { alpha: 0.001 } } });
-    expect(onlyFinding(alpha, 'low-icc').severity).toBe('warning');
+    expect((await check(shifted(0.035), { alpha: 0.001 })).map((f) => f.severity)).toEqual(['warning']);
   });
 
   it('off, and severity override', async () => {
-    const off = await auditRows(identicalMeans, { ...roles, rules: { 'low-icc': 'off' } });
-    expect(findingsOf(off, 'low-icc')).toEqual([]);
-    const noted = await auditRows(identicalMeans, { ...roles, rules: { 'low-icc': { severity: 'note' } } });
-    expect(onlyFinding(noted, 'low-icc').severity).toBe('note');
+    expect(await check(identicalMeans, 'off')).toEqual([]);
+    expect((await check(identicalMeans, { severity: 'note' })).map((f) => f.severity)).toEqual(['note']);
   });
 
   it('only numeric outcomes, and only when the ICC is defined', async () => {

@@ -1,6 +1,7 @@
 import chisquareCdf from '@stdlib/stats-base-dists-chisquare-cdf';
 import { describe, expect, it } from 'vitest';
 import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
+import { expectMessage } from '../test/helpers/messages.js';
 
 describe('missing-by-group', () => {
   it('tests equal missing rates across groups and names the worst groups', async () => {
@@ -12,14 +13,12 @@ describe('missing-by-group', () => {
     const share = 40 / 400;
     const missing = [12, 10, ...Array(18).fill(1)];
     const x2 = missing.reduce((s, m) => s + (m - 20 * share) ** 2 / (20 * share) + (20 - m - 20 * (1 - share)) ** 2 / (20 * (1 - share)), 0);
-    expect(f.message).toContain(`X² = ${x2.toFixed(1)} on 19 df`);
+    expectMessage(f, 'uneven', { column: 'x', chi2: x2.toFixed(1), df: 19 });
     // p from the kept library @stdlib/stats-base-dists-chisquare-cdf (well below the .01 default)
     expect(1 - chisquareCdf(x2, 19)).toBeLessThan(0.001);
-    expect(f.message).toContain('p = < .001');
-    expect(f.message).toContain('40 of 400 values missing (10.0%)');
-    expect(f.message).toContain('highest in G001 (12 of 20), G002 (10 of 20)');
+    expect(f.data).toMatchObject({ p: '< .001', missing: 40, records: 400, share: '10.0%' });
+    expect(f.data.worst).toMatch(/^G001 \(12 of 20\), G002 \(10 of 20\)/);
     expect(f.groups).toEqual(['G001', 'G002']);
-    expect(f.fix).toMatch(/impute with a model that includes the groups/);
   });
 
   it('names groups where a variable is missing on every record', async () => {
@@ -27,8 +26,7 @@ describe('missing-by-group', () => {
     const f = onlyFinding(await auditRows(rows, { group: 'g', outcome: 'y', level2: ['staff'] }), 'missing-by-group', 'staff');
     expect(f.count).toBe(2);
     expect(f.groups).toEqual(['G003', 'G005']);
-    expect(f.message).toBe('staff is missing on every record of 2 group(s) (6 records): G003, G005');
-    expect(f.fix).toMatch(/drops these groups entirely/);
+    expectMessage(f, 'allMissing', { column: 'staff', count: 2, records: 6, ids: 'G003, G005' });
   });
 
   it('is silent when missingness is even across groups, or absent', async () => {

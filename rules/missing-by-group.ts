@@ -1,5 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
-import { key } from '../src/source/plan/profile-query.js';
+import { groupIds, groupSizes, groupStat } from '../src/profile/group-stats.js';
 import { percent } from '../src/rules/describe.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { chiSquareHomogeneity } from '../src/stats/chi-square-homogeneity.js';
@@ -51,11 +51,11 @@ export default defineRule<Params>({
   },
   check({ profile, roles, params }) {
     const findings: FindingDraft[] = [];
-    const ids = profile.groups.array('group') as string[];
-    const sizes = profile.groups.array('n') as number[];
+    const ids = groupIds(profile.groups);
+    const sizes = groupSizes(profile.groups);
     const columns = [...roles.outcomes, ...roles.level1, ...roles.level2];
     for (const column of columns) {
-      const nn = profile.groups.array(key(column, 'nn')) as number[];
+      const nn = groupStat(profile.groups, column, 'nonMissing');
       const missing = sizes.map((n, i) => n - nn[i]);
       const total = missing.reduce((a, b) => a + b, 0);
       if (total === 0) continue;

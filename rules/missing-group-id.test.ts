@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { auditRows, findingsOf, onlyFinding } from '../test/helpers/delivery.js';
 import type { Row } from '../test/helpers/delivery.js';
+import { expectMessage } from '../test/helpers/messages.js';
 
 const roles = { group: 'site', outcome: 'y' };
 // records 2 (blank) and 5 (NA) have no site
@@ -22,8 +23,7 @@ describe('missing-group-id', () => {
     expect(f.count).toBe(2);
     expect(f.rows).toEqual([2, 5]);
     expect(f.groups).toBeUndefined();
-    expect(f.message).toBe('2 of 6 records have no site (blank or a missing code), so they belong to no group');
-    expect(f.fix).toBe('Ask the sender to supply site for the listed records, or to confirm in writing that they should be dropped');
+    expectMessage(f, 'missing', { count: 2, rows: 6, column: 'site' });
     // they are records, but not a group
     expect(report.input.rows).toBe(6);
     expect(report.groups.count).toBe(2);
@@ -80,7 +80,7 @@ describe('missing-group-id', () => {
     const g = onlyFinding(await auditRows(many, roles), 'missing-group-id');
     expect(g.count).toBe(45);
     expect(g.rows).toEqual(Array.from({ length: 20 }, (_, k) => k + 6));
-    expect(g.message).toContain('45 of 50 records');
+    expectMessage(g, 'missing', { count: 45, rows: 50 });
   });
 
   it('severity override and off', async () => {

@@ -1,4 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
+import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
 import { firstRows, percent, quoteId } from '../src/rules/describe.js';
 import type { Severity } from '../src/roles/types.js';
 import type { FoundRecord } from '../src/rules/rows.js';
@@ -56,8 +57,8 @@ export default defineRule<Params>({
     const findings: FindingDraft[] = [];
     for (const column of profile.header) {
       const col = profile.column(column);
-      if (!col.numericProfiled || col.type === 'categorical' || col.storage !== 'text') continue;
-      const count = col.nonMissing - col.numeric;
+      if (!readsAsNumbers(col) || col.storage !== 'text') continue;
+      const count = col.nonMissing - col.numericCount;
       if (count <= 0) continue;
       const tokens = await lookup.nonNumericTokens(column);
       const kinds = new Map<string, number>();

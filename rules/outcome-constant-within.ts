@@ -1,5 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
-import { key } from '../src/source/plan/profile-query.js';
+import { groupIds, groupStat } from '../src/profile/group-stats.js';
 import { percent } from '../src/rules/describe.js';
 import type { Severity } from '../src/roles/types.js';
 import type { FindingDraft } from '../src/rules/types.js';
@@ -44,12 +44,12 @@ export default defineRule<Params>({
   },
   check({ profile, roles, params }) {
     const findings: FindingDraft[] = [];
-    const ids = profile.groups.array('group') as string[];
+    const ids = groupIds(profile.groups);
     for (const column of roles.outcomes) {
       const col = profile.column(column);
       if (col.type === 'binary') continue;
-      const { lo, hi, numeric } = groupRange(profile, column);
-      const counts = profile.groups.array(key(column, numeric ? 'num' : 'nn')) as number[];
+      const { lo, hi, asNumbers } = groupRange(profile, column);
+      const counts = groupStat(profile.groups, column, asNumbers ? 'numericCount' : 'nonMissing');
       const judged = ids.map((_, i) => i).filter((i) => counts[i] >= 2);
       const constant = judged.filter((i) => lo[i] === hi[i]);
       if (constant.length === 0) continue;

@@ -1,4 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
+import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { variableStats } from '../src/rules/variable-stats.js';
 import { formatNumber } from '../src/util/format.js';
@@ -51,7 +52,7 @@ export default defineRule<Params>({
     const findings: FindingDraft[] = [];
     for (const column of roles.level1) {
       const col = profile.column(column);
-      if (!col.numericProfiled || col.type === 'categorical') continue;
+      if (!readsAsNumbers(col)) continue;
       const s = variableStats(profile, column);
       if (!Number.isFinite(s.reml.icc)) continue;
       findings.push({

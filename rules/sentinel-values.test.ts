@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
+import { expectMessage } from '../test/helpers/messages.js';
 
 // 5 groups of 10 outcomes between 10 and 60; records 4, 17, 33 are -999
 const CODED = new Set([4, 17, 33]);
@@ -13,8 +14,7 @@ describe('sentinel-values', () => {
     expect(f.count).toBe(3);
     expect(f.rows).toEqual([4, 17, 33]);
     expect(f.values).toEqual(['-999 ×3 (other values 10 to 59)']);
-    expect(f.message).toBe('y: -999 look(s) like a missing-value code: far outside the other values and found 3 time(s) in all: -999 ×3 (other values 10 to 59)');
-    expect(f.fix).toContain('add "-999" to `missing` in the role map');
+    expectMessage(f, 'codes', { column: 'y', codes: '-999', tokens: '"-999"', count: 3 });
   });
 
   it('is silent for a code inside the range of the other values, a single occurrence, or a declared code', async () => {

@@ -1,5 +1,6 @@
 import { defineRule } from '../src/rules/define.js';
-import { key } from '../src/source/plan/profile-query.js';
+import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
+import { groupStat } from '../src/profile/group-stats.js';
 import { firstRows } from '../src/rules/describe.js';
 import type { FindingDraft } from '../src/rules/types.js';
 
@@ -52,9 +53,9 @@ export default defineRule<Params>({
     const codes = new Set(params.codes);
     for (const column of profile.header) {
       const col = profile.column(column);
-      if (!col.numericProfiled || col.type !== 'numeric') continue;
-      const lo = profile.groups.array(key(column, 'nmin')) as (number | null)[];
-      const hi = profile.groups.array(key(column, 'nmax')) as (number | null)[];
+      if (!readsAsNumbers(col) || col.type !== 'numeric') continue;
+      const lo = groupStat(profile.groups, column, 'numMin');
+      const hi = groupStat(profile.groups, column, 'numMax');
       // a code outside the other values is the lowest or highest value of every group it is in
       if (!lo.some((v) => v !== null && codes.has(v)) && !hi.some((v) => v !== null && codes.has(v))) continue;
       const counts = await lookup.valueCounts(column, params.codes);

@@ -1,10 +1,24 @@
 import { describe, expect, it } from 'vitest';
 import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import type { Row } from '../test/helpers/delivery.js';
+import { grade } from '../src/grade.js';
+import { checkRule, profileOfGroups } from '../test/helpers/check-rule.js';
+import { expectMessage } from '../test/helpers/messages.js';
 
 const roles = { group: 'g' };
 /** `groups` groups, the last `singles` of which hold one record, the others two. */
 const delivery = (groups: number, singles: number) => groupedRows(groups, (j) => (j >= groups - singles ? 1 : 2));
+/** The same groups as a built profile, for the cases that need no delivery. */
+const sizes = (groups: number, singles: number) =>
+  profileOfGroups(Array.from({ length: groups }, (_, j) => (j >= groups - singles ? 1 : 2)));
+const check = async (groups: number, singles: number, rules?: unknown) => {
+  const settings = rules !== undefined && { rules: { 'singleton-groups': rules } };
+  return checkRule('singleton-groups', await sizes(groups, singles), { group: 'g', ...settings });
+};
+const only = (found: Awaited<ReturnType<typeof check>>) => {
+  expect(found).toHaveLength(1);
+  return found[0];
+};
 
 describe('singleton-groups', () => {
   it('lists the single-record groups, not their record numbers (a group\'s ID finds its one record)', async () => {
@@ -28,14 +42,12 @@ describe('singleton-groups', () => {
     // no look-up for record numbers: it cost a numbered scan of the delivery (the problem-rows file has them)
     expect(f.rows).toBeUndefined();
     expect(f.column).toBeUndefined();
-    expect(f.message).toBe('3 of 6 groups (50.0%) have a single record');
-    expect(f.fix).toContain('whether the listed groups are complete');
-    expect(f.fix).toContain('mistyped variants of other groups');
+    expectMessage(f, 'singletons', { count: 3, groups: 6, share: '50.0%' });
     expect(report.groups.singletons).toBe(3);
   });
 
   it('is silent when every group has two records or more', async () => {
-    expect(findingsOf(await auditRows(delivery(10, 0), roles), 'singleton-groups')).toEqual([]);
+    expect(await check(10, 0)).toEqual([]);
   });
 
   it.each([
@@ -47,29 +59,25 @@ describe('singleton-groups', () => {
     [10, 5, 'blocker'], // exactly 50%
     [10, 10, 'blocker'],
   ] as const)('%i groups, %i singletons → %s', async (groups, singles, severity) => {
-    const report = await auditRows(delivery(groups, singles), roles);
-    const f = onlyFinding(report, 'singleton-groups');
+    const f = only(await check(groups, singles));
     expect(f.severity).toBe(severity);
     expect(f.count).toBe(singles);
-    expect(f.message).toContain(`${singles} of ${groups} groups (${((100 * singles) / groups).toFixed(1)}%)`);
+    expectMessage(f, 'singletons', { count: singles, groups, share: `${((100 * singles) / groups).toFixed(1)}%` });
   });
 
   it('with at least many_groups groups singletons are only noted (default 400)', async () => {
-    const at400 = await auditRows(groupedRows(400, 1), roles);
-    expect(onlyFinding(at400, 'singleton-groups')).toMatchObject({ severity: 'note', count: 400 });
-    const at399 = await auditRows(groupedRows(399, 1), roles);
-    expect(onlyFinding(at399, 'singleton-groups')).toMatchObject({ severity: 'blocker', count: 399 });
+    expect(only(await check(400, 400))).toMatchObject({ severity: 'note', count: 400 });
+    expect(only(await check(399, 399))).toMatchObject({ severity: 'blocker', count: 399 });
   });
 
   it('lists the first 20 groups, counts all', async () => {
-    const f = onlyFinding(await auditRows(groupedRows(399, 1), roles), 'singleton-groups');
+    const f = only(await check(399, 399));
     expect(f.groups).toEqual(Array.from({ length: 20 }, (_, j) => `G${String(j + 1).padStart(3, '0')}`));
   });
 
   it('takes share thresholds and many_groups from the role map', async () => {
-    const rules = { 'singleton-groups': { warn_share: 0.3, block_share: 0.8, many_groups: 20 } };
-    const sev = async (groups: number, singles: number) =>
-      onlyFinding(await auditRows(delivery(groups, singles), { group: 'g', rules }), 'singleton-groups').severity;
+    const rules = { warn_share: 0.3, block_share: 0.8, many_groups: 20 };
+    const sev = async (groups: number, singles: number) => only(await check(groups, singles, rules)).severity;
     expect(await sev(10, 2)).toBe('note');
     expect(await sev(10, 3)).toBe('warning');
     expect(await sev(10, 8)).toBe('blocker');
@@ -77,11 +85,10 @@ describe('singleton-groups', () => {
   });
 
   it('severity override from the role map, and off', async () => {
-    const forced = await auditRows(delivery(20, 1), { group: 'g', rules: { 'singleton-groups': { severity: 'blocker' } } });
-    expect(onlyFinding(forced, 'singleton-groups')).toMatchObject({ severity: 'blocker', count: 1 });
-    expect(forced.verdict).toBe('not-ready');
-    const off = await auditRows(delivery(10, 10), { group: 'g', rules: { 'singleton-groups': 'off' } });
-    expect(findingsOf(off, 'singleton-groups')).toEqual([]);
+    const forced = await check(20, 1, { severity: 'blocker' });
+    expect(only(forced)).toMatchObject({ severity: 'blocker', count: 1 });
+    expect(grade(forced).verdict).toBe('not-ready');
+    expect(await check(10, 10, 'off')).toEqual([]);
   });
 
   it('records with a missing group ID are not a singleton group', async () => {

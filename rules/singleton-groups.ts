@@ -1,4 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
+import { groupIds, groupSizes } from '../src/profile/group-stats.js';
 import type { Severity } from '../src/roles/types.js';
 
 interface Params {
@@ -49,8 +50,8 @@ export default defineRule<Params>({
     ],
   },
   async check({ profile, params }) {
-    const ids = profile.groups.array('group') as string[];
-    const sizes = profile.groups.array('n') as number[];
+    const ids = groupIds(profile.groups);
+    const sizes = groupSizes(profile.groups);
     const singles = ids.filter((_, i) => sizes[i] === 1);
     if (singles.length === 0) return [];
     const share = singles.length / ids.length;

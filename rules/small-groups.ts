@@ -1,4 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
+import { groupIds, groupSizes } from '../src/profile/group-stats.js';
 import { percent } from '../src/rules/describe.js';
 import type { Severity } from '../src/roles/types.js';
 
@@ -53,8 +54,8 @@ export default defineRule<Params>({
     ],
   },
   check({ profile, params }) {
-    const sizes = profile.groups.array('n') as number[];
-    const ids = profile.groups.array('group') as string[];
+    const sizes = groupSizes(profile.groups);
+    const ids = groupIds(profile.groups);
     const small = ids.filter((_, i) => sizes[i] < params.size_below);
     if (sizes.length === 0) return [];
     const share = small.length / sizes.length;

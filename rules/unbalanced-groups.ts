@@ -1,4 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
+import { groupSizes } from '../src/profile/group-stats.js';
 import type { Severity } from '../src/roles/types.js';
 import { clusterSizeVariation } from '../src/stats/cluster-size-variation.js';
 import { formatNumber } from '../src/util/format.js';
@@ -46,7 +47,7 @@ export default defineRule<Params>({
     ],
   },
   check({ profile, params }) {
-    const sizes = profile.groups.array('n') as number[];
+    const sizes = groupSizes(profile.groups);
     if (sizes.length < 2) return [];
     const v = clusterSizeVariation(sizes);
     if (!(v.cv >= params.note_cv)) return [];

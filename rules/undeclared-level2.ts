@@ -1,5 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
-import { key } from '../src/source/plan/profile-query.js';
+import { groupStat } from '../src/profile/group-stats.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { groupRange } from '../src/rules/within.js';
 
@@ -43,7 +43,7 @@ export default defineRule<Params>({
     for (const column of profile.header) {
       const col = profile.column(column);
       if (col.role !== 'other') continue;
-      const nn = profile.groups.array(key(column, 'nn')) as number[];
+      const nn = groupStat(profile.groups, column, 'nonMissing');
       const { lo, hi } = groupRange(profile, column);
       const judged = nn.map((_, i) => i).filter((i) => nn[i] >= 2);
       if (judged.length < params.min_groups || judged.some((i) => lo[i] !== hi[i])) continue;

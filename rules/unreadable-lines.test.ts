@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { auditRows, findingsOf, onlyFinding } from '../test/helpers/delivery.js';
+import { expectMessage } from '../test/helpers/messages.js';
 
 const roles = { group: 'g', level1: ['x'] };
 
@@ -10,9 +11,8 @@ describe('unreadable-lines', () => {
     const f = onlyFinding(report, 'unreadable-lines');
     expect(f.severity).toBe('blocker');
     expect(f.count).toBe(1);
-    expect(f.message).toMatch(/^1 line\(s\) could not be read and were left out: line 3 \(.+\)$/);
-    expect(f.fix).toContain('re-export the file so that every line has 3 fields');
-    expect(f.fix).toContain('count the header as line 1');
+    expectMessage(f, 'rejected', { count: 1, columns: 3 });
+    expect(f.data.lines).toMatch(/^line 3 \(.+\)$/);
     expect(report.input.rows).toBe(2);
     expect(report.input.rowsRejected).toBe(1);
   });
@@ -21,7 +21,7 @@ describe('unreadable-lines', () => {
     const report = await auditRows('g,x,z\na,1,p\nb,2\nc,3,r\nd,4,s\n', roles);
     const f = onlyFinding(report, 'unreadable-lines');
     expect(f.count).toBe(1);
-    expect(f.message).toContain('line 3 (');
+    expect(f.data.lines).toContain('line 3 (');
     expect(report.input.rows).toBe(3);
   });
 
@@ -45,7 +45,7 @@ describe('unreadable-lines', () => {
     const report = await auditRows(`${lines.join('\n')}\n`, roles);
     const f = onlyFinding(report, 'unreadable-lines');
     expect(f.count).toBe(10);
-    const listed = [...f.message.matchAll(/line (\d+) \(/g)].map((m) => Number(m[1]));
+    const listed = [...String(f.data.lines).matchAll(/line (\d+) \(/g)].map((m) => Number(m[1]));
     // record i is on line i + 2
     expect(listed).toEqual(Array.from({ length: 10 }, (_, k) => 3 * k + 2));
     expect(report.input.rows).toBe(20);
@@ -54,8 +54,8 @@ describe('unreadable-lines', () => {
     for (let i = 0; i < 25; i++) many.push(`g${i},${i},extra`, `h${i},${i}`);
     const g = onlyFinding(await auditRows(`${many.join('\n')}\n`, roles), 'unreadable-lines');
     expect(g.count).toBe(25);
-    expect([...g.message.matchAll(/line (\d+) \(/g)]).toHaveLength(20);
-    expect(g.message).toMatch(/; … \(\+5 more\)$/);
+    expect([...String(g.data.lines).matchAll(/line (\d+) \(/g)]).toHaveLength(20);
+    expect(g.data.lines).toMatch(/; … \(\+5 more\)$/);
   });
 
   it('severity override and off', async () => {

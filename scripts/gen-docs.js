@@ -1,6 +1,6 @@
 // @ts-check
 // `npm run docs`: regenerate the README's rule table and preset tables from the rules' own meta
-// and src/presets (test/readme.test.ts and test/presets.test.ts fail when they drift apart), and
+// and src/presets (test/readme.test.ts and test/presets/presets.test.ts fail when they drift apart), and
 // the role map's precompiled validator from its schema (test/roles/role-map-validator.test.ts).
 import { readFileSync, writeFileSync } from 'node:fs';
 import { catalogue } from '../dist/rules/index.js';

@@ -5,6 +5,8 @@ import { rulesRun } from './analysis/rules-run.js';
 import { grade } from './grade.js';
 import { buildProfile, loadArquero } from './profile/build.js';
 import type { Profile } from './profile/types.js';
+import { groupSizes } from './profile/group-stats.js';
+import { readsAsNumbers } from './profile/reads-as-numbers.js';
 import { checkColumns } from './roles/check-columns.js';
 import type { LoadedRoles } from './roles/load.js';
 import type { Roles } from './roles/types.js';
@@ -126,7 +128,7 @@ function outcomeStatistics(profile: Profile, roles: Roles): Record<string, Outco
   const out: Record<string, OutcomeStats> = {};
   for (const name of roles.outcomes) {
     const col = profile.column(name);
-    if (!col.numericProfiled || col.type === 'categorical') continue;
+    if (!readsAsNumbers(col)) continue;
     const moments = profile.moments(name);
     out[name] = outcomeStats(moments);
     // a 0/1 outcome also gets the logistic null model (the binary-outcome rule reads it)
@@ -137,7 +139,7 @@ function outcomeStatistics(profile: Profile, roles: Roles): Record<string, Outco
 }
 
 function groupSummary(profile: Profile): Report['groups'] {
-  const sizes = profile.groups.array('n') as number[];
+  const sizes = groupSizes(profile.groups);
   const count = sizes.length;
   const sorted = [...sizes].sort((a, b) => a - b);
   return {

@@ -26,6 +26,7 @@ export { problemsCsv } from './problems/csv.js';
 export type { ProblemOptions, ProblemRow, ProblemRows } from './problems/types.js';
 export { catalogueJson, catalogueMarkdown, catalogueText } from './report/catalogue.js';
 export { REPORT_SCHEMA } from './report/types.js';
+export { reportSchema } from './report/report-schema.js';
 export type { GroupMean, GroupMeans, PlotData, Report, RuleRun } from './report/types.js';
 export { defineRule } from './rules/define.js';
 export type { AnyRule } from './rules/define.js';

@@ -298,8 +298,10 @@ describe.concurrent('nestready rules and schema', () => {
     const list = JSON.parse(run.stdout) as { id: string; title: string; level: string; defaultSeverity: string; description: string; params: { name: string; default: unknown; description: string }[]; sources: string[] }[];
     expect(list.map((r) => r.id)).toEqual(catalogue.map((r) => r.meta.id));
     for (const r of list) {
-      expect(Object.keys(r)).toEqual(['id', 'title', 'level', 'defaultSeverity', 'description', 'params', 'sources']);
+      expect(Object.keys(r)).toEqual(['id', 'title', 'level', 'defaultSeverity', 'description', 'params', 'messages', 'sources']);
       expect(r.sources.length).toBeGreaterThan(0);
+      // each messageId a finding can carry, with its templates
+      expect((r as unknown as { messages: unknown }).messages).toEqual(catalogue.find((c) => c.meta.id === r.id)!.meta.messages);
     }
     const few = list.find((r) => r.id === 'few-groups')!;
     expect(few.params.map((p) => [p.name, p.default])).toEqual([

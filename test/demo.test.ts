@@ -5,6 +5,7 @@ import { audit } from '../src/audit.js';
 import type { Report } from '../src/report/types.js';
 import { loadRoles } from '../src/roles/load.js';
 import { findingsOf, onlyFinding } from './helpers/delivery.js';
+import { expectMessage } from './helpers/messages.js';
 
 interface Defects {
   dataRows: number;
@@ -37,7 +38,7 @@ describe('demo: repairs-delivery.csv', () => {
     const rows = ascending([...defects.missingGroup.blank, ...defects.missingGroup.NA].map((d) => d.row));
     expect(rows).toHaveLength(defects.missingGroup.count);
     expect(f).toMatchObject({ severity: 'blocker', column: 'workshop', count: defects.missingGroup.count, rows });
-    expect(f.message).toContain(`${defects.missingGroup.count} of ${defects.dataRows} records`);
+    expectMessage(f, 'missing', { count: defects.missingGroup.count, rows: defects.dataRows, column: 'workshop' });
   });
 
   it('(b) level-2 values that vary within a workshop: the groups and the odd records', () => {

@@ -4,7 +4,7 @@ import type { Finding } from '../src/rules/types.js';
 import type { Severity } from '../src/roles/types.js';
 
 function findings(blockers: number, warnings: number, notes: number): Finding[] {
-  const make = (severity: Severity, i: number): Finding => ({ rule: `r${i}`, severity, message: 'm', fix: 'f' });
+  const make = (severity: Severity, i: number): Finding => ({ rule: `r${i}`, severity, messageId: 'm', data: {}, message: 'm', fix: 'f' });
   return [
     ...Array.from({ length: blockers }, (_, i) => make('blocker', i)),
     ...Array.from({ length: warnings }, (_, i) => make('warning', i)),

@@ -1,4 +1,4 @@
-import { key } from '../source/plan/profile-query.js';
+import { groupIds, groupStat } from '../profile/group-stats.js';
 import type { Profile } from '../profile/types.js';
 import type { OutcomeStats } from '../stats/types.js';
 import type { GroupMean, GroupMeans } from './types.js';
@@ -17,9 +17,9 @@ export const GROUP_MEAN_ENDS = 100;
  * position among all groups, so the plot keeps the shape of the whole spread.
  */
 export function groupMeans(profile: Profile, column: string, stats: OutcomeStats): GroupMeans {
-  const ids = profile.groups.array('group') as string[];
-  const num = profile.groups.array(key(column, 'num')) as number[];
-  const mean = profile.groups.array(key(column, 'mean')) as (number | null)[];
+  const ids = groupIds(profile.groups);
+  const num = groupStat(profile.groups, column, 'numericCount');
+  const mean = groupStat(profile.groups, column, 'mean');
   const sigma2 = stats.reml.sigma2;
   const all: Omit<GroupMean, 'rank'>[] = [];
   for (let i = 0; i < ids.length; i++) {

@@ -1,3 +1,5 @@
+import { groupSizes } from '../profile/group-stats.js';
+import { readsAsNumbers } from '../profile/reads-as-numbers.js';
 import type { Profile } from '../profile/types.js';
 import type { Roles } from '../roles/types.js';
 import { variableStats } from '../rules/variable-stats.js';
@@ -31,14 +33,14 @@ export function buildPlotData(
   const predictorShares: PlotData['predictorShares'] = {};
   for (const name of roles.level1) {
     const col = profile.column(name);
-    if (!col.numericProfiled || col.type === 'categorical') continue;
+    if (!readsAsNumbers(col)) continue;
     // the same cached fit the predictor rules read: one REML fit per predictor per audit
     const s = variableStats(profile, name);
     predictorShares[name] = { reml: s.reml.icc, anova: s.anova.icc };
   }
 
   const data: PlotData = {
-    groupSizes: sizeHistogram(profile.groups.array('n') as number[]),
+    groupSizes: sizeHistogram(groupSizes(profile.groups)),
     groupMeans: groupMeansByOutcome,
     predictorShares,
   };

@@ -3,7 +3,8 @@ import type { Roles } from '../roles/types.js';
 import type { Source } from '../source/open.js';
 import { settleProbes } from '../source/plan/settle-probes.js';
 import type { GroupMoments } from '../stats/types.js';
-import { key, profileQuery } from '../source/plan/profile-query.js';
+import { profileQuery } from '../source/plan/profile-query.js';
+import { groupSizes, groupStat } from './group-stats.js';
 import type { Storage } from '../source/sql.js';
 import type { ProfileColumnPlan } from '../source/plan/profile-query.js';
 import { columnProfile } from './columns.js';
@@ -74,7 +75,7 @@ export async function buildProfile(source: Source, roles: Roles, options: { onSc
   const aq = await loadArquero();
   const raw = directArrays(aq.table(result));
 
-  const rows = (Array.from(raw.array('n')) as number[]).reduce((a, b) => a + b, 0);
+  const rows = groupSizes(raw).reduce((a, b) => a + b, 0);
   // the query orders the groups (missing ID first): the group table is the rest, its columns
   // shared with the raw table rather than filtered and sorted again (a million groups are common)
   const hasMissing = result.group.length > 0 && result.group[0] === null;
@@ -108,11 +109,13 @@ export async function buildProfile(source: Source, roles: Roles, options: { onSc
       // each caller gets its own array of frozen moments
       let out = momentCache.get(name);
       if (!out) {
-        const n = groups.array(key(name, 'num')) as number[];
-        const mean = groups.array(key(name, 'mean')) as number[];
-        const ss = groups.array(key(name, 'ss')) as number[];
+        const n = groupStat(groups, name, 'numericCount');
+        const mean = groupStat(groups, name, 'mean');
+        const ss = groupStat(groups, name, 'ss');
         out = [];
-        for (let i = 0; i < n.length; i++) if (n[i] > 0) out.push(Object.freeze({ n: n[i], mean: mean[i], ss: Math.max(0, ss[i]) }));
+        for (let i = 0; i < n.length; i++) {
+          if (n[i] > 0) out.push(Object.freeze({ n: n[i], mean: mean[i] as number, ss: Math.max(0, ss[i] as number) }));
+        }
         momentCache.set(name, out);
       }
       return out.slice();

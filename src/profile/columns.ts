@@ -1,6 +1,7 @@
 import type { ColumnTable } from 'arquero';
 import type { Roles, ValueType } from '../roles/types.js';
-import { key } from '../source/plan/profile-query.js';
+import { groupIds, groupStat } from './group-stats.js';
+import { mostlyNumbers } from './reads-as-numbers.js';
 import type { ProfileColumnPlan } from '../source/plan/profile-query.js';
 import { roleOf } from './role-of.js';
 import type { ColumnProfile } from './types.js';
@@ -17,21 +18,21 @@ export function columnProfile(
   const role = roleOf(name, roles);
   if (!plan) {
     // the group column itself: it is the key of the profile
-    const ids = raw.array('group').filter((g) => g !== null) as string[];
+    const ids = groupIds(raw).filter((g) => g !== null);
     return base(name, role, 'categorical', 'text', rows - missingGroupRows, rows, minOf(ids), maxOf(ids));
   }
-  const nonMissing = sum(raw.array(key(name, 'nn')) as number[]);
+  const nonMissing = sum(groupStat(raw, name, 'nonMissing'));
   const text = plan.storage === 'text';
   const ranged = text && plan.textRange !== false;
-  const mins = ranged ? (raw.array(key(name, 'min')) as (string | null)[]).filter(notNull) : [];
-  const maxs = ranged ? (raw.array(key(name, 'max')) as (string | null)[]).filter(notNull) : [];
+  const mins = ranged ? groupStat(raw, name, 'textMin').filter(notNull) : [];
+  const maxs = ranged ? groupStat(raw, name, 'textMax').filter(notNull) : [];
   const p = base(name, role, 'categorical', plan.storage, nonMissing, rows, minOf(mins), maxOf(maxs));
   if (!plan.numeric) return { ...p, type: roles.types[name] ?? 'categorical' };
 
-  const num = raw.array(key(name, 'num')) as number[];
-  const means = raw.array(key(name, 'mean')) as (number | null)[];
-  const ss = raw.array(key(name, 'ss')) as (number | null)[];
-  const numeric = sum(num);
+  const num = groupStat(raw, name, 'numericCount');
+  const means = groupStat(raw, name, 'mean');
+  const ss = groupStat(raw, name, 'ss');
+  const numericCount = sum(num);
   let total = 0;
   let squares = 0;
   for (let i = 0; i < num.length; i++) {
@@ -39,20 +40,17 @@ export function columnProfile(
     total += num[i] * (means[i] as number);
     squares += (ss[i] as number) + num[i] * (means[i] as number) ** 2;
   }
-  const numMin = minOf((raw.array(key(name, 'nmin')) as (number | null)[]).filter(notNull));
-  const numMax = maxOf((raw.array(key(name, 'nmax')) as (number | null)[]).filter(notNull));
-  const mean = numeric ? total / numeric : null;
+  const numMin = minOf(groupStat(raw, name, 'numMin').filter(notNull));
+  const numMax = maxOf(groupStat(raw, name, 'numMax').filter(notNull));
+  const mean = numericCount ? total / numericCount : null;
   // all values in {0, 1} ⇔ range [0, 1] and Σx = Σx² (x(1 − x) ≥ 0 on [0, 1], zero only at 0 and 1)
-  const zeroOne = numeric > 0 && numMin === 0 && numMax === 1 && Math.abs(squares - total) <= 1e-9 * Math.max(1, total);
-  // a declared variable with a few stray tokens ("n/a", "<5") is still numeric; the tokens are
-  // reported by their own rule rather than turning the whole column into text
+  const zeroOne = numericCount > 0 && numMin === 0 && numMax === 1 && Math.abs(squares - total) <= 1e-9 * Math.max(1, total);
   const isVariable = role === 'outcome' || role === 'level1' || role === 'level2';
-  const mostlyNumeric = numeric > 0 && (numeric === nonMissing || (isVariable && numeric >= 0.95 * nonMissing));
-  const inferred: ValueType = mostlyNumeric ? (zeroOne ? 'binary' : 'numeric') : 'categorical';
+  const inferred: ValueType = mostlyNumbers(numericCount, nonMissing, isVariable) ? (zeroOne ? 'binary' : 'numeric') : 'categorical';
   const type = roles.types[name] ?? inferred;
   const asText = (x: number | null) => (x === null ? null : String(x));
   const range = text ? {} : { min: asText(numMin), max: asText(numMax) };
-  return { ...p, ...range, type, numericProfiled: true, numeric, numMin, numMax, mean };
+  return { ...p, ...range, type, numericProfiled: true, numericCount, numMin, numMax, mean };
 }
 
 function base(
@@ -67,7 +65,7 @@ function base(
 ): ColumnProfile {
   return {
     name, role, type, storage, numericProfiled: false, nonMissing, missing: rows - nonMissing,
-    numeric: 0, min, max, numMin: null, numMax: null, mean: null,
+    numericCount: 0, min, max, numMin: null, numMax: null, mean: null,
   };
 }
 

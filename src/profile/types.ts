@@ -18,7 +18,7 @@ export interface ColumnProfile {
   nonMissing: number;
   missing: number;
   /** non-missing values that read as numbers (only when numericProfiled) */
-  numeric: number;
+  numericCount: number;
   /** smallest and largest value read as text (null for the unit ID: its per-group range is not profiled) */
   min: string | null;
   max: string | null;
@@ -36,10 +36,8 @@ export interface Profile {
   /** records whose group ID is missing (they are not in `groups`) */
   missingGroupRows: number;
   /**
-   * One row per group with a non-missing ID. Columns: `group` (the ID as text), `n` (records),
-   * and per column c other than the group: `c:nn` non-missing; for columns read as text (but the unit ID) `c:min`,
-   * `c:max` (text; equal ⇔ constant in the group); for numeric-profiled columns `c:num` (values
-   * that are numbers), `c:nmin`, `c:nmax`, `c:mean`, `c:ss` (within-group sum of squares).
+   * One row per group with a non-missing ID, ordered by ID. Read it with `groupIds`, `groupSizes`
+   * and `groupStat` (src/profile/group-stats.ts), not by its column names.
    */
   groups: ColumnTable;
   /** one row per column, the fields of ColumnProfile */

@@ -27,6 +27,7 @@ export function catalogueJson(rules: readonly AnyRule[]): string {
     defaultSeverity: r.meta.defaultSeverity,
     description: r.meta.description,
     params: paramDocs(r),
+    messages: r.meta.messages,
     sources: r.meta.sources,
   }));
   return `${JSON.stringify(list, null, 2)}\n`;

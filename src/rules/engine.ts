@@ -80,13 +80,17 @@ function render(rule: AnyRule, d: FindingDraft, forced: Severity | undefined, op
     const known = Object.keys(rule.meta.messages).join(', ');
     throw new Error(`${rule.meta.id}: unknown messageId "${d.messageId}" (declared: ${known})`);
   }
-  const data = { ...d.data, values: options.includeValues ? (d.values ?? []).join(', ') : '(values withheld)' };
+  // `{values}` is filled from the draft's values, never carried in `data`: so `data` holds no raw
+  // value the user asked to withhold
+  const filled = { ...d.data, values: options.includeValues ? (d.values ?? []).join(', ') : '(values withheld)' };
   const f: Finding = {
     rule: rule.meta.id,
     severity: forced ?? d.severity ?? rule.meta.defaultSeverity,
     ...(d.column !== undefined && { column: d.column }),
-    message: fill(template.message, data, rule.meta.id),
-    fix: fill(template.fix, data, rule.meta.id),
+    messageId: d.messageId,
+    data: { ...d.data },
+    message: fill(template.message, filled, rule.meta.id),
+    fix: fill(template.fix, filled, rule.meta.id),
   };
   if (d.count !== undefined) f.count = d.count;
   if (d.groups) f.groups = d.groups.slice(0, 20);

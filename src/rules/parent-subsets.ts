@@ -1,4 +1,4 @@
-import { key } from '../source/plan/profile-query.js';
+import { groupIds, groupStat } from '../profile/group-stats.js';
 import type { Profile } from '../profile/types.js';
 import type { Roles } from '../roles/types.js';
 import type { Lookup, ParentSubset } from '../source/lookups/lookup.js';
@@ -26,9 +26,9 @@ export async function parentSplits(
 ): Promise<{ total: number; examined: ParentSplit[] }> {
   const parent = roles.parent;
   if (!parent) return { total: 0, examined: [] };
-  const ids = profile.groups.array('group') as string[];
-  const lo = profile.groups.array(key(parent, 'min')) as (string | null)[];
-  const hi = profile.groups.array(key(parent, 'max')) as (string | null)[];
+  const ids = groupIds(profile.groups);
+  const lo = groupStat(profile.groups, parent, 'textMin');
+  const hi = groupStat(profile.groups, parent, 'textMax');
   const flagged = ids.filter((_, i) => lo[i] !== null && lo[i] !== hi[i]);
   if (flagged.length === 0) return { total: 0, examined: [] };
   const level2 = roles.level2.filter((c) => profile.header.includes(c));

@@ -36,7 +36,9 @@ export interface RuleMeta {
 
 /** What a rule's check returns; the engine adds the rule id, severity and rendered text. */
 export interface FindingDraft {
+  /** a key of meta.messages */
   messageId: string;
+  /** the template's placeholders but `{values}` (filled from `values`) */
   data?: Record<string, string | number>;
   /** overrides meta.defaultSeverity for this finding (graded rules) */
   severity?: Severity;
@@ -52,6 +54,10 @@ export interface Finding {
   rule: string;
   severity: Severity;
   column?: string;
+  /** which of the rule's messages: stable, it never changes meaning once released */
+  messageId: string;
+  /** the message's placeholders as the rule gave them (stable keys); `{values}` comes from `values` */
+  data: Record<string, string | number>;
   message: string;
   fix: string;
   count?: number;

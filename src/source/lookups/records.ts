@@ -2,6 +2,7 @@ import type { ValueType } from '../../roles/types.js';
 import { ident } from '../sql.js';
 import type { Source } from '../types.js';
 import { modalValueSql } from './modal-value.js';
+import { mostlyNumbers } from '../../profile/reads-as-numbers.js';
 
 /**
  * The records behind one finding, as a bounded query over the numbered delivery `d`: what a
@@ -83,12 +84,12 @@ export function recordQueries(source: Source, group: string): RecordQueries {
     async readsAsNumber(column, declared) {
       if (declared === 'categorical') return false;
       if (declared === 'numeric' || declared === 'binary' || source.storage.get(column) === 'double') return true;
-      // as columnProfile: a declared variable counts as numeric when at least 95% of its values are numbers
+      // the profile's own test (a level-2 variable is a declared variable)
       const c = ident(column);
       const [{ nn, num }] = await source.all<{ nn: unknown; num: unknown }>(
         `SELECT count(${c}) AS nn, count(${d.numeric(c)}) AS num FROM ${view}`,
       );
-      return Number(num) > 0 && Number(num) >= 0.95 * Number(nn);
+      return mostlyNumbers(Number(num), Number(nn), true);
     },
   };
 }

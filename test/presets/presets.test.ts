@@ -1,10 +1,10 @@
 import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { catalogue } from '../rules/index.js';
-import { mergeRuleSettings, PRESETS, presetsMarkdown } from '../src/presets/index.js';
-import { parseRoles } from '../src/roles/load.js';
-import { auditRows, groupedRows, onlyFinding, writeDelivery } from './helpers/delivery.js';
+import { catalogue } from '../../rules/index.js';
+import { mergeRuleSettings, PRESETS, presetsMarkdown } from '../../src/presets/index.js';
+import { parseRoles } from '../../src/roles/load.js';
+import { auditRows, groupedRows, onlyFinding, writeDelivery } from '../helpers/delivery.js';
 
 const twenty = groupedRows(20, 6, (j, i) => ({ y: j + i }));
 

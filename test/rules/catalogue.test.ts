@@ -2,13 +2,15 @@ import { readdirSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { catalogue } from '../rules/index.js';
-import { createAjv } from '../src/util/ajv.js';
-import { resolveParams } from '../src/rules/engine.js';
-import type { Roles } from '../src/roles/types.js';
-import type { AnyRule } from '../src/rules/define.js';
+import { catalogue } from '../../rules/index.js';
+import { createAjv } from '../../src/util/ajv.js';
+import { fill, resolveParams } from '../../src/rules/engine.js';
+import type { Roles } from '../../src/roles/types.js';
+import type { AnyRule } from '../../src/rules/define.js';
+import type { Finding } from '../../src/rules/types.js';
+import { expectMessage, placeholders } from '../helpers/messages.js';
 
-const rulesDir = join(dirname(fileURLToPath(import.meta.url)), '..', 'rules');
+const rulesDir = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'rules');
 const ruleFiles = readdirSync(rulesDir)
   .filter((f) => f.endsWith('.ts') && !f.endsWith('.test.ts') && f !== 'index.ts')
   .sort();
@@ -79,10 +81,50 @@ describe('rule catalogue', () => {
       }
     });
 
+    it('every message renders with sample data: all placeholders filled, a lowercase fragment and a fix', () => {
+      for (const [messageId, m] of Object.entries(meta.messages)) {
+        const where = `${id}/${messageId}`;
+        expect(messageId, where).toMatch(/^[a-z][a-zA-Z0-9]*$/);
+        const names = placeholders(`${m.message} ${m.fix}`);
+        const sample = Object.fromEntries(names.map((name) => [name, `<${name}>`]));
+        const message = fill(m.message, sample, id);
+        const fix = fill(m.fix, sample, id);
+        for (const text of [message, fix]) {
+          expect(text, where).not.toMatch(/\{\w+\}/);
+          expect(text.trim(), where).toBe(text);
+          expect(text, where).not.toMatch(/\.$/);
+        }
+        for (const name of placeholders(m.message)) expect(message, where).toContain(`<${name}>`);
+        // a message is a lowercase fragment; a fix is an instruction, capitalised
+        expect(message[0], where).not.toMatch(/[A-Z]/);
+        expect(fix, where).toMatch(/^[A-Z]/);
+        expect(fix.length, where).toBeGreaterThan(20);
+      }
+    });
+
     it('cites its sources', () => {
       expect(Array.isArray(meta.sources)).toBe(true);
       expect(meta.sources.length).toBeGreaterThan(0);
       for (const s of meta.sources) expect(s.trim()).not.toBe('');
     });
+  });
+});
+
+describe('expectMessage, the rule tests\' check of a finding\'s message', () => {
+  const finding: Finding = {
+    rule: 'few-groups', severity: 'warning', messageId: 'usual', data: { count: 12, limit: 30 }, message: 'm', fix: 'f',
+  };
+
+  it('passes on the declared messageId and the data given', () => {
+    expect(() => expectMessage(finding, 'usual', { count: 12 })).not.toThrow();
+  });
+
+  it('fails on an undeclared messageId and lists the declared ones', () => {
+    expect(() => expectMessage(finding, 'tooFew')).toThrow('few-groups: undeclared messageId "tooFew" (declared: floor, usual, strict)');
+  });
+
+  it('fails on another declared message or other data', () => {
+    expect(() => expectMessage(finding, 'floor')).toThrow();
+    expect(() => expectMessage(finding, 'usual', { count: 13 })).toThrow();
   });
 });

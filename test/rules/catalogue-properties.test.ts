@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import type { Report } from '../src/report/types.js';
-import { auditRows, findingsOf, groupId } from './helpers/delivery.js';
-import type { Row } from './helpers/delivery.js';
-import { mulberry32 } from './helpers/prng.js';
+import type { Report } from '../../src/report/types.js';
+import { auditRows, findingsOf, groupId } from '../helpers/delivery.js';
+import type { Row } from '../helpers/delivery.js';
+import { mulberry32 } from '../helpers/prng.js';
 
 
 const ROLES = {

@@ -1,0 +1,139 @@
+import { REPORT_SCHEMA } from './types.js';
+
+// a statistic the data leave undefined (NaN, ±Infinity) is written as null
+const stat = { type: ['number', 'null'] } as const;
+const count = { type: 'integer', minimum: 0 } as const;
+const text = { type: 'string' } as const;
+const texts = { type: 'array', items: text } as const;
+const components = {
+  type: 'object',
+  additionalProperties: false,
+  required: ['tau2', 'sigma2', 'icc', 'mean', 'logLik'],
+  properties: { tau2: stat, sigma2: stat, icc: stat, mean: stat, logLik: stat },
+} as const;
+
+/**
+ * JSON Schema of the report `--format json` writes (its stable fields; `--with-plot-data` adds
+ * `plots` and `rulesRun`, which it leaves open). In a finding, `rule`, `messageId` and the keys of
+ * `data` are stable: a messageId never changes meaning once released, so a consumer can tell a
+ * rule's messages apart without reading their text.
+ */
+export const reportSchema = {
+  $schema: 'http://json-schema.org/draft-07/schema#',
+  $id: 'https://nestready.dev/schema/report-1.json',
+  title: 'nestready report',
+  type: 'object',
+  additionalProperties: false,
+  required: ['schema', 'tool', 'input', 'roles', 'groups', 'outcomes', 'findings', 'score', 'grade', 'verdict'],
+  properties: {
+    schema: { const: REPORT_SCHEMA },
+    tool: { type: 'object', additionalProperties: false, required: ['name', 'version'], properties: { name: text, version: text } },
+    input: {
+      type: 'object',
+      additionalProperties: false,
+      required: ['path', 'rows', 'rowsRejected', 'columns'],
+      properties: { path: text, rows: count, rowsRejected: count, columns: texts },
+    },
+    roles: {
+      description: 'the normalised role map',
+      type: 'object',
+      required: ['group', 'outcomes', 'level1', 'level2', 'missing', 'types', 'rules'],
+      properties: {
+        group: text,
+        unit: text,
+        parent: text,
+        outcomes: texts,
+        level1: texts,
+        level2: texts,
+        missing: texts,
+        types: { type: 'object', additionalProperties: { enum: ['numeric', 'categorical', 'binary', 'count'] } },
+        rules: { type: 'object' },
+      },
+    },
+    groups: {
+      type: 'object',
+      additionalProperties: false,
+      required: ['count', 'singletons', 'sizes'],
+      properties: {
+        count,
+        singletons: count,
+        sizes: {
+          type: 'object',
+          additionalProperties: false,
+          required: ['min', 'median', 'mean', 'max'],
+          properties: { min: stat, median: stat, mean: stat, max: stat },
+        },
+      },
+    },
+    outcomes: {
+      type: 'object',
+      additionalProperties: {
+        type: 'object',
+        additionalProperties: false,
+        required: ['n', 'groups', 'mean', 'reml', 'ml', 'anova', 'designEffect', 'effectiveN', 'meanReliability'],
+        properties: {
+          n: count,
+          groups: count,
+          mean: stat,
+          reml: components,
+          ml: components,
+          anova: {
+            type: 'object',
+            additionalProperties: false,
+            required: ['msb', 'msw', 'f', 'df1', 'df2', 'p', 'n0', 'icc', 'icc2', 'ci95'],
+            properties: {
+              msb: stat, msw: stat, f: stat, df1: stat, df2: stat, p: stat, n0: stat, icc: stat, icc2: stat,
+              ci95: { type: 'array', items: stat, minItems: 2, maxItems: 2 },
+            },
+          },
+          designEffect: stat,
+          effectiveN: stat,
+          meanReliability: stat,
+          logistic: {
+            type: 'object',
+            additionalProperties: false,
+            required: ['tau2', 'icc', 'mor', 'logLik', 'intercept', 'quadraturePoints', 'converged'],
+            properties: {
+              tau2: stat, icc: stat, mor: stat, logLik: stat, intercept: stat, quadraturePoints: count, converged: { type: 'boolean' },
+            },
+          },
+        },
+      },
+    },
+    findings: {
+      type: 'array',
+      items: {
+        type: 'object',
+        additionalProperties: false,
+        required: ['rule', 'severity', 'messageId', 'data', 'message', 'fix'],
+        properties: {
+          rule: { ...text, pattern: '^[a-z0-9]+(-[a-z0-9]+)*$', description: 'the rule id (stable)' },
+          severity: { enum: ['blocker', 'warning', 'note'] },
+          column: text,
+          messageId: { ...text, pattern: '^[a-zA-Z][a-zA-Z0-9]*$', description: 'which of the rule\'s messages (stable)' },
+          data: {
+            description: 'the message\'s placeholders (stable keys); {values} is filled from `values`',
+            type: 'object',
+            additionalProperties: { type: ['string', 'number', 'null'] },
+          },
+          message: text,
+          fix: text,
+          count,
+          groups: { ...texts, maxItems: 20, description: 'the first 20 group IDs' },
+          rows: {
+            type: 'array',
+            items: { type: 'integer', minimum: 1 },
+            maxItems: 20,
+            description: 'the first 20 record numbers, 1-based',
+          },
+          values: { ...texts, maxItems: 20, description: 'raw values seen; absent with --no-values' },
+        },
+      },
+    },
+    score: { type: 'integer', minimum: 0, maximum: 100 },
+    grade: { enum: ['A', 'B', 'C', 'D', 'F'] },
+    verdict: { enum: ['ready', 'caveats', 'not-ready'] },
+    plots: { type: 'object', description: 'with --with-plot-data only; not a stable field' },
+    rulesRun: { type: 'array', description: 'with --with-plot-data only; not a stable field' },
+  },
+} as const;
