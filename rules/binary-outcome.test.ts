@@ -1,11 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { logisticNullModel } from '../src/stats/logistic-null-model.js';
 import { formatNumber } from '../src/util/format.js';
-import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import type { Row } from '../test/helpers/delivery.js';
-import { mulberry32 } from '../test/helpers/prng.js';
+import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import { expectMessage } from '../test/helpers/messages.js';
-
+import { mulberry32 } from '../test/helpers/prng.js';
 
 /** `groups` groups of `size` 0/1 records with a logit-scale group effect of variance τ². */
 function binaryDelivery(seed: number, groups: number, size: number, tau2: number): Row[] {
@@ -64,7 +63,13 @@ describe('binary-outcome', () => {
     const bad = onlyFinding(await auditRows(coded, { group: 'g', outcome: 'y', types: { y: 'binary' } }), 'binary-outcome');
     expect(bad).toMatchObject({ severity: 'warning', column: 'y' });
     expectMessage(bad, 'notBinary', { column: 'y', min: '0', max: '2' });
-    const zeros = onlyFinding(await auditRows(groupedRows(4, 3, () => ({ y: 0 })), { group: 'g', outcome: 'y', types: { y: 'binary' } }), 'binary-outcome');
+    const zeros = onlyFinding(
+      await auditRows(
+        groupedRows(4, 3, () => ({ y: 0 })),
+        { group: 'g', outcome: 'y', types: { y: 'binary' } },
+      ),
+      'binary-outcome',
+    );
     expectMessage(zeros, 'degenerate', { column: 'y', value: 0 });
   });
 

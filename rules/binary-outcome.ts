@@ -1,5 +1,5 @@
-import { defineRule } from '../src/rules/define.js';
 import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
+import { defineRule } from '../src/rules/define.js';
 import { percent } from '../src/rules/describe.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { binaryGroupsFromMoments, logisticNullModel, momentsAreZeroOne } from '../src/stats/logistic-null-model.js';
@@ -27,11 +27,15 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         min_groups: {
-          type: 'integer', minimum: 1, default: 50,
+          type: 'integer',
+          minimum: 1,
+          default: 50,
           description: 'groups recommended for a multilevel logistic model (Moineddin et al. 2007: at least 50 groups of 50)',
         },
         min_size: {
-          type: 'integer', minimum: 1, default: 50,
+          type: 'integer',
+          minimum: 1,
+          default: 50,
           description: 'mean records per group recommended (Moineddin et al. 2007)',
         },
       },
@@ -39,11 +43,13 @@ export default defineRule<Params>({
     },
     messages: {
       fit: {
-        message: '{column} is 0/1 ({share} are 1; {extremes} of {groups} groups all 0 or all 1): latent-scale ICC {icc} (logistic random intercept, ML, τ² = {tau2}), median odds ratio {mor}; linear ICC of the 0/1 values {linear}',
+        message:
+          '{column} is 0/1 ({share} are 1; {extremes} of {groups} groups all 0 or all 1): latent-scale ICC {icc} (logistic random intercept, ML, τ² = {tau2}), median odds ratio {mor}; linear ICC of the 0/1 values {linear}',
         fix: 'No change to the delivery; model {column} with a logistic (or probit) random intercept rather than a linear one',
       },
       small: {
-        message: '{column} is 0/1 ({share} are 1) with {groups} groups of {size} records on average, below the {minGroups} groups of {minSize} recommended for a multilevel logistic model; latent-scale ICC {icc} (τ² = {tau2}), median odds ratio {mor}; linear ICC {linear}',
+        message:
+          '{column} is 0/1 ({share} are 1) with {groups} groups of {size} records on average, below the {minGroups} groups of {minSize} recommended for a multilevel logistic model; latent-scale ICC {icc} (τ² = {tau2}), median odds ratio {mor}; linear ICC {linear}',
         fix: 'Expect the between-group variance of {column} to be biased with this many groups; ask whether more groups can be delivered, or report the fixed effects only',
       },
       degenerate: {
@@ -69,7 +75,12 @@ export default defineRule<Params>({
       if (col.type !== 'binary' || !readsAsNumbers(col)) continue;
       const moments = profile.moments(column);
       if (!momentsAreZeroOne(moments) || (col.numMin ?? 0) < 0 || (col.numMax ?? 1) > 1) {
-        findings.push({ messageId: 'notBinary', severity: 'warning', column, data: { column, min: String(col.numMin), max: String(col.numMax) } });
+        findings.push({
+          messageId: 'notBinary',
+          severity: 'warning',
+          column,
+          data: { column, min: String(col.numMin), max: String(col.numMax) },
+        });
         continue;
       }
       const counts = binaryGroupsFromMoments(moments);
@@ -105,4 +116,3 @@ export default defineRule<Params>({
     return findings;
   },
 });
-

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { auditRows, findingsOf, onlyFinding } from '../test/helpers/delivery.js';
 import type { Row } from '../test/helpers/delivery.js';
+import { auditRows, findingsOf } from '../test/helpers/delivery.js';
 import { expectMessage } from '../test/helpers/messages.js';
 
 const base: Row[] = [

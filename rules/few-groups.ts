@@ -21,15 +21,21 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         block_below: {
-          type: 'integer', minimum: 1, default: 10,
+          type: 'integer',
+          minimum: 1,
+          default: 10,
           description: 'blocker below this many groups (CMM Bristol: with about 10 groups the level-2 variance may be estimated as 0)',
         },
         warn_below: {
-          type: 'integer', minimum: 1, default: 30,
+          type: 'integer',
+          minimum: 1,
+          default: 30,
           description: 'warning below this many groups (30 groups: Kreft 1996, as cited in Hox 2010)',
         },
         note_below: {
-          type: 'integer', minimum: 1, default: 50,
+          type: 'integer',
+          minimum: 1,
+          default: 50,
           description: 'note at or below this many groups (Maas & Hox 2005: 50 or fewer bias level-2 standard errors)',
         },
       },
@@ -37,11 +43,13 @@ export default defineRule<Params>({
     },
     messages: {
       floor: {
-        message: 'only {count} groups (fewer than {limit}): the level-2 variance may be estimated as 0 and its standard error is unreliable',
+        message:
+          'only {count} groups (fewer than {limit}): the level-2 variance may be estimated as 0 and its standard error is unreliable',
         fix: 'Ask whether more groups can be delivered or deliveries pooled; otherwise plan a fixed-effects or cluster-robust analysis instead of a random intercept',
       },
       usual: {
-        message: '{count} groups, fewer than the usual recommendation of {limit}: fixed effects are fine but level-2 variance estimates and their standard errors are fragile (guidance, not law)',
+        message:
+          '{count} groups, fewer than the usual recommendation of {limit}: fixed effects are fine but level-2 variance estimates and their standard errors are fragile (guidance, not law)',
         fix: 'Check the study analysis plan; if it relies on level-2 variance estimates, use REML with a small-sample correction (Kenward–Roger) or add groups',
       },
       strict: {

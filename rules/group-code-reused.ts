@@ -15,14 +15,16 @@ export default defineRule<Params>({
     defaultSeverity: 'blocker',
     description:
       'With `parent` declared, a group ID used under more than one parent for groups that differ: a ' +
-      'level-2 variable is constant within each parent\'s records but takes different values between ' +
+      "level-2 variable is constant within each parent's records but takes different values between " +
       'them. The IDs are then only unique within the parent, and a model keyed on the group ID alone ' +
       'merges different groups into one.',
     params: {
       type: 'object',
       properties: {
         examine: {
-          type: 'integer', minimum: 1, default: 200,
+          type: 'integer',
+          minimum: 1,
+          default: 200,
           description: 'how many groups under several parents to split by parent in the bounded look-up',
         },
       },
@@ -30,7 +32,8 @@ export default defineRule<Params>({
     },
     messages: {
       reused: {
-        message: '{count} {group} value(s) are used by more than one {parent} for different groups ({column} differs between them): {splits}; values: {values}',
+        message:
+          '{count} {group} value(s) are used by more than one {parent} for different groups ({column} differs between them): {splits}; values: {values}',
         fix: 'Key the groups by {parent} and {group} together (a composite ID such as "{parent}/{group}" as the group column), or ask the sender for group IDs that are unique across {parent}',
       },
     },

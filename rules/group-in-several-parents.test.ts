@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { auditRows, findingsOf, onlyFinding } from '../test/helpers/delivery.js';
-import { parentRows } from '../test/helpers/parent-rows.js';
 import { expectMessage } from '../test/helpers/messages.js';
+import { parentRows } from '../test/helpers/parent-rows.js';
 
 const roles = { group: 'g', parent: 'p', level2: ['size'] };
 

@@ -22,7 +22,9 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         examine: {
-          type: 'integer', minimum: 1, default: 200,
+          type: 'integer',
+          minimum: 1,
+          default: 200,
           description: 'how many such groups to split by parent in the bounded look-up (the rest are counted here)',
         },
       },

@@ -21,7 +21,9 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         per_predictor: {
-          type: 'number', exclusiveMinimum: 0, default: 10,
+          type: 'number',
+          exclusiveMinimum: 0,
+          default: 10,
           description: 'warning below this many groups per level-2 variable (heuristic by analogy with Peduzzi et al. 1996)',
         },
       },
@@ -29,11 +31,13 @@ export default defineRule<Params>({
     },
     messages: {
       none: {
-        message: '{groups} groups for {q} level-2 variable(s): the level-2 effects have J − q − 1 = {df} degrees of freedom, so they cannot all be estimated',
+        message:
+          '{groups} groups for {q} level-2 variable(s): the level-2 effects have J − q − 1 = {df} degrees of freedom, so they cannot all be estimated',
         fix: 'Ask whether more groups can be delivered, or enter fewer level-2 variables in the model',
       },
       few: {
-        message: '{groups} groups for {q} level-2 variable(s) ({ratio} per variable, below the heuristic {limit}): level-2 effects are tested on {df} degrees of freedom',
+        message:
+          '{groups} groups for {q} level-2 variable(s) ({ratio} per variable, below the heuristic {limit}): level-2 effects are tested on {df} degrees of freedom',
         fix: 'No change to the delivery; enter fewer level-2 variables at once, or treat their tests as exploratory',
       },
     },

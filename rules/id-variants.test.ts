@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { normalizeId } from '../src/source/lookups/lookup.js';
-import { auditRows, findingsOf, onlyFinding } from '../test/helpers/delivery.js';
 import type { Row } from '../test/helpers/delivery.js';
+import { auditRows, findingsOf, onlyFinding } from '../test/helpers/delivery.js';
 import { expectMessage } from '../test/helpers/messages.js';
 
 // records 1–6 "W-014" spelled three ways, 7–9 "007"/"7", 10–13 "12"/"12.0", 14–15 "A7" alone

@@ -1,9 +1,9 @@
-import { defineRule } from '../src/rules/define.js';
 import { groupIds, groupSizes } from '../src/profile/group-stats.js';
+import { defineRule } from '../src/rules/define.js';
 import { firstRows, listSome, quoteId } from '../src/rules/describe.js';
-import { normalizeId } from '../src/source/lookups/lookup.js';
 import type { FoundRecord } from '../src/rules/rows.js';
 import type { FindingDraft } from '../src/rules/types.js';
+import { normalizeId } from '../src/source/lookups/lookup.js';
 
 interface Params {
   units: boolean;
@@ -26,7 +26,8 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         units: {
-          type: 'boolean', default: true,
+          type: 'boolean',
+          default: true,
           description: 'also check unit IDs (one aggregate over the unit column; groups are checked from the profile)',
         },
       },
@@ -72,21 +73,27 @@ export default defineRule<Params>({
         count: sets.length,
         groups: sets.flat(),
         rows: await lookup.rowsInGroups(minority),
-        data: { count: sets.length, column: roles.group, sets: listSome(sets.map((set) => set.map((id) => `${quoteId(id)} (${size.get(id)})`).join(' / '))) },
+        data: {
+          count: sets.length,
+          column: roles.group,
+          sets: listSome(sets.map((set) => set.map((id) => `${quoteId(id)} (${size.get(id)})`).join(' / '))),
+        },
       });
     }
     if (params.units && roles.unit) {
       const { variants } = await lookup.unitIds(roles.unit);
       if (variants.sets > 0) {
-        const described = variants.examples.map((set) =>
-          [...set.ids].sort((a, b) => b.count - a.count || (a.id < b.id ? -1 : 1)),
-        );
+        const described = variants.examples.map((set) => [...set.ids].sort((a, b) => b.count - a.count || (a.id < b.id ? -1 : 1)));
         findings.push({
           messageId: 'units',
           column: roles.unit,
           count: variants.sets,
           rows: firstRows(described.map((set) => set.slice(1).flatMap((x) => x.rows))),
-          data: { count: variants.sets, column: roles.unit, sets: listSome(described.map((set) => set.map((x) => `${quoteId(x.id)} (${x.count})`).join(' / '))) },
+          data: {
+            count: variants.sets,
+            column: roles.unit,
+            sets: listSome(described.map((set) => set.map((x) => `${quoteId(x.id)} (${x.count})`).join(' / '))),
+          },
         });
       }
     }

@@ -17,7 +17,13 @@ describe('level1-constant-within', () => {
   });
 
   it('says so when the variable is the same everywhere', async () => {
-    const f = onlyFinding(await auditRows(groupedRows(4, 3, () => ({ x: 1 })), roles), 'level1-constant-within');
+    const f = onlyFinding(
+      await auditRows(
+        groupedRows(4, 3, () => ({ x: 1 })),
+        roles,
+      ),
+      'level1-constant-within',
+    );
     expectMessage(f, 'constant');
   });
 
@@ -25,6 +31,8 @@ describe('level1-constant-within', () => {
     const varies = groupedRows(6, 4, (j, i) => ({ x: j * 10 + (j === 5 ? i : 0) }));
     expect(findingsOf(await auditRows(varies, roles), 'level1-constant-within')).toEqual([]);
     const few = groupedRows(6, 4, (j) => ({ x: j }));
-    expect(findingsOf(await auditRows(few, { ...roles, rules: { 'level1-constant-within': { min_groups: 7 } } }), 'level1-constant-within')).toEqual([]);
+    expect(
+      findingsOf(await auditRows(few, { ...roles, rules: { 'level1-constant-within': { min_groups: 7 } } }), 'level1-constant-within'),
+    ).toEqual([]);
   });
 });

@@ -1,5 +1,5 @@
-import { defineRule } from '../src/rules/define.js';
 import { groupStat } from '../src/profile/group-stats.js';
+import { defineRule } from '../src/rules/define.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { groupRange } from '../src/rules/within.js';
 
@@ -23,7 +23,9 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         min_groups: {
-          type: 'integer', minimum: 1, default: 2,
+          type: 'integer',
+          minimum: 1,
+          default: 2,
           description: 'only judge a variable seen with two or more values in at least this many groups (common practice)',
         },
       },
@@ -31,11 +33,13 @@ export default defineRule<Params>({
     },
     messages: {
       between: {
-        message: '{column} is declared level-1 but takes one value within each of the {groups} groups where it has 2+ values (it differs between groups): it is a property of the group',
+        message:
+          '{column} is declared level-1 but takes one value within each of the {groups} groups where it has 2+ values (it differs between groups): it is a property of the group',
         fix: 'If {column} describes the group, declare it under level2 in the role map; otherwise ask the sender whether a merge copied a group value onto every record',
       },
       constant: {
-        message: '{column} is declared level-1 but has the same value on every record ({groups} groups with 2+ values): it carries no information',
+        message:
+          '{column} is declared level-1 but has the same value on every record ({groups} groups with 2+ values): it carries no information',
         fix: 'Ask the sender whether {column} was exported correctly; otherwise leave it out of the model',
       },
     },

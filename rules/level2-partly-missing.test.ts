@@ -1,15 +1,22 @@
 import { describe, expect, it } from 'vitest';
-import { auditRows, findingsOf, onlyFinding } from '../test/helpers/delivery.js';
 import type { Row } from '../test/helpers/delivery.js';
+import { auditRows, findingsOf, onlyFinding } from '../test/helpers/delivery.js';
 import { expectMessage } from '../test/helpers/messages.js';
 
 // A: weekly on 3 records, missing on record 4 (obvious fill); B: values disagree and record 7 is missing;
 // C: complete; D: missing everywhere (that is missing-by-group's all-missing case, not this one)
 const rows: Row[] = [
-  { g: 'A', fmt: 'weekly' }, { g: 'A', fmt: 'weekly' }, { g: 'A', fmt: 'weekly' }, { g: 'A', fmt: '' },
-  { g: 'B', fmt: 'monthly' }, { g: 'B', fmt: 'weekly' }, { g: 'B', fmt: 'NA' },
-  { g: 'C', fmt: 'pop-up' }, { g: 'C', fmt: 'pop-up' },
-  { g: 'D', fmt: '' }, { g: 'D', fmt: '' },
+  { g: 'A', fmt: 'weekly' },
+  { g: 'A', fmt: 'weekly' },
+  { g: 'A', fmt: 'weekly' },
+  { g: 'A', fmt: '' },
+  { g: 'B', fmt: 'monthly' },
+  { g: 'B', fmt: 'weekly' },
+  { g: 'B', fmt: 'NA' },
+  { g: 'C', fmt: 'pop-up' },
+  { g: 'C', fmt: 'pop-up' },
+  { g: 'D', fmt: '' },
+  { g: 'D', fmt: '' },
 ];
 const roles = { group: 'g', level2: ['fmt'] };
 
@@ -27,7 +34,12 @@ describe('level2-partly-missing', () => {
   });
 
   it('works for numeric level-2 variables, and keeps values out when asked', async () => {
-    const numeric: Row[] = [{ g: 'A', staff: 4 }, { g: 'A', staff: null }, { g: 'B', staff: 7 }, { g: 'B', staff: 7 }];
+    const numeric: Row[] = [
+      { g: 'A', staff: 4 },
+      { g: 'A', staff: null },
+      { g: 'B', staff: 7 },
+      { g: 'B', staff: 7 },
+    ];
     const f = onlyFinding(await auditRows(numeric, { group: 'g', level2: ['staff'] }, { includeValues: false }), 'level2-partly-missing');
     expect(f.rows).toEqual([2]);
     expect(f.values).toBeUndefined();

@@ -1,5 +1,5 @@
-import { defineRule } from '../src/rules/define.js';
 import { groupIds, groupSizes, groupStat } from '../src/profile/group-stats.js';
+import { defineRule } from '../src/rules/define.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { groupRange } from '../src/rules/within.js';
 
@@ -12,13 +12,14 @@ export default defineRule<Record<string, never>>({
     defaultSeverity: 'warning',
     description:
       'A declared level-2 variable is present on some records of a group and missing on others. A model ' +
-      'drops the records without it although the group\'s value is known from its other records; where ' +
+      "drops the records without it although the group's value is known from its other records; where " +
       'those agree the fill is obvious, and the finding says which value.',
     params: { type: 'object', properties: {}, additionalProperties: false },
     messages: {
       partly: {
-        message: '{column} (level-2) is missing on {missing} record(s) in {count} group(s) that have it on other records; the present values agree in {agree} of them: {values}',
-        fix: 'Ask the sender to fill {column} on the listed records with their group\'s value (listed where the group agrees), or to confirm the group\'s value; until then a model drops those records',
+        message:
+          '{column} (level-2) is missing on {missing} record(s) in {count} group(s) that have it on other records; the present values agree in {agree} of them: {values}',
+        fix: "Ask the sender to fill {column} on the listed records with their group's value (listed where the group agrees), or to confirm the group's value; until then a model drops those records",
       },
     },
     sources: [
@@ -44,9 +45,7 @@ export default defineRule<Record<string, never>>({
         groups,
         rows: await lookup.rowsMissingIn(column, groups),
         values: partly.map((i) =>
-          lo[i] === hi[i]
-            ? `${ids[i]}: ${lo[i]} (on ${nn[i]} of ${sizes[i]})`
-            : `${ids[i]}: values disagree (on ${nn[i]} of ${sizes[i]})`,
+          lo[i] === hi[i] ? `${ids[i]}: ${lo[i]} (on ${nn[i]} of ${sizes[i]})` : `${ids[i]}: values disagree (on ${nn[i]} of ${sizes[i]})`,
         ),
         data: { column, count: partly.length, missing, agree: agree.length },
       });

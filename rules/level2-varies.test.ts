@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import type { Row } from '../test/helpers/delivery.js';
+import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import { expectMessage } from '../test/helpers/messages.js';
 
 const roles = { group: 'g', level2: ['format'] };
@@ -19,7 +19,7 @@ const varying: Row[] = [
 ];
 
 describe('level2-varies', () => {
-  it('names the groups, the records that differ from the group\'s usual value, and the values', async () => {
+  it("names the groups, the records that differ from the group's usual value, and the values", async () => {
     const f = onlyFinding(await auditRows(varying, roles), 'level2-varies');
     expect(f.severity).toBe('blocker');
     expect(f.column).toBe('format');
@@ -108,10 +108,7 @@ describe('level2-varies', () => {
         { g: 'B', code: '9' },
       ];
       expect(findingsOf(await auditRows(rows, { group: 'g', level2: ['code'] }), 'level2-varies')).toEqual([]);
-      const f = onlyFinding(
-        await auditRows(rows, { group: 'g', level2: ['code'], types: { code: 'categorical' } }),
-        'level2-varies',
-      );
+      const f = onlyFinding(await auditRows(rows, { group: 'g', level2: ['code'], types: { code: 'categorical' } }), 'level2-varies');
       expect(f).toMatchObject({ count: 1, groups: ['A'] });
     });
   });

@@ -1,8 +1,8 @@
+import { groupIds, groupStat } from '../src/profile/group-stats.js';
+import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
 import { defineRule } from '../src/rules/define.js';
 import type { FoundRecord } from '../src/rules/rows.js';
 import { showValue } from '../src/rules/show-value.js';
-import { groupIds, groupStat } from '../src/profile/group-stats.js';
-import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
 
 interface Params {
   tolerance: number;
@@ -50,14 +50,10 @@ export default defineRule<Params>({
       const ids = groupIds(profile.groups);
       const lo = numericType ? groupStat(profile.groups, column, 'numMin') : groupStat(profile.groups, column, 'textMin');
       const hi = numericType ? groupStat(profile.groups, column, 'numMax') : groupStat(profile.groups, column, 'textMax');
-      const groups = ids.filter((_, i) =>
-        numericType ? (hi[i] as number) - (lo[i] as number) > params.tolerance : lo[i] !== hi[i],
-      );
+      const groups = ids.filter((_, i) => (numericType ? (hi[i] as number) - (lo[i] as number) > params.tolerance : lo[i] !== hi[i]));
       if (groups.length === 0) continue;
       const seen = await lookup.valuesInGroups(column, groups.slice(0, 20));
-      const values = groups
-        .slice(0, 20)
-        .map((g) => `${g}: ${(seen.get(g) ?? []).map((v) => `${v.value} ×${v.count}`).join(' / ')}`);
+      const values = groups.slice(0, 20).map((g) => `${g}: ${(seen.get(g) ?? []).map((v) => `${v.value} ×${v.count}`).join(' / ')}`);
       findings.push({
         messageId: 'varies',
         column,

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { catalogue } from './index.js';
 import { audit } from '../src/audit.js';
 import { parseRoles } from '../src/roles/load.js';
 import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import { expectMessage } from '../test/helpers/messages.js';
+import { catalogue } from './index.js';
 
 // 30 groups of 3: a group effect (SD about 1.3) under within-group noise (SD 1.5)
 const noisy = groupedRows(30, 3, (j, i) => ({ x: ((j % 5) - 2) * 0.9 + [-1.5, 0, 1.5][(i + j) % 3] }));
@@ -19,7 +19,10 @@ describe('low-group-mean-reliability', () => {
   });
 
   it('HSB: mathach group means are reliable (0.90, Raudenbush & Bryk 2002 Table 4.2) and so are ses means', async () => {
-    const report = await audit('fixtures/reference/hsb.csv', parseRoles('group: school\noutcome: mathach\nlevel1: [ses]\n', 'hsb.yaml', catalogue));
+    const report = await audit(
+      'fixtures/reference/hsb.csv',
+      parseRoles('group: school\noutcome: mathach\nlevel1: [ses]\n', 'hsb.yaml', catalogue),
+    );
     // fixtures/reference/README.md: mean reliability 0.9013773 with the REML components
     expect(report.outcomes.mathach.meanReliability).toBeCloseTo(0.9013773, 5);
     expect(findingsOf(report, 'low-group-mean-reliability')).toEqual([]);

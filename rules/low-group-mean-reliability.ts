@@ -1,8 +1,8 @@
-import { defineRule } from '../src/rules/define.js';
 import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
+import { defineRule } from '../src/rules/define.js';
 import type { FindingDraft } from '../src/rules/types.js';
-import { variableStats } from '../src/rules/variable-stats.js';
 import type { VariableStats } from '../src/rules/variable-stats.js';
+import { variableStats } from '../src/rules/variable-stats.js';
 import { formatNumber } from '../src/util/format.js';
 
 interface Params {
@@ -25,7 +25,10 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         reliability_below: {
-          type: 'number', minimum: 0, maximum: 1, default: 0.7,
+          type: 'number',
+          minimum: 0,
+          maximum: 1,
+          default: 0.7,
           description: 'note below this mean reliability (.70 as commonly attributed, not verified; Fleiss 1986 calls > .75 excellent)',
         },
       },
@@ -33,7 +36,8 @@ export default defineRule<Params>({
     },
     messages: {
       low: {
-        message: '{column}: the group means have mean reliability {reliability} (ICC(2) {icc2}), below {limit}, with {size} records per group on average',
+        message:
+          '{column}: the group means have mean reliability {reliability} (ICC(2) {icc2}), below {limit}, with {size} records per group on average',
         fix: 'No change to the delivery; if group means of {column} enter the model as contextual variables, use a latent-covariate model rather than the observed means, or interpret them with care',
       },
     },

@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { audit } from '../src/audit.js';
 import { parseRoles } from '../src/roles/load.js';
-import { catalogue } from './index.js';
-import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
-import { expectMessage } from '../test/helpers/messages.js';
+import { momentsFromValues } from '../src/stats/moments-from-values.js';
+import { outcomeStats } from '../src/stats/outcome-stats.js';
 import { checkRule, profileOfGroups } from '../test/helpers/check-rule.js';
 import type { Row } from '../test/helpers/delivery.js';
-import { outcomeStats } from '../src/stats/outcome-stats.js';
-import { momentsFromValues } from '../src/stats/moments-from-values.js';
+import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
+import { expectMessage } from '../test/helpers/messages.js';
+import { catalogue } from './index.js';
 
 /** 10 groups of 4 with the values 1, 2, 3, 4 each: identical group means, so τ² = 0. */
 const identicalMeans = groupedRows(10, 4, (_, i) => ({ y: i + 1 }));

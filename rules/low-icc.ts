@@ -21,11 +21,17 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         icc_below: {
-          type: 'number', minimum: 0, maximum: 1, default: 0.05,
+          type: 'number',
+          minimum: 0,
+          maximum: 1,
+          default: 0.05,
           description: 'ICC below which clustering counts as small (LeBreton & Senter 2008: .05 is small to medium)',
         },
         alpha: {
-          type: 'number', exclusiveMinimum: 0, maximum: 1, default: 0.05,
+          type: 'number',
+          exclusiveMinimum: 0,
+          maximum: 1,
+          default: 0.05,
           description: 'level of the F-test of equal group means (common practice)',
         },
       },

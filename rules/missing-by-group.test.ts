@@ -12,7 +12,10 @@ describe('missing-by-group', () => {
     // by hand: 40 missing of 400 (p̂ = .1); X² = Σ (O − E)²/E over the 2 × 20 table
     const share = 40 / 400;
     const missing = [12, 10, ...Array(18).fill(1)];
-    const x2 = missing.reduce((s, m) => s + (m - 20 * share) ** 2 / (20 * share) + (20 - m - 20 * (1 - share)) ** 2 / (20 * (1 - share)), 0);
+    const x2 = missing.reduce(
+      (s, m) => s + (m - 20 * share) ** 2 / (20 * share) + (20 - m - 20 * (1 - share)) ** 2 / (20 * (1 - share)),
+      0,
+    );
     expectMessage(f, 'uneven', { column: 'x', chi2: x2.toFixed(1), df: 19 });
     // p from the kept library @stdlib/stats-base-dists-chisquare-cdf (well below the .01 default)
     expect(1 - chisquareCdf(x2, 19)).toBeLessThan(0.001);

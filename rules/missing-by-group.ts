@@ -1,5 +1,5 @@
-import { defineRule } from '../src/rules/define.js';
 import { groupIds, groupSizes, groupStat } from '../src/profile/group-stats.js';
+import { defineRule } from '../src/rules/define.js';
 import { percent } from '../src/rules/describe.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { chiSquareHomogeneity } from '../src/stats/chi-square-homogeneity.js';
@@ -18,7 +18,7 @@ export default defineRule<Params>({
     defaultSeverity: 'warning',
     description:
       'For the outcomes and every declared level-1 and level-2 variable: the missing rate per group, ' +
-      'Pearson\'s chi-square test that the rate is equal across groups (level-1 variables and ' +
+      "Pearson's chi-square test that the rate is equal across groups (level-1 variables and " +
       'outcomes), and the groups in which a variable is missing on every record. Missingness that ' +
       'differs by group must be handled by an imputation model that includes the groups; a group ' +
       'without any value of a level-2 variable is dropped whole.',
@@ -26,7 +26,10 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         alpha: {
-          type: 'number', exclusiveMinimum: 0, maximum: 1, default: 0.01,
+          type: 'number',
+          exclusiveMinimum: 0,
+          maximum: 1,
+          default: 0.01,
           description: 'level of the chi-square test of equal missing rates (common practice; no published threshold)',
         },
       },
@@ -34,7 +37,8 @@ export default defineRule<Params>({
     },
     messages: {
       uneven: {
-        message: '{column}: {missing} of {records} values missing ({share}); the missing rate differs between groups (X² = {chi2} on {df} df, p = {p}{rough}), from {low} to {high}, highest in {worst}',
+        message:
+          '{column}: {missing} of {records} values missing ({share}); the missing rate differs between groups (X² = {chi2} on {df} df, p = {p}{rough}), from {low} to {high}, highest in {worst}',
         fix: 'Ask the sender why {column} is missing more often in the listed groups; impute with a model that includes the groups (random intercepts or group means), not a single-level one',
       },
       allMissing: {
@@ -70,7 +74,11 @@ export default defineRule<Params>({
             column,
             count: empty.length,
             records: empty.reduce((s, i) => s + sizes[i], 0),
-            ids: empty.slice(0, 10).map((i) => ids[i]).join(', ') + (empty.length > 10 ? ', …' : ''),
+            ids:
+              empty
+                .slice(0, 10)
+                .map((i) => ids[i])
+                .join(', ') + (empty.length > 10 ? ', …' : ''),
           },
         });
       }
@@ -101,7 +109,10 @@ export default defineRule<Params>({
           // reduce, not Math.min(...rates): a million groups overflow the call stack as arguments
           low: percent(rates.reduce((a, b) => Math.min(a, b), Infinity)),
           high: percent(rates.reduce((a, b) => Math.max(a, b), -Infinity)),
-          worst: order.slice(0, 5).map((i) => `${ids[i]} (${missing[i]} of ${sizes[i]})`).join(', '),
+          worst: order
+            .slice(0, 5)
+            .map((i) => `${ids[i]} (${missing[i]} of ${sizes[i]})`)
+            .join(', '),
         },
       });
     }

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { tokenKind } from './non-numeric-values.js';
 import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import { expectMessage } from '../test/helpers/messages.js';
+import { tokenKind } from './non-numeric-values.js';
 
 // 5 groups of 20 numeric outcomes; records 3, 25, 47 are "n/a", 60 is "<5", 81 is "1,234"
 const TOKENS: Record<number, string> = { 3: 'n/a', 25: 'n/a', 47: 'n/a', 60: '<5', 81: '1,234' };
@@ -29,7 +29,10 @@ describe('non-numeric-values', () => {
   });
 
   it('is silent once the token is a declared missing code, and for all-number columns', async () => {
-    const declared = await auditRows(rows.filter((r) => !['<5', '1,234'].includes(String(r.y))), { group: 'g', outcome: 'y', missing: ['', 'n/a'] });
+    const declared = await auditRows(
+      rows.filter((r) => !['<5', '1,234'].includes(String(r.y))),
+      { group: 'g', outcome: 'y', missing: ['', 'n/a'] },
+    );
     expect(findingsOf(declared, 'non-numeric-values')).toEqual([]);
     const clean = groupedRows(5, 4, (j, i) => ({ y: i + j }));
     expect(findingsOf(await auditRows(clean, { group: 'g', outcome: 'y' }), 'non-numeric-values')).toEqual([]);

@@ -1,7 +1,7 @@
-import { defineRule } from '../src/rules/define.js';
 import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
-import { firstRows, percent, quoteId } from '../src/rules/describe.js';
 import type { Severity } from '../src/roles/types.js';
+import { defineRule } from '../src/rules/define.js';
+import { firstRows, percent, quoteId } from '../src/rules/describe.js';
 import type { FoundRecord } from '../src/rules/rows.js';
 import type { FindingDraft } from '../src/rules/types.js';
 
@@ -39,8 +39,11 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         block_share: {
-          type: 'number', minimum: 0, maximum: 1, default: 0.05,
-          description: 'blocker when at least this share of the column\'s non-missing values are not numbers (common practice)',
+          type: 'number',
+          minimum: 0,
+          maximum: 1,
+          default: 0.05,
+          description: "blocker when at least this share of the column's non-missing values are not numbers (common practice)",
         },
       },
       additionalProperties: false,
@@ -71,7 +74,9 @@ export default defineRule<Params>({
         column,
         count,
         rows: firstRows(tokens.map((t) => t.rows)),
-        values: tokens.map((t) => `${quoteId(t.token)} ×${t.count} (records ${t.rows.slice(0, 5).join(', ')}${t.rows.length > 5 ? ', …' : ''})`),
+        values: tokens.map(
+          (t) => `${quoteId(t.token)} ×${t.count} (records ${t.rows.slice(0, 5).join(', ')}${t.rows.length > 5 ? ', …' : ''})`,
+        ),
         data: {
           column,
           count,

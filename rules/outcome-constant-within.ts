@@ -1,7 +1,7 @@
-import { defineRule } from '../src/rules/define.js';
 import { groupIds, groupStat } from '../src/profile/group-stats.js';
-import { percent } from '../src/rules/describe.js';
 import type { Severity } from '../src/roles/types.js';
+import { defineRule } from '../src/rules/define.js';
+import { percent } from '../src/rules/describe.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { groupRange } from '../src/rules/within.js';
 
@@ -25,7 +25,10 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         warn_share: {
-          type: 'number', minimum: 0, maximum: 1, default: 0.1,
+          type: 'number',
+          minimum: 0,
+          maximum: 1,
+          default: 0.1,
           description: 'warning at or above this share of the groups with 2+ values (common practice)',
         },
       },

@@ -1,15 +1,18 @@
 import { describe, expect, it } from 'vitest';
-import { catalogue } from './index.js';
 import { audit } from '../src/audit.js';
 import { parseRoles } from '../src/roles/load.js';
 import { variableStats } from '../src/rules/variable-stats.js';
-import { profileOf } from '../test/helpers/profile-of.js';
 import { auditRows, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import { expectMessage } from '../test/helpers/messages.js';
+import { profileOf } from '../test/helpers/profile-of.js';
+import { catalogue } from './index.js';
 
 describe('predictor-between-share', () => {
   it('HSB ses: 26.5% between schools, advise within-group centering plus the school mean', async () => {
-    const report = await audit('fixtures/reference/hsb.csv', parseRoles('group: school\noutcome: mathach\nlevel1: [ses, minority]\n', 'hsb.yaml', catalogue));
+    const report = await audit(
+      'fixtures/reference/hsb.csv',
+      parseRoles('group: school\noutcome: mathach\nlevel1: [ses, minority]\n', 'hsb.yaml', catalogue),
+    );
     const f = onlyFinding(report, 'predictor-between-share', 'ses');
     // fixtures/reference/README.md (R 4.2.2 + lme4 1.1-31): ses REML ICC 0.2649104, ANOVA ICC(1) 0.2665809
     expect(f.severity).toBe('note');

@@ -1,5 +1,5 @@
-import { defineRule } from '../src/rules/define.js';
 import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
+import { defineRule } from '../src/rules/define.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { variableStats } from '../src/rules/variable-stats.js';
 import { formatNumber } from '../src/util/format.js';
@@ -25,7 +25,10 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         decompose_from: {
-          type: 'number', minimum: 0, maximum: 1, default: 0.05,
+          type: 'number',
+          minimum: 0,
+          maximum: 1,
+          default: 0.05,
           description: 'advise within-group centering plus the group mean from this share (heuristic: no published cutoff)',
         },
       },

@@ -22,14 +22,19 @@ describe('sentinel-values', () => {
     expect(findingsOf(await auditRows(inRange, { group: 'g', outcome: 'y' }), 'sentinel-values')).toEqual([]);
     const once = rows.map((r, k) => (k === 16 || k === 32 ? { ...r, y: 20 } : r));
     expect(findingsOf(await auditRows(once, { group: 'g', outcome: 'y' }), 'sentinel-values')).toEqual([]);
-    expect(findingsOf(await auditRows(once, { group: 'g', outcome: 'y', rules: { 'sentinel-values': { min_count: 1 } } }), 'sentinel-values')).toHaveLength(1);
+    expect(
+      findingsOf(await auditRows(once, { group: 'g', outcome: 'y', rules: { 'sentinel-values': { min_count: 1 } } }), 'sentinel-values'),
+    ).toHaveLength(1);
     expect(findingsOf(await auditRows(rows, { group: 'g', outcome: 'y', missing: ['', '-999'] }), 'sentinel-values')).toEqual([]);
   });
 
   it('codes come from the role map', async () => {
     const eights = rows.map((r) => (r.y === -999 ? { ...r, y: -888 } : r));
     expect(findingsOf(await auditRows(eights, { group: 'g', outcome: 'y' }), 'sentinel-values')).toEqual([]);
-    const f = onlyFinding(await auditRows(eights, { group: 'g', outcome: 'y', rules: { 'sentinel-values': { codes: [-888] } } }), 'sentinel-values');
+    const f = onlyFinding(
+      await auditRows(eights, { group: 'g', outcome: 'y', rules: { 'sentinel-values': { codes: [-888] } } }),
+      'sentinel-values',
+    );
     expect(f.count).toBe(3);
   });
 });

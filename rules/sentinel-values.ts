@@ -1,6 +1,6 @@
-import { defineRule } from '../src/rules/define.js';
-import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
 import { groupStat } from '../src/profile/group-stats.js';
+import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
+import { defineRule } from '../src/rules/define.js';
 import { firstRows } from '../src/rules/describe.js';
 import type { FindingDraft } from '../src/rules/types.js';
 
@@ -26,15 +26,21 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         codes: {
-          type: 'array', items: { type: 'number' }, default: [-9999, -999, -99, -9, 99, 999, 9999],
+          type: 'array',
+          items: { type: 'number' },
+          default: [-9999, -999, -99, -9, 99, 999, 9999],
           description: 'the values treated as possible codes (common practice)',
         },
         min_count: {
-          type: 'integer', minimum: 1, default: 2,
+          type: 'integer',
+          minimum: 1,
+          default: 2,
           description: 'flag a code seen at least this often (common practice)',
         },
         gap: {
-          type: 'number', minimum: 0, default: 0.5,
+          type: 'number',
+          minimum: 0,
+          default: 0.5,
           description: 'flag a code only when its distance from the other values is at least this share of their range (heuristic)',
         },
       },
@@ -42,11 +48,14 @@ export default defineRule<Params>({
     },
     messages: {
       codes: {
-        message: '{column}: {codes} look(s) like a missing-value code: far outside the other values and found {count} time(s) in all: {values}',
+        message:
+          '{column}: {codes} look(s) like a missing-value code: far outside the other values and found {count} time(s) in all: {values}',
         fix: 'If {codes} mean(s) missing, add {tokens} to `missing` in the role map (as written in the file) and ask the sender what each code means; until then they count as real values of {column}',
       },
     },
-    sources: ['Codes such as -9, -99, -999, 999 and 9999 for missing values are a long-standing survey data convention (common practice); gap rule: heuristic'],
+    sources: [
+      'Codes such as -9, -99, -999, 999 and 9999 for missing values are a long-standing survey data convention (common practice); gap rule: heuristic',
+    ],
   },
   async check({ profile, params, lookup }) {
     const findings: FindingDraft[] = [];

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
-import type { Row } from '../test/helpers/delivery.js';
 import { grade } from '../src/grade.js';
 import { checkRule, profileOfGroups } from '../test/helpers/check-rule.js';
+import type { Row } from '../test/helpers/delivery.js';
+import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import { expectMessage } from '../test/helpers/messages.js';
 
 const roles = { group: 'g' };
@@ -21,7 +21,7 @@ const only = (found: Awaited<ReturnType<typeof check>>) => {
 };
 
 describe('singleton-groups', () => {
-  it('lists the single-record groups, not their record numbers (a group\'s ID finds its one record)', async () => {
+  it("lists the single-record groups, not their record numbers (a group's ID finds its one record)", async () => {
     const rows: Row[] = [
       { g: 'A', y: 1 },
       { g: 'B', y: 2 },

@@ -1,6 +1,6 @@
-import { defineRule } from '../src/rules/define.js';
 import { groupIds, groupSizes } from '../src/profile/group-stats.js';
 import type { Severity } from '../src/roles/types.js';
+import { defineRule } from '../src/rules/define.js';
 
 interface Params {
   warn_share: number;
@@ -23,16 +23,25 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         warn_share: {
-          type: 'number', minimum: 0, maximum: 1, default: 0.1,
+          type: 'number',
+          minimum: 0,
+          maximum: 1,
+          default: 0.1,
           description: 'warning at or above this share of singleton groups (common practice)',
         },
         block_share: {
-          type: 'number', minimum: 0, maximum: 1, default: 0.5,
+          type: 'number',
+          minimum: 0,
+          maximum: 1,
+          default: 0.5,
           description: 'blocker at or above this share (common practice)',
         },
         many_groups: {
-          type: 'integer', minimum: 1, default: 400,
-          description: 'with at least this many groups singletons are only noted (Theall et al. 2011: 90% singletons harmless at 459 groups)',
+          type: 'integer',
+          minimum: 1,
+          default: 400,
+          description:
+            'with at least this many groups singletons are only noted (Theall et al. 2011: 90% singletons harmless at 459 groups)',
         },
       },
       additionalProperties: false,

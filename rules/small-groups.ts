@@ -1,7 +1,7 @@
-import { defineRule } from '../src/rules/define.js';
 import { groupIds, groupSizes } from '../src/profile/group-stats.js';
-import { percent } from '../src/rules/describe.js';
 import type { Severity } from '../src/roles/types.js';
+import { defineRule } from '../src/rules/define.js';
+import { percent } from '../src/rules/describe.js';
 
 interface Params {
   size_below: number;
@@ -9,7 +9,15 @@ interface Params {
   warn_share: number;
 }
 
-const BINS: [number, number][] = [[1, 1], [2, 2], [3, 4], [5, 9], [10, 29], [30, 99], [100, Infinity]];
+const BINS: [number, number][] = [
+  [1, 1],
+  [2, 2],
+  [3, 4],
+  [5, 9],
+  [10, 29],
+  [30, 99],
+  [100, Infinity],
+];
 
 /** Many small groups: their level-2 estimates rest on few records, and group means are unreliable. */
 export default defineRule<Params>({
@@ -26,16 +34,26 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         size_below: {
-          type: 'integer', minimum: 2, default: 5,
-          description: 'a group is small below this many records (Clarke 2008: an average of 5 gives valid estimates, 2 overestimates the group variance)',
+          type: 'integer',
+          minimum: 2,
+          default: 5,
+          description:
+            'a group is small below this many records (Clarke 2008: an average of 5 gives valid estimates, 2 overestimates the group variance)',
         },
         note_share: {
-          type: 'number', minimum: 0, maximum: 1, default: 0.1,
+          type: 'number',
+          minimum: 0,
+          maximum: 1,
+          default: 0.1,
           description: 'note at or above this share of small groups (common practice)',
         },
         warn_share: {
-          type: 'number', minimum: 0, maximum: 1, default: 1,
-          description: 'warning above this share of small groups (default 1: never, since small groups are a caveat, not a defect; the strict preset uses 0.25)',
+          type: 'number',
+          minimum: 0,
+          maximum: 1,
+          default: 1,
+          description:
+            'warning above this share of small groups (default 1: never, since small groups are a caveat, not a defect; the strict preset uses 0.25)',
         },
       },
       additionalProperties: false,

@@ -1,6 +1,6 @@
-import { defineRule } from '../src/rules/define.js';
 import { groupSizes } from '../src/profile/group-stats.js';
 import type { Severity } from '../src/roles/types.js';
+import { defineRule } from '../src/rules/define.js';
 import { clusterSizeVariation } from '../src/stats/cluster-size-variation.js';
 import { formatNumber } from '../src/util/format.js';
 
@@ -25,11 +25,15 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         note_cv: {
-          type: 'number', minimum: 0, default: 0.23,
+          type: 'number',
+          minimum: 0,
+          default: 0.23,
           description: 'note at or above this CV (Eldridge et al. 2006: below 0.23 negligible)',
         },
         warn_cv: {
-          type: 'number', minimum: 0, default: 1,
+          type: 'number',
+          minimum: 0,
+          default: 1,
           description: 'warning at or above this CV (heuristic; Eldridge et al. 2006 report about 0.65 as typical)',
         },
       },
@@ -37,7 +41,8 @@ export default defineRule<Params>({
     },
     messages: {
       unbalanced: {
-        message: 'group sizes vary with CV {cv} (sizes {min} to {max}, ratio {ratio}; mean {mean}): above the {limit} below which unequal sizes are negligible',
+        message:
+          'group sizes vary with CV {cv} (sizes {min} to {max}, ratio {ratio}; mean {mean}): above the {limit} below which unequal sizes are negligible',
         fix: 'No change to the delivery is needed; use n0 (reported with the ANOVA) rather than the mean group size when planning power or a design effect',
       },
     },

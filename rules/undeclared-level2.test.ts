@@ -1,16 +1,19 @@
 import { describe, expect, it } from 'vitest';
-import { catalogue } from './index.js';
 import { audit } from '../src/audit.js';
 import { parseRoles } from '../src/roles/load.js';
 import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import { expectMessage } from '../test/helpers/messages.js';
+import { catalogue } from './index.js';
 
 const HSB_LEVEL2 = ['disclim', 'himinty', 'meanses', 'pracad', 'sector', 'size'];
 
 describe('undeclared-level2', () => {
   it('HSB: the school-level columns are flagged when the role map leaves them out', async () => {
     // fixtures/reference/README.md: meanses, size, sector, pracad, disclim, himinty are constant within school
-    const report = await audit('fixtures/reference/hsb.csv', parseRoles('group: school\noutcome: mathach\nlevel1: [ses]\n', 'hsb.yaml', catalogue));
+    const report = await audit(
+      'fixtures/reference/hsb.csv',
+      parseRoles('group: school\noutcome: mathach\nlevel1: [ses]\n', 'hsb.yaml', catalogue),
+    );
     const found = findingsOf(report, 'undeclared-level2');
     expect(found.map((f) => f.column)).toEqual(HSB_LEVEL2);
     for (const f of found) {

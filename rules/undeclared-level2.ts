@@ -1,5 +1,5 @@
-import { defineRule } from '../src/rules/define.js';
 import { groupStat } from '../src/profile/group-stats.js';
+import { defineRule } from '../src/rules/define.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { groupRange } from '../src/rules/within.js';
 
@@ -22,7 +22,9 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         min_groups: {
-          type: 'integer', minimum: 1, default: 2,
+          type: 'integer',
+          minimum: 1,
+          default: 2,
           description: 'only judge a column seen with two or more values in at least this many groups (common practice)',
         },
       },
@@ -30,7 +32,8 @@ export default defineRule<Params>({
     },
     messages: {
       candidate: {
-        message: '{column} is not in the role map and is constant within each of the {groups} groups where it has 2+ values: it may be a level-2 variable',
+        message:
+          '{column} is not in the role map and is constant within each of the {groups} groups where it has 2+ values: it may be a level-2 variable',
         fix: 'If {column} describes the group, add it to level2 in the role map so its constancy is checked; otherwise no change is needed',
       },
     },

@@ -19,7 +19,10 @@ describe('unit-in-several-groups', () => {
 
   it('blocks at block_share of the records', async () => {
     const rows = [...clean, { g: 'G002', id: 'u0-0', y: 9 }];
-    const f = onlyFinding(await auditRows(rows, { ...roles, rules: { 'unit-in-several-groups': { block_share: 0.02 } } }), 'unit-in-several-groups');
+    const f = onlyFinding(
+      await auditRows(rows, { ...roles, rules: { 'unit-in-several-groups': { block_share: 0.02 } } }),
+      'unit-in-several-groups',
+    );
     expect(f.severity).toBe('blocker');
   });
 

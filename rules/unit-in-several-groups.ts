@@ -1,6 +1,6 @@
+import type { Severity } from '../src/roles/types.js';
 import { defineRule } from '../src/rules/define.js';
 import { firstRows, listSome, percent, quoteId } from '../src/rules/describe.js';
-import type { Severity } from '../src/roles/types.js';
 
 interface Params {
   block_share: number;
@@ -21,7 +21,10 @@ export default defineRule<Params>({
       type: 'object',
       properties: {
         block_share: {
-          type: 'number', minimum: 0, maximum: 1, default: 0.05,
+          type: 'number',
+          minimum: 0,
+          maximum: 1,
+          default: 0.05,
           description: 'blocker when at least this share of the records belongs to such units (common practice)',
         },
       },
@@ -29,7 +32,8 @@ export default defineRule<Params>({
     },
     messages: {
       mobile: {
-        message: '{count} {column} value(s) occur in more than one {group} ({records} records, {share}): {ids}. A strictly nested model does not fit these units',
+        message:
+          '{count} {column} value(s) occur in more than one {group} ({records} records, {share}): {ids}. A strictly nested model does not fit these units',
         fix: 'Ask the sender whether these units really moved or belong to several groups (then plan a multiple-membership or cross-classified model, or one record per unit) or whether the IDs were reused',
       },
     },
@@ -59,7 +63,9 @@ export default defineRule<Params>({
           group: roles.group,
           records: mobile.records,
           share: percent(share),
-          ids: listSome(mobile.examples.map((x) => `${quoteId(x.id)} in ${x.groups.join(', ')}${x.groupCount > x.groups.length ? ', …' : ''}`)),
+          ids: listSome(
+            mobile.examples.map((x) => `${quoteId(x.id)} in ${x.groups.join(', ')}${x.groupCount > x.groups.length ? ', …' : ''}`),
+          ),
         },
       },
     ];

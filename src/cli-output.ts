@@ -1,7 +1,7 @@
 import { writeFileSync } from 'node:fs';
 import { InputError } from './errors.js';
-import { formatForPath, formatName } from './report/render.js';
 import type { ReportFormat } from './report/render.js';
+import { formatForPath, formatName } from './report/render.js';
 
 /** Where one output goes: a file, or stdout (path null); `problems` is the CSV of problem rows. */
 export interface OutputTarget {

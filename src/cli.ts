@@ -1,25 +1,25 @@
 import { rmSync } from 'node:fs';
 import { Command, CommanderError, InvalidArgumentError, Option } from 'commander';
 import { catalogue } from '../rules/index.js';
-import { InputError } from './errors.js';
-import { exitCode } from './grade.js';
-import type { FailOn } from './grade.js';
 import { planOutputs, writeOutput } from './cli-output.js';
 import { startProgress } from './cli-progress.js';
+import { InputError } from './errors.js';
+import type { FailOn } from './grade.js';
+import { exitCode } from './grade.js';
+import type { PresetName } from './presets/index.js';
+import { PRESETS } from './presets/index.js';
 import { problemsCsv } from './problems/csv.js';
 import { DEFAULT_MAX_ROWS } from './problems/types.js';
 import { catalogueJson, catalogueMarkdown, catalogueText } from './report/catalogue.js';
-import { needsPlotData, REPORT_FORMAT_TABLE, REPORT_FORMATS, renderReport } from './report/render.js';
 import type { ReportFormat } from './report/render.js';
-import { PRESETS } from './presets/index.js';
-import type { PresetName } from './presets/index.js';
+import { needsPlotData, REPORT_FORMAT_TABLE, REPORT_FORMATS, renderReport } from './report/render.js';
 import { loadRoles } from './roles/load.js';
 import { roleMapSchema } from './roles/schema.js';
 import { databaseInput, isFileInput } from './source/engines/kinds.js';
 import { deliveryHelp } from './source/formats/registry.js';
-import { ENCODINGS, INPUT_FORMATS, STDIN } from './source/types.js';
-import type { Encoding, InputFormat } from './source/types.js';
 import { spoolStdin } from './source/stdin.js';
+import type { Encoding, InputFormat } from './source/types.js';
+import { ENCODINGS, INPUT_FORMATS, STDIN } from './source/types.js';
 import { TOOL } from './version.js';
 
 const CATALOGUE_FORMATS = { text: catalogueText, json: catalogueJson, md: catalogueMarkdown };
@@ -53,7 +53,8 @@ async function deliveryInput(delivery: string | undefined, flags: AuditFlags) {
   if (flags.source !== undefined) {
     if (delivery !== undefined) throw new InputError('give either a delivery file or --source, not both');
     const input = databaseInput(flags.source, flags);
-    if ((flags.table === undefined) === (flags.query === undefined)) throw new InputError('--source needs exactly one of --table or --query');
+    if ((flags.table === undefined) === (flags.query === undefined))
+      throw new InputError('--source needs exactly one of --table or --query');
     return { input, label: flags.table ?? 'query', done: () => {} };
   }
   if (delivery === undefined) throw new InputError('no delivery: give a file, - for stdin, or --source postgres://… --table NAME');
@@ -89,8 +90,14 @@ export function buildProgram(): Command {
     .description('profile a delivery, run the rule catalogue, grade it and print the report')
     .argument('[delivery]', deliveryHelp())
     .requiredOption('-r, --roles <file>', 'the YAML role map')
-    .addOption(new Option('--preset <name>', 'rule settings merged under the role map\'s own (README: Presets)').choices(Object.keys(PRESETS)))
-    .addOption(new Option('-f, --format <format>', 'report format on stdout, or for --out files without a known extension').choices(REPORT_FORMATS).default('text'))
+    .addOption(
+      new Option('--preset <name>', "rule settings merged under the role map's own (README: Presets)").choices(Object.keys(PRESETS)),
+    )
+    .addOption(
+      new Option('-f, --format <format>', 'report format on stdout, or for --out files without a known extension')
+        .choices(REPORT_FORMATS)
+        .default('text'),
+    )
     .option(
       '-o, --out <file>',
       'write the report to this file instead of stdout; repeat it for several files, each in the format its extension names ' +
@@ -102,7 +109,9 @@ export function buildProgram(): Command {
     .option('--problems <file>', 'write every offending record to this CSV (record, group, unit, rule, severity, column, reason)')
     .option('--max-rows <n>', 'at most this many problem rows; a last "#" line counts the rest', count, DEFAULT_MAX_ROWS)
     .option('-q, --quiet', 'no progress line, no "wrote" line per file and no notes on stderr')
-    .addOption(new Option('--fail-on <severity>', 'exit 1 when a finding is at least this severe').choices(Object.keys(FAIL_ON)).default('blocker'))
+    .addOption(
+      new Option('--fail-on <severity>', 'exit 1 when a finding is at least this severe').choices(Object.keys(FAIL_ON)).default('blocker'),
+    )
     .option('--no-values', 'leave raw data values out of every output (IDs and record numbers stay: the sender needs them)')
     .option('--color', 'force colour (by default only on a terminal, never with NO_COLOR set or into a file)')
     .option('--no-color', 'no colour')
@@ -156,7 +165,9 @@ export function buildProgram(): Command {
           }).finally(stopRows);
           writeOutput({ path: flags.problems, format: 'problems' }, problemsCsv(found), { quiet: flags.quiet === true });
           if (found.omitted && !flags.quiet) {
-            process.stderr.write(`nestready: ${flags.problems}: ${found.omitted} of ${found.total} problem rows left out (--max-rows ${flags.maxRows})\n`);
+            process.stderr.write(
+              `nestready: ${flags.problems}: ${found.omitted} of ${found.total} problem rows left out (--max-rows ${flags.maxRows})\n`,
+            );
           }
         }
         process.exitCode = exitCode(report.findings, flags.failOn);

@@ -1,6 +1,6 @@
 import type { Finding } from './rules/types.js';
-import { failsGate } from './severity.js';
 import type { FailOn } from './severity.js';
+import { failsGate } from './severity.js';
 
 export type { FailOn };
 

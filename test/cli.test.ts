@@ -4,13 +4,12 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parse } from 'yaml';
 import { catalogue } from '../rules/index.js';
-import { SEVERITY_ORDER } from '../src/severity.js';
 import type { Report } from '../src/report/types.js';
+import { SEVERITY_ORDER } from '../src/severity.js';
 import { createAjv } from '../src/util/ajv.js';
-import { groupedRows, toCsv } from './helpers/delivery.js';
-import { nestready } from './helpers/cli.js';
 import type { Run } from './helpers/cli.js';
-
+import { nestready } from './helpers/cli.js';
+import { groupedRows, toCsv } from './helpers/delivery.js';
 
 /** Exit 2, nothing on stdout, exactly one line on stderr and no stack trace. */
 function expectUsageError(run: Run): string {
@@ -295,7 +294,15 @@ describe.concurrent('nestready rules and schema', () => {
   it('rules --format json: every rule of the catalogue with its params', async ({ expect }) => {
     const run = await nestready('rules', '--format', 'json');
     expect(run.code).toBe(0);
-    const list = JSON.parse(run.stdout) as { id: string; title: string; level: string; defaultSeverity: string; description: string; params: { name: string; default: unknown; description: string }[]; sources: string[] }[];
+    const list = JSON.parse(run.stdout) as {
+      id: string;
+      title: string;
+      level: string;
+      defaultSeverity: string;
+      description: string;
+      params: { name: string; default: unknown; description: string }[];
+      sources: string[];
+    }[];
     expect(list.map((r) => r.id)).toEqual(catalogue.map((r) => r.meta.id));
     for (const r of list) {
       expect(Object.keys(r)).toEqual(['id', 'title', 'level', 'defaultSeverity', 'description', 'params', 'messages', 'sources']);
@@ -323,7 +330,10 @@ describe.concurrent('nestready rules and schema', () => {
   it('rules --format text: a block per rule', async ({ expect }) => {
     const text = await nestready('rules', '--format', 'text');
     expect(text.code).toBe(0);
-    const heads = text.stdout.split('\n').filter((l) => /^\S/.test(l)).map((l) => l.split(/\s/)[0]);
+    const heads = text.stdout
+      .split('\n')
+      .filter((l) => /^\S/.test(l))
+      .map((l) => l.split(/\s/)[0]);
     expect(heads).toEqual(catalogue.map((r) => r.meta.id));
     expect(text.stdout).toContain('few-groups  [structure, default warning]  Too few groups');
   });

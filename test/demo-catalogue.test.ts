@@ -11,7 +11,11 @@ import { expectMessage } from './helpers/messages.js';
 interface Defects {
   groupIdVariants: { variant: string; canonical: string; rows: { row: number }[] }[];
   duplicateUnitIds: { job_id: string; rows: number[]; exactCopy: boolean }[];
-  outcome: { column: string; missingCode: { value: string; rows: { row: number }[] }; nonNumeric: { value: string; rows: { row: number }[] } };
+  outcome: {
+    column: string;
+    missingCode: { value: string; rows: { row: number }[] };
+    nonNumeric: { value: string; rows: { row: number }[] };
+  };
   expected: { groupSizes: Record<string, number> };
 }
 const defects = JSON.parse(readFileSync('fixtures/demo/repairs-delivery.defects.json', 'utf8')) as Defects;
@@ -84,7 +88,14 @@ describe('demo: repairs-clean.csv against the whole catalogue', () => {
   it('no data or structure finding beyond notes', async () => {
     const report = await audit('fixtures/demo/repairs-clean.csv', loadRoles('fixtures/demo/repairs-clean.roles.yaml', catalogue));
     expect(report.findings.filter((f) => f.severity !== 'note')).toEqual([]);
-    for (const rule of ['id-variants', 'duplicate-unit-id', 'non-numeric-values', 'sentinel-values', 'group-in-several-parents', 'group-code-reused']) {
+    for (const rule of [
+      'id-variants',
+      'duplicate-unit-id',
+      'non-numeric-values',
+      'sentinel-values',
+      'group-in-several-parents',
+      'group-code-reused',
+    ]) {
       expect(findingsOf(report, rule)).toEqual([]);
     }
   });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { exitCode, grade, GRADE_FLOORS, NOTES_CAP, PENALTY } from '../src/grade.js';
-import type { Finding } from '../src/rules/types.js';
+import { exitCode, GRADE_FLOORS, grade, NOTES_CAP, PENALTY } from '../src/grade.js';
 import type { Severity } from '../src/roles/types.js';
+import type { Finding } from '../src/rules/types.js';
 
 function findings(blockers: number, warnings: number, notes: number): Finding[] {
   const make = (severity: Severity, i: number): Finding => ({ rule: `r${i}`, severity, messageId: 'm', data: {}, message: 'm', fix: 'f' });
@@ -16,7 +16,13 @@ describe('grade', () => {
   it('uses the documented penalties and floors', () => {
     expect(PENALTY).toEqual({ blocker: 25, warning: 8, note: 2 });
     expect(NOTES_CAP).toBe(10);
-    expect(GRADE_FLOORS).toEqual([['A', 90], ['B', 80], ['C', 65], ['D', 50], ['F', 0]]);
+    expect(GRADE_FLOORS).toEqual([
+      ['A', 90],
+      ['B', 80],
+      ['C', 65],
+      ['D', 50],
+      ['F', 0],
+    ]);
   });
 
   it('no findings: 100, A, ready', () => {

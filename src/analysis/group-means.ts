@@ -1,8 +1,8 @@
 import { groupIds, groupStat } from '../profile/group-stats.js';
 import type { Profile } from '../profile/types.js';
 import type { OutcomeStats } from '../stats/types.js';
-import type { GroupMean, GroupMeans } from './types.js';
 import { cappedIndices } from './capped-indices.js';
+import type { GroupMean, GroupMeans } from './types.js';
 
 /** At most this many group means go into a report (the JSON must stay small for 1M groups). */
 export const MAX_GROUP_MEANS = 2000;

@@ -35,7 +35,12 @@ export function presetsMarkdown(): string {
   for (const [name, preset] of Object.entries(PRESETS)) {
     out.push(`### \`${name}\``, '', preset.description, '', '| rule | setting |', '|---|---|');
     for (const [id, setting] of Object.entries(preset.rules).sort(([a], [b]) => (a < b ? -1 : 1))) {
-      const text = setting === 'off' ? '`off`' : Object.entries(setting).map(([k, v]) => `\`${k}: ${JSON.stringify(v)}\``).join(', ');
+      const text =
+        setting === 'off'
+          ? '`off`'
+          : Object.entries(setting)
+              .map(([k, v]) => `\`${k}: ${JSON.stringify(v)}\``)
+              .join(', ');
       out.push(`| \`${id}\` | ${text} |`);
     }
     out.push('');

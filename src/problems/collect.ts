@@ -3,13 +3,13 @@ import type { AnyRule } from '../rules/define.js';
 import { resolveParams } from '../rules/engine.js';
 import type { FindingRecords } from '../rules/rows.js';
 import type { Finding } from '../rules/types.js';
-import { countRecordsSql, recordQueries, selectRecordsSql } from '../source/lookups/records.js';
 import type { FoundRecord, RecordQueries } from '../source/lookups/records.js';
+import { countRecordsSql, recordQueries, selectRecordsSql } from '../source/lookups/records.js';
 import type { DeliveryInput } from '../source/open.js';
-import type { RejectedLine } from '../source/types.js';
 import { openSettled } from '../source/plan/open-settled.js';
-import { DEFAULT_MAX_ROWS } from './types.js';
+import type { RejectedLine } from '../source/types.js';
 import type { ProblemOptions, ProblemRow, ProblemRows } from './types.js';
+import { DEFAULT_MAX_ROWS } from './types.js';
 
 /**
  * Every offending record behind the findings, for the file a data manager sends back: record

@@ -1,5 +1,5 @@
-import type { Encoding, InputFormat } from '../source/types.js';
 import type { Severity } from '../roles/types.js';
+import type { Encoding, InputFormat } from '../source/types.js';
 
 /** One offending record (or unreadable line) for the file a data manager sends back. */
 export interface ProblemRow {

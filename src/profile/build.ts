@@ -1,13 +1,13 @@
 import type { ColumnTable } from 'arquero';
 import type { Roles } from '../roles/types.js';
 import type { Source } from '../source/open.js';
-import { settleProbes } from '../source/plan/settle-probes.js';
-import type { GroupMoments } from '../stats/types.js';
-import { profileQuery } from '../source/plan/profile-query.js';
-import { groupSizes, groupStat } from './group-stats.js';
-import type { Storage } from '../source/sql.js';
 import type { ProfileColumnPlan } from '../source/plan/profile-query.js';
+import { profileQuery } from '../source/plan/profile-query.js';
+import { settleProbes } from '../source/plan/settle-probes.js';
+import type { Storage } from '../source/sql.js';
+import type { GroupMoments } from '../stats/types.js';
 import { columnProfile } from './columns.js';
+import { groupSizes, groupStat } from './group-stats.js';
 import { roleOf } from './role-of.js';
 import type { ColumnProfile, Profile } from './types.js';
 
@@ -58,7 +58,7 @@ export async function buildProfile(source: Source, roles: Roles, options: { onSc
   let plan: ProfileColumnPlan[];
   let result;
   let rejected;
-  for (;;) {
+  while (true) {
     plan = planColumns(source.header, roles, source.storage, source);
     result = await source.columns(profileQuery(source.view, roles.group, plan, source.dialect), options);
     rejected = await source.rejects();
@@ -68,8 +68,11 @@ export async function buildProfile(source: Source, roles: Roles, options: { onSc
   }
   if (source.probe.size) {
     const textOnly = new Set(source.textOnly);
-    plan = await settleProbes(result, plan, source, (name) =>
-      planColumns([name], roles, new Map([[name, 'text']]), { textOnly })[0]?.numeric ?? false,
+    plan = await settleProbes(
+      result,
+      plan,
+      source,
+      (name) => planColumns([name], roles, new Map([[name, 'text']]), { textOnly })[0]?.numeric ?? false,
     );
   }
   const aq = await loadArquero();
@@ -81,7 +84,13 @@ export async function buildProfile(source: Source, roles: Roles, options: { onSc
   const hasMissing = result.group.length > 0 && result.group[0] === null;
   const missingGroupRows = hasMissing ? (result.n[0] as number) : 0;
   const groups = hasMissing
-    ? directArrays(aq.table(Object.fromEntries(Object.entries(result).map(([k, v]) => [k, ArrayBuffer.isView(v) ? (v as unknown as Float64Array).subarray(1) : v.slice(1)]))))
+    ? directArrays(
+        aq.table(
+          Object.fromEntries(
+            Object.entries(result).map(([k, v]) => [k, ArrayBuffer.isView(v) ? (v as unknown as Float64Array).subarray(1) : v.slice(1)]),
+          ),
+        ),
+      )
     : raw;
 
   const profiles = new Map<string, ColumnProfile>();

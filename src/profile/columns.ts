@@ -1,8 +1,8 @@
 import type { ColumnTable } from 'arquero';
 import type { Roles, ValueType } from '../roles/types.js';
+import type { ProfileColumnPlan } from '../source/plan/profile-query.js';
 import { groupIds, groupStat } from './group-stats.js';
 import { mostlyNumbers } from './reads-as-numbers.js';
-import type { ProfileColumnPlan } from '../source/plan/profile-query.js';
 import { roleOf } from './role-of.js';
 import type { ColumnProfile } from './types.js';
 
@@ -64,12 +64,23 @@ function base(
   max: string | null,
 ): ColumnProfile {
   return {
-    name, role, type, storage, numericProfiled: false, nonMissing, missing: rows - nonMissing,
-    numericCount: 0, min, max, numMin: null, numMax: null, mean: null,
+    name,
+    role,
+    type,
+    storage,
+    numericProfiled: false,
+    nonMissing,
+    missing: rows - nonMissing,
+    numericCount: 0,
+    min,
+    max,
+    numMin: null,
+    numMax: null,
+    mean: null,
   };
 }
 
-const notNull = <T,>(v: T | null): v is T => v !== null;
+const notNull = <T>(v: T | null): v is T => v !== null;
 const sum = (xs: number[]) => xs.reduce((a, b) => a + (b ?? 0), 0);
 function minOf<T>(xs: T[]): T | null {
   return xs.length ? xs.reduce((a, b) => (b < a ? b : a)) : null;

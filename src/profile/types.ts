@@ -1,8 +1,8 @@
 import type { ColumnTable } from 'arquero';
 import type { ValueType } from '../roles/types.js';
-import type { GroupMoments } from '../stats/types.js';
 import type { RejectedLine } from '../source/open.js';
 import type { Storage } from '../source/sql.js';
+import type { GroupMoments } from '../stats/types.js';
 
 export type ColumnRole = 'group' | 'unit' | 'parent' | 'outcome' | 'level1' | 'level2' | 'other';
 

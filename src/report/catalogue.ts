@@ -42,9 +42,7 @@ export function catalogueMarkdown(rules: readonly AnyRule[]): string {
     const params = paramDocs(r)
       .map((p) => `\`${p.name}\` (${JSON.stringify(p.default)})`)
       .join(', ');
-    lines.push(
-      `| \`${r.meta.id}\` | ${r.meta.level} | ${r.meta.defaultSeverity} | ${cell(r.meta.description)} | ${params || '—'} |`,
-    );
+    lines.push(`| \`${r.meta.id}\` | ${r.meta.level} | ${r.meta.defaultSeverity} | ${cell(r.meta.description)} | ${params || '—'} |`);
   }
   return `${lines.join('\n')}\n`;
 }

@@ -1,13 +1,13 @@
 import { countOf, SEVERITIES, SEVERITY_ACTION, SEVERITY_SHAPE } from '../severity.js';
-import { chartToSvg } from './charts/to-svg.js';
 import { reportCharts } from './charts/report-charts.js';
+import { chartToSvg } from './charts/to-svg.js';
 import type { Chart } from './charts/types.js';
 import { escapeHtml as e } from './escape-html.js';
-import { findingsHtml } from './html/findings.js';
-import { statisticsHtml } from './html/statistics.js';
-import type { ChartSvgs } from './html/statistics.js';
-import { STYLES } from './html/styles.js';
 import { bySeverity } from './finding-parts.js';
+import { findingsHtml } from './html/findings.js';
+import type { ChartSvgs } from './html/statistics.js';
+import { statisticsHtml } from './html/statistics.js';
+import { STYLES } from './html/styles.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, VERDICT_ADVICE, VERDICT_HEADLINE } from './labels.js';
 import type { Report } from './types.js';
 

@@ -1,6 +1,6 @@
 import type { Finding } from '../rules/types.js';
-import { failsGate } from '../severity.js';
 import type { FailOn } from '../severity.js';
+import { failsGate } from '../severity.js';
 import { listed, origin } from './finding-parts.js';
 import type { Report, RuleRun } from './types.js';
 import { xmlAttr, xmlText } from './xml-escape.js';
@@ -31,7 +31,9 @@ export function renderJunit(report: Report, options: JunitOptions): string {
     const body: string[] = [];
     if (failed.length) {
       const message = failed.length === 1 ? failed[0].message : `${failed.length} findings; first: ${failed[0].message}`;
-      body.push(`      <failure message="${xmlAttr(message)}" type="${xmlAttr(failed[0].severity)}">${xmlText(failed.map(findingText).join('\n\n'))}</failure>`);
+      body.push(
+        `      <failure message="${xmlAttr(message)}" type="${xmlAttr(failed[0].severity)}">${xmlText(failed.map(findingText).join('\n\n'))}</failure>`,
+      );
     }
     if (other.length) body.push(`      <system-out>${xmlText(other.map(findingText).join('\n\n'))}</system-out>`);
     const open = `    <testcase name="${xmlAttr(rule.id)}" classname="${xmlAttr(`nestready.${rule.level}`)}" time="0"`;

@@ -1,7 +1,7 @@
-import { NOTES_CAP, PENALTY } from '../grade.js';
 import type { Verdict } from '../grade.js';
-import { countOf, SEVERITIES, SEVERITY_ACTION } from '../severity.js';
+import { NOTES_CAP, PENALTY } from '../grade.js';
 import type { Finding } from '../rules/types.js';
+import { countOf, SEVERITIES, SEVERITY_ACTION } from '../severity.js';
 import type { Report } from './types.js';
 
 /** The verdict as the start of a sentence about the delivery. */

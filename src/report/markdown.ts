@@ -2,8 +2,8 @@ import { SEVERITIES, SEVERITY_ACTION, SEVERITY_WORD } from '../severity.js';
 import { bySeverity, listed, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, VERDICT_HEADLINE, verdictSentence } from './labels.js';
 import { mdText as m } from './md-escape.js';
-import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from './stat-tables.js';
 import type { StatTable } from './stat-tables.js';
+import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from './stat-tables.js';
 import type { Report } from './types.js';
 
 /**
@@ -49,7 +49,14 @@ export function renderMarkdown(report: Report): string {
   out.push('## Statistics', '', '### Groups', '', ...table(groupsTable(report)));
   const sizes = report.plots?.groupSizes;
   if (sizes?.length && sizes.length <= 30) {
-    out.push(...table({ caption: 'Group sizes', head: ['records per group', 'groups'], rows: sizes.map((s) => [String(s.size), String(s.count)]), numeric: [0, 1] }));
+    out.push(
+      ...table({
+        caption: 'Group sizes',
+        head: ['records per group', 'groups'],
+        rows: sizes.map((s) => [String(s.size), String(s.count)]),
+        numeric: [0, 1],
+      }),
+    );
   }
   for (const [name, o] of Object.entries(report.outcomes)) {
     out.push(`### Outcome ${m(name)}`, '', ...table(componentsTable(name, o)), ...table(anovaTable(name, o)));

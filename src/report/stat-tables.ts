@@ -20,7 +20,17 @@ export function groupsTable(report: Report): StatTable {
   return {
     caption: 'Groups and records per group',
     head: ['records', 'groups', 'singletons', 'min', 'median', 'mean', 'max'],
-    rows: [[String(report.input.rows), String(report.groups.count), String(report.groups.singletons), String(s.min), f(s.median, 1), f(s.mean, 1), String(s.max)]],
+    rows: [
+      [
+        String(report.input.rows),
+        String(report.groups.count),
+        String(report.groups.singletons),
+        String(s.min),
+        f(s.median, 1),
+        f(s.mean, 1),
+        String(s.max),
+      ],
+    ],
     numeric: [0, 1, 2, 3, 4, 5, 6],
   };
 }
@@ -71,7 +81,7 @@ export function predictorsTable(report: Report): StatTable | null {
 /** The lowest and highest group means of an outcome (from the plot data), `k` of each. */
 export function extremesTable(report: Report, outcome: string, k = 5): StatTable | null {
   const m = report.plots?.groupMeans[outcome];
-  if (!m || !m.points.length) return null;
+  if (!m?.points.length) return null;
   const pts = m.points;
   const picked = pts.length <= 2 * k ? pts : [...pts.slice(0, k), ...pts.slice(-k)];
   return {

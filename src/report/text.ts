@@ -1,8 +1,8 @@
-import { Chalk } from 'chalk';
 import type { ChalkInstance } from 'chalk';
+import { Chalk } from 'chalk';
 import type { Finding } from '../rules/types.js';
-import { SEVERITIES, SEVERITY_ACTION, SEVERITY_SHAPE, SEVERITY_WORD } from '../severity.js';
 import type { Severity } from '../severity.js';
+import { SEVERITIES, SEVERITY_ACTION, SEVERITY_SHAPE, SEVERITY_WORD } from '../severity.js';
 import { formatNumber, formatP } from '../util/format.js';
 import { bySeverity, listed, origin, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, verdictSentence } from './labels.js';

@@ -1,6 +1,6 @@
+import type { PlotData, RuleRun } from '../analysis/types.js';
 import type { Grade, Verdict } from '../grade.js';
 import type { Roles } from '../roles/types.js';
-import type { PlotData, RuleRun } from '../analysis/types.js';
 import type { Finding } from '../rules/types.js';
 import type { OutcomeStats } from '../stats/types.js';
 

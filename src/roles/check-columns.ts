@@ -19,8 +19,6 @@ export function checkColumns(roles: Roles, header: readonly string[], locate: Lo
     if (have.has(column)) continue;
     const near = header.find((h) => h.trim().toLowerCase() === column.trim().toLowerCase());
     const hint = near ? ` (did you mean "${near}"?)` : '';
-    throw new InputError(
-      `${locate(path)}: column "${column}" is not in ${deliveryPath}${hint}; its header is: ${header.join(', ')}`,
-    );
+    throw new InputError(`${locate(path)}: column "${column}" is not in ${deliveryPath}${hint}; its header is: ${header.join(', ')}`);
   }
 }

@@ -1,15 +1,15 @@
 import { readFileSync } from 'node:fs';
-import { LineCounter, parseDocument, isNode } from 'yaml';
-import type { Document } from 'yaml';
 import type { ErrorObject } from 'ajv';
+import type { Document } from 'yaml';
+import { isNode, LineCounter, parseDocument } from 'yaml';
 import { InputError } from '../errors.js';
-import { createAjv, describeAjvError, pointerToPath } from '../util/ajv.js';
-import { DEFAULT_MISSING } from './schema.js';
-import { validate as untypedValidate } from './role-map-validator.generated.js';
-import type { Roles, RuleSetting, ValueType } from './types.js';
-import type { AnyRule } from '../rules/define.js';
-import { mergeRuleSettings, PRESETS } from '../presets/index.js';
 import type { PresetName } from '../presets/index.js';
+import { mergeRuleSettings, PRESETS } from '../presets/index.js';
+import type { AnyRule } from '../rules/define.js';
+import { createAjv, describeAjvError, pointerToPath } from '../util/ajv.js';
+import { validate as untypedValidate } from './role-map-validator.generated.js';
+import { DEFAULT_MISSING } from './schema.js';
+import type { Roles, RuleSetting, ValueType } from './types.js';
 
 const validateRoleMap = untypedValidate as ((data: unknown) => boolean) & { errors?: ErrorObject[] | null };
 
@@ -48,8 +48,7 @@ export function parseRoles(text: string, file: string, catalogue: readonly AnyRu
   };
   // a single `outcome: y` is normalised to outcomes: [y]; errors about outcomes[0] point at it
   let singleOutcome = false;
-  const locate = (path: (string | number)[]) =>
-    locateIn(doc, singleOutcome && path[0] === 'outcomes' ? ['outcome'] : path, at, file);
+  const locate = (path: (string | number)[]) => locateIn(doc, singleOutcome && path[0] === 'outcomes' ? ['outcome'] : path, at, file);
 
   const yamlError = doc.errors[0];
   if (yamlError) {
@@ -163,12 +162,7 @@ function checkRoleOverlap(roles: Roles, locate: LoadedRoles['locate'], singleOut
   }
 }
 
-function locateIn(
-  doc: Document,
-  path: (string | number)[],
-  at: (offset: number) => string,
-  file: string,
-): string {
+function locateIn(doc: Document, path: (string | number)[], at: (offset: number) => string, file: string): string {
   // walk down as far as the path exists; point at the key when there is one
   for (let depth = path.length; depth > 0; depth--) {
     const parent = doc.getIn(path.slice(0, depth - 1), true) as unknown;

@@ -1,7 +1,7 @@
 import type { Profile } from '../profile/types.js';
 import type { Roles, Severity } from '../roles/types.js';
-import type { OutcomeStats } from '../stats/types.js';
 import type { Lookup } from '../source/lookups/lookup.js';
+import type { OutcomeStats } from '../stats/types.js';
 import type { RowsPart } from './rows.js';
 
 export type RuleLevel = 'data' | 'structure' | 'variance';

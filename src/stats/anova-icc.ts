@@ -1,16 +1,11 @@
-import type { AnovaIcc, GroupMoments } from './types.js';
 import { fUpperTail } from './f-upper-tail.js';
 import { icc1 } from './icc1.js';
 import { icc1Interval } from './icc1-interval.js';
 import { icc2 } from './icc2.js';
 import { effectiveGroupSize } from './n0.js';
 import { nonEmptyGroups } from './non-empty-groups.js';
-import {
-  betweenSumOfSquares,
-  componentsEstimable,
-  totalCount,
-  withinSumOfSquares,
-} from './sums.js';
+import { betweenSumOfSquares, componentsEstimable, totalCount, withinSumOfSquares } from './sums.js';
+import type { AnovaIcc, GroupMoments } from './types.js';
 
 const UNDEFINED_ANOVA: AnovaIcc = {
   msb: NaN,

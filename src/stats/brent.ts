@@ -36,12 +36,7 @@ const GOLDEN_FRACTION = (3 - Math.sqrt(5)) / 2;
  * @param options stopping tolerances
  * @returns the minimiser, its value and the work done
  */
-export function brentMinimize(
-  f: (x: number) => number,
-  lower: number,
-  upper: number,
-  options: BrentOptions = {},
-): BrentResult {
+export function brentMinimize(f: (x: number) => number, lower: number, upper: number, options: BrentOptions = {}): BrentResult {
   if (!(Number.isFinite(lower) && Number.isFinite(upper) && lower < upper)) {
     throw new Error('brent: lower and upper must be finite with lower < upper');
   }

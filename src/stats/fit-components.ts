@@ -1,9 +1,9 @@
-import type { GroupMoments, VarianceComponents } from './types.js';
 import { iccFromComponents } from './icc.js';
 import { minimizeOverLambda } from './minimize-over-lambda.js';
-import { asClasses, bySize } from './size-classes.js';
 import { glsMean, profiledQ } from './profile-terms.js';
+import { asClasses, bySize } from './size-classes.js';
 import { componentsEstimable, grandMean, totalCount } from './sums.js';
+import type { GroupMoments, VarianceComponents } from './types.js';
 
 /** A profiled deviance in λ = τ²/σ² together with its derivative. */
 export interface ProfiledCriterion {

@@ -15,13 +15,7 @@ import fQuantile from '@stdlib/stats-base-dists-f-quantile';
  * @param level coverage, 0.95 unless given
  * @returns [lower, upper]
  */
-export function icc1Interval(
-  f: number,
-  df1: number,
-  df2: number,
-  n0: number,
-  level = 0.95,
-): [number, number] {
+export function icc1Interval(f: number, df1: number, df2: number, n0: number, level = 0.95): [number, number] {
   const upperProbability = 1 - (1 - level) / 2;
   const fLower = f / fQuantile(upperProbability, df1, df2);
   // F·F_{1−α/2}(df2, df1) equals F / F_{α/2}(df1, df2), the form in Shrout & Fleiss.

@@ -1,6 +1,6 @@
 import { brentMinimize } from './brent.js';
-import { gaussHermite } from './gauss-hermite.js';
 import type { QuadratureRule } from './gauss-hermite.js';
+import { gaussHermite } from './gauss-hermite.js';
 import { latentIcc } from './latent-icc.js';
 import { medianOddsRatio } from './median-odds-ratio.js';
 import type { GroupMoments } from './types.js';

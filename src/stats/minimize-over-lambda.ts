@@ -37,10 +37,7 @@ const POLISH_MAX_SHIFT = 1e-3;
  * @param derivative d(deviance)/dλ
  * @returns the minimising λ and its deviance
  */
-export function minimizeOverLambda(
-  deviance: (lambda: number) => number,
-  derivative: (lambda: number) => number,
-): LambdaOptimum {
+export function minimizeOverLambda(deviance: (lambda: number) => number, derivative: (lambda: number) => number): LambdaOptimum {
   const onLogScale = (logLambda: number): number => deviance(Math.exp(logLambda));
 
   const steps = Math.round((LOG_LAMBDA_MAX - LOG_LAMBDA_MIN) / LOG_LAMBDA_STEP);
@@ -60,11 +57,10 @@ export function minimizeOverLambda(
   // Brent never evaluates the bracket ends, so the scan point can still be the better one.
   const start = refined.fx <= bestValue ? refined.x : LOG_LAMBDA_MIN + bestIndex * LOG_LAMBDA_STEP;
   // On the log scale the derivative is λ·dD/dλ (chain rule); it has the same zeros for λ > 0.
-  const polished = secantRefine(
-    (logLambda) => Math.exp(logLambda) * derivative(Math.exp(logLambda)),
-    start,
-    { step: 1e-7 * Math.max(1, Math.abs(start)), maxShift: POLISH_MAX_SHIFT },
-  );
+  const polished = secantRefine((logLambda) => Math.exp(logLambda) * derivative(Math.exp(logLambda)), start, {
+    step: 1e-7 * Math.max(1, Math.abs(start)),
+    maxShift: POLISH_MAX_SHIFT,
+  });
   const interior: LambdaOptimum = { lambda: Math.exp(polished), deviance: onLogScale(polished) };
 
   const boundary = deviance(0);

@@ -1,7 +1,7 @@
-import type { GroupMoments, VarianceComponents } from './types.js';
 import { fitComponents } from './fit-components.js';
 import { mlDeviance, mlDevianceDerivative } from './ml-deviance.js';
 import { nonEmptyGroups } from './non-empty-groups.js';
+import type { GroupMoments, VarianceComponents } from './types.js';
 
 /**
  * Maximum-likelihood variance components of the one-way random-intercept ("null") model, exact
@@ -17,9 +17,5 @@ import { nonEmptyGroups } from './non-empty-groups.js';
  * @throws on invalid moments (see nonEmptyGroups)
  */
 export function mlComponents(groups: readonly GroupMoments[]): VarianceComponents {
-  return fitComponents(
-    nonEmptyGroups(groups),
-    { deviance: mlDeviance, derivative: mlDevianceDerivative },
-    (n) => n,
-  );
+  return fitComponents(nonEmptyGroups(groups), { deviance: mlDeviance, derivative: mlDevianceDerivative }, (n) => n);
 }

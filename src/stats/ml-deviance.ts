@@ -1,5 +1,5 @@
-import type { GroupMoments } from './types.js';
 import { likelihoodTerms } from './profile-terms.js';
+import type { GroupMoments } from './types.js';
 
 /**
  * Profiled ML deviance of the one-way random-intercept model,

@@ -1,5 +1,5 @@
-import type { GroupMoments } from './types.js';
 import { totalCount } from './sums.js';
+import type { GroupMoments } from './types.js';
 
 /**
  * Effective group size of an unbalanced one-way design, n0 = (N − Σ n_j²/N) / (J − 1), the

@@ -1,4 +1,3 @@
-import type { GroupMoments, OutcomeStats } from './types.js';
 import { anovaIcc } from './anova-icc.js';
 import { designEffect, effectiveSampleSize } from './design-effect.js';
 import { mlComponents } from './ml-components.js';
@@ -6,6 +5,7 @@ import { nonEmptyGroups } from './non-empty-groups.js';
 import { meanReliability } from './reliability.js';
 import { remlComponents } from './reml-components.js';
 import { grandMean, totalCount } from './sums.js';
+import type { GroupMoments, OutcomeStats } from './types.js';
 
 /**
  * Every between/within statistic the report carries for one outcome: REML and ML variance

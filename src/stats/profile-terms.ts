@@ -1,6 +1,6 @@
-import type { GroupMoments } from './types.js';
 import { multiplicity, spreadOf } from './size-classes.js';
 import { withinSumOfSquares } from './sums.js';
+import type { GroupMoments } from './types.js';
 
 // Terms of the one-way random-intercept likelihood at a fixed variance ratio λ = τ²/σ².
 // Group j's mean has variance σ²(1 + n_j λ)/n_j, so its precision weight (in units of 1/σ²)
@@ -67,10 +67,7 @@ export function logDetRatio(groups: readonly GroupMoments[], lambda: number): nu
  */
 export function profiledQ(groups: readonly GroupMoments[], lambda: number): number {
   const mu = glsMean(groups, lambda);
-  const between = groups.reduce(
-    (sum, g) => sum + (g.n / (1 + g.n * lambda)) * (spreadOf(g) + multiplicity(g) * (g.mean - mu) ** 2),
-    0,
-  );
+  const between = groups.reduce((sum, g) => sum + (g.n / (1 + g.n * lambda)) * (spreadOf(g) + multiplicity(g) * (g.mean - mu) ** 2), 0);
   return withinSumOfSquares(groups) + between;
 }
 
@@ -100,10 +97,7 @@ export function sumSquaredWeights(groups: readonly GroupMoments[], lambda: numbe
  */
 export function profiledQDerivative(groups: readonly GroupMoments[], lambda: number): number {
   const mu = glsMean(groups, lambda);
-  return -groups.reduce(
-    (sum, g) => sum + (g.n / (1 + g.n * lambda)) ** 2 * (spreadOf(g) + multiplicity(g) * (g.mean - mu) ** 2),
-    0,
-  );
+  return -groups.reduce((sum, g) => sum + (g.n / (1 + g.n * lambda)) ** 2 * (spreadOf(g) + multiplicity(g) * (g.mean - mu) ** 2), 0);
 }
 
 /** Every sum the profiled deviances and their derivatives need at one λ. */

@@ -1,5 +1,5 @@
-import type { GroupMoments } from './types.js';
 import { nonEmptyGroups } from './non-empty-groups.js';
+import type { GroupMoments } from './types.js';
 
 /**
  * Reliability of one group's observed mean as an estimate of its true mean,
@@ -29,11 +29,7 @@ export function groupMeanReliability(tau2: number, sigma2: number, n: number): n
  * @returns the mean reliability
  * @throws on invalid moments (see nonEmptyGroups)
  */
-export function meanReliability(
-  groups: readonly GroupMoments[],
-  tau2: number,
-  sigma2: number,
-): number {
+export function meanReliability(groups: readonly GroupMoments[], tau2: number, sigma2: number): number {
   const kept = nonEmptyGroups(groups);
   const total = kept.reduce((sum, g) => sum + groupMeanReliability(tau2, sigma2, g.n), 0);
   return total / kept.length;

@@ -1,7 +1,7 @@
-import type { GroupMoments, VarianceComponents } from './types.js';
 import { fitComponents } from './fit-components.js';
 import { nonEmptyGroups } from './non-empty-groups.js';
 import { remlDeviance, remlDevianceDerivative } from './reml-deviance.js';
+import type { GroupMoments, VarianceComponents } from './types.js';
 
 /**
  * REML variance components of the one-way random-intercept ("null") model, exact for unbalanced
@@ -17,9 +17,5 @@ import { remlDeviance, remlDevianceDerivative } from './reml-deviance.js';
  * @throws on invalid moments (see nonEmptyGroups)
  */
 export function remlComponents(groups: readonly GroupMoments[]): VarianceComponents {
-  return fitComponents(
-    nonEmptyGroups(groups),
-    { deviance: remlDeviance, derivative: remlDevianceDerivative },
-    (n) => n - 1,
-  );
+  return fitComponents(nonEmptyGroups(groups), { deviance: remlDeviance, derivative: remlDevianceDerivative }, (n) => n - 1);
 }

@@ -1,13 +1,13 @@
 import * as aq from 'arquero';
 import { describe, expect, it } from 'vitest';
-import type { ColumnProfile, Profile } from '../../src/profile/types.js';
-import type { Roles } from '../../src/roles/types.js';
 import { catalogue } from '../../rules/index.js';
 import { cappedIndices } from '../../src/analysis/capped-indices.js';
 import { GROUP_MEAN_ENDS, MAX_GROUP_MEANS } from '../../src/analysis/group-means.js';
 import { buildPlotData } from '../../src/analysis/plot-data.js';
 import { plotThresholds, SMALL_GROUP_THRESHOLD } from '../../src/analysis/plot-thresholds.js';
 import { sizeHistogram } from '../../src/analysis/size-histogram.js';
+import type { ColumnProfile, Profile } from '../../src/profile/types.js';
+import type { Roles } from '../../src/roles/types.js';
 import { outcomeStats } from '../../src/stats/index.js';
 import type { GroupMoments } from '../../src/stats/types.js';
 
@@ -29,7 +29,9 @@ function fakeProfile(rows: GroupRow[], columns: Record<string, Partial<ColumnPro
     columns: aq.from([]),
     column: (name) => ({ name, numericProfiled: true, type: 'numeric', ...columns[name] }) as ColumnProfile,
     moments(name): GroupMoments[] {
-      return rows.filter((r) => (r[`${name}:num`] as number) > 0).map((r) => ({ n: r[`${name}:num`] as number, mean: r[`${name}:mean`] as number, ss: r[`${name}:ss`] as number }));
+      return rows
+        .filter((r) => (r[`${name}:num`] as number) > 0)
+        .map((r) => ({ n: r[`${name}:num`] as number, mean: r[`${name}:mean`] as number, ss: r[`${name}:ss`] as number }));
     },
   };
 }
@@ -51,12 +53,20 @@ describe('buildPlotData', () => {
 
   it('histograms group sizes and sorts group means with se = sqrt(σ²_REML / n_j)', () => {
     const plots = buildPlotData(profile, roles(), { y: stats }, {});
-    expect(plots.groupSizes).toEqual([{ size: 1, count: 1 }, { size: 3, count: 2 }, { size: 4, count: 1 }]);
+    expect(plots.groupSizes).toEqual([
+      { size: 1, count: 1 },
+      { size: 3, count: 2 },
+      { size: 4, count: 1 },
+    ]);
     const m = plots.groupMeans.y;
     expect(m.total).toBe(3); // D has no value of y
     expect(m.sigma2).toBe(stats.reml.sigma2);
     expect(m.mean).toBe(stats.reml.mean);
-    expect(m.points.map((p) => [p.group, p.rank, p.n, p.mean])).toEqual([['B', 1, 1, 4], ['C', 2, 4, 7], ['A', 3, 3, 10]]);
+    expect(m.points.map((p) => [p.group, p.rank, p.n, p.mean])).toEqual([
+      ['B', 1, 1, 4],
+      ['C', 2, 4, 7],
+      ['A', 3, 3, 10],
+    ]);
     for (const p of m.points) expect(p.se).toBeCloseTo(Math.sqrt(stats.reml.sigma2 / p.n), 12);
   });
 
@@ -92,14 +102,22 @@ describe('plotThresholds', () => {
 describe('buildPlotData at scale', () => {
   it('caps the group means for many groups: ends kept, an even sample between, ranks of the whole', () => {
     const J = 12_345;
-    const many: GroupRow[] = Array.from({ length: J }, (_, j) => ({ group: `G${j}`, n: 2, 'y:num': 2, 'y:mean': (j * 7919) % J, 'y:ss': 1 }));
+    const many: GroupRow[] = Array.from({ length: J }, (_, j) => ({
+      group: `G${j}`,
+      n: 2,
+      'y:num': 2,
+      'y:mean': (j * 7919) % J,
+      'y:ss': 1,
+    }));
     const p = fakeProfile(many, { y: {} });
     const plots = buildPlotData(p, roles({ level1: [] }), { y: outcomeStats(p.moments('y')) }, {});
     const pts = plots.groupMeans.y.points;
     expect(plots.groupMeans.y.total).toBe(J);
     expect(pts).toHaveLength(MAX_GROUP_MEANS);
     expect(pts.slice(0, GROUP_MEAN_ENDS).map((q) => q.rank)).toEqual(Array.from({ length: GROUP_MEAN_ENDS }, (_, i) => i + 1));
-    expect(pts.slice(-GROUP_MEAN_ENDS).map((q) => q.rank)).toEqual(Array.from({ length: GROUP_MEAN_ENDS }, (_, i) => J - GROUP_MEAN_ENDS + i + 1));
+    expect(pts.slice(-GROUP_MEAN_ENDS).map((q) => q.rank)).toEqual(
+      Array.from({ length: GROUP_MEAN_ENDS }, (_, i) => J - GROUP_MEAN_ENDS + i + 1),
+    );
     for (let i = 1; i < pts.length; i++) {
       expect(pts[i].rank).toBeGreaterThan(pts[i - 1].rank);
       expect(pts[i].mean).toBeGreaterThanOrEqual(pts[i - 1].mean);
@@ -112,7 +130,11 @@ describe('buildPlotData at scale', () => {
 
 describe('plot helpers', () => {
   it('sizeHistogram counts each size once, ascending', () => {
-    expect(sizeHistogram([3, 1, 3, 10, 1, 1])).toEqual([{ size: 1, count: 3 }, { size: 3, count: 2 }, { size: 10, count: 1 }]);
+    expect(sizeHistogram([3, 1, 3, 10, 1, 1])).toEqual([
+      { size: 1, count: 3 },
+      { size: 3, count: 2 },
+      { size: 10, count: 1 },
+    ]);
     expect(sizeHistogram([])).toEqual([]);
   });
 

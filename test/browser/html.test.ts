@@ -1,8 +1,8 @@
 import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { chromium } from 'playwright-core';
 import type { Browser } from 'playwright-core';
+import { chromium } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { renderHtml } from '../../src/report/html.js';
 import { demoReport, hostileReport } from '../report/fixtures/reports.js';
@@ -10,8 +10,14 @@ import { demoReport, hostileReport } from '../report/fixtures/reports.js';
 // .ci/run installs Debian's chromium; elsewhere the test is skipped when it is missing (never in CI)
 const CHROMIUM = '/usr/bin/chromium';
 const ARGS = [
-  '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-  '--disable-background-networking', '--disable-component-update', '--disable-sync',
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
 ];
 const OUT = resolve('test-output');
 const available = existsSync(CHROMIUM);

@@ -48,10 +48,13 @@ export async function checkRule(
   const rule = catalogue.find((r) => r.meta.id === id);
   if (!rule) throw new Error(`no rule "${id}" in the catalogue`);
   const { roles: parsed } = parseRoles(toYaml(roles), 'roles.yaml', catalogue);
-  const lookup = new Proxy({}, {
-    get: (_, name) => () => {
-      throw new Error(`${id} asked for lookup.${String(name)}: test this case with a delivery`);
+  const lookup = new Proxy(
+    {},
+    {
+      get: (_, name) => () => {
+        throw new Error(`${id} asked for lookup.${String(name)}: test this case with a delivery`);
+      },
     },
-  }) as RuleContext<unknown>['lookup'];
+  ) as RuleContext<unknown>['lookup'];
   return runRules([rule], { profile, roles: parsed, outcomes, lookup }, { includeValues });
 }

@@ -3,11 +3,11 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { stringify } from 'yaml';
 import { catalogue } from '../../rules/index.js';
-import { audit } from '../../src/audit.js';
 import type { AuditOptions } from '../../src/audit.js';
+import { audit } from '../../src/audit.js';
 import type { Report } from '../../src/report/types.js';
-import type { Finding } from '../../src/rules/types.js';
 import { parseRoles } from '../../src/roles/load.js';
+import type { Finding } from '../../src/rules/types.js';
 
 /** One record of a test delivery: column → value (null/undefined is written as an empty field). */
 export type Row = Record<string, string | number | null | undefined>;
@@ -74,7 +74,9 @@ export function findingsOf(report: Report, rule: string): Finding[] {
 export function onlyFinding(report: Report, rule: string, column?: string): Finding {
   const list = findingsOf(report, rule).filter((f) => column === undefined || f.column === column);
   if (list.length !== 1) {
-    throw new Error(`expected exactly one ${rule}${column ? ` (${column})` : ''} finding, got ${list.length}: ${JSON.stringify(report.findings, null, 1)}`);
+    throw new Error(
+      `expected exactly one ${rule}${column ? ` (${column})` : ''} finding, got ${list.length}: ${JSON.stringify(report.findings, null, 1)}`,
+    );
   }
   return list[0];
 }

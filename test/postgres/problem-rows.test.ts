@@ -8,8 +8,8 @@ import { problemRows } from '../../src/problem-rows.js';
 import type { ProblemRows } from '../../src/problems/types.js';
 import { loadRoles } from '../../src/roles/load.js';
 import { nestready } from '../helpers/cli.js';
-import { writeDelivery } from '../helpers/delivery.js';
 import type { Delivery, Row } from '../helpers/delivery.js';
+import { writeDelivery } from '../helpers/delivery.js';
 import { loadCsv, TYPED } from './load.js';
 
 // see parity.test.ts: .ci/run starts the server; outside CI the test is skipped without one

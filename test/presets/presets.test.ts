@@ -28,11 +28,15 @@ describe('presets', () => {
   });
 
   it('parseRoles merges the preset under the role map, before the params defaults are filled in', () => {
-    const { roles } = parseRoles('group: g\nrules:\n  few-groups: { warn_below: 40 }\n  sentinel-values: off\n', 'roles.yaml', catalogue, { preset: 'strict' });
+    const { roles } = parseRoles('group: g\nrules:\n  few-groups: { warn_below: 40 }\n  sentinel-values: off\n', 'roles.yaml', catalogue, {
+      preset: 'strict',
+    });
     expect(roles.rules['few-groups']).toEqual({ block_below: 30, warn_below: 40, note_below: 100 });
     expect(roles.rules['sentinel-values']).toBe('off');
     expect(roles.rules['duplicate-unit-id']).toEqual({ severity: 'blocker' });
-    expect(() => parseRoles('group: g\n', 'roles.yaml', catalogue, { preset: 'lenient' as 'strict' })).toThrow(/unknown preset "lenient" \(known: intake, strict\)/);
+    expect(() => parseRoles('group: g\n', 'roles.yaml', catalogue, { preset: 'lenient' as 'strict' })).toThrow(
+      /unknown preset "lenient" \(known: intake, strict\)/,
+    );
   });
 
   it('20 groups: a warning by default, a blocker under strict (below 30), a note under intake', async () => {
@@ -49,7 +53,9 @@ describe('presets', () => {
     try {
       const run = (...extra: string[]) => {
         try {
-          execFileSync(process.execPath, ['bin/nestready.js', 'audit', d.csv, '--roles', d.roles, '--format', 'json', ...extra], { env: { ...process.env, NO_COLOR: '1' } });
+          execFileSync(process.execPath, ['bin/nestready.js', 'audit', d.csv, '--roles', d.roles, '--format', 'json', ...extra], {
+            env: { ...process.env, NO_COLOR: '1' },
+          });
           return 0;
         } catch (e) {
           return (e as { status: number }).status;

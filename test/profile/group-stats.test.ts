@@ -4,7 +4,7 @@ import { mostlyNumbers, readsAsNumbers } from '../../src/profile/reads-as-number
 import { writeDelivery } from '../helpers/delivery.js';
 import { profileOf } from '../helpers/profile-of.js';
 
-describe('the profile\'s group statistics by name', () => {
+describe("the profile's group statistics by name", () => {
   it('reads every statistic of a text column read as numbers, per group in ID order', async () => {
     const rows = [
       { g: 'B', x: '4' },
@@ -37,7 +37,7 @@ describe('the profile\'s group statistics by name', () => {
 });
 
 describe('reads as numbers', () => {
-  it('takes all numbers, or 95% of a declared variable\'s values', () => {
+  it("takes all numbers, or 95% of a declared variable's values", () => {
     expect(mostlyNumbers(20, 20, false)).toBe(true);
     expect(mostlyNumbers(19, 20, false)).toBe(false);
     expect(mostlyNumbers(19, 20, true)).toBe(true);

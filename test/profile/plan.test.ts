@@ -1,18 +1,28 @@
 import { describe, expect, it } from 'vitest';
-import { parseRoles } from '../../src/roles/load.js';
 import { catalogue } from '../../rules/index.js';
 import { planColumns } from '../../src/profile/build.js';
+import { parseRoles } from '../../src/roles/load.js';
 import { profileQuery } from '../../src/source/plan/profile-query.js';
-import { profileOf } from '../helpers/profile-of.js';
 import { writeDelivery } from '../helpers/delivery.js';
+import { profileOf } from '../helpers/profile-of.js';
 
 describe('the profiling plan', () => {
   const { roles } = parseRoles('group: g\nunit: id\nparent: p\noutcome: y\nlevel2: [w]\n', 'roles.yaml', catalogue);
-  const storage = new Map([['id', 'text'], ['p', 'text'], ['w', 'text'], ['y', 'double']] as const);
+  const storage = new Map([
+    ['id', 'text'],
+    ['p', 'text'],
+    ['w', 'text'],
+    ['y', 'double'],
+  ] as const);
 
-  it('profiles every text column\'s per-group range but the unit ID\'s, which no rule reads', () => {
+  it("profiles every text column's per-group range but the unit ID's, which no rule reads", () => {
     const plan = planColumns(['g', 'id', 'p', 'w', 'y'], roles, new Map(storage));
-    expect(plan.map((c) => [c.name, c.textRange !== false])).toEqual([['id', false], ['p', true], ['w', true], ['y', true]]);
+    expect(plan.map((c) => [c.name, c.textRange !== false])).toEqual([
+      ['id', false],
+      ['p', true],
+      ['w', true],
+      ['y', true],
+    ]);
     const sql = profileQuery('v', 'g', plan);
     expect(sql).not.toContain('"id:min"');
     expect(sql).toContain('"id:nn"');
@@ -21,7 +31,13 @@ describe('the profiling plan', () => {
   });
 
   it('the profile then has no range for the unit ID, and the rest as before', async () => {
-    const d = writeDelivery([{ g: 'A', id: 'u2', p: 'P', w: 'x', y: 1 }, { g: 'A', id: 'u1', p: 'P', w: 'x', y: 2 }], 'group: g\n');
+    const d = writeDelivery(
+      [
+        { g: 'A', id: 'u2', p: 'P', w: 'x', y: 1 },
+        { g: 'A', id: 'u1', p: 'P', w: 'x', y: 2 },
+      ],
+      'group: g\n',
+    );
     try {
       const { profile } = await profileOf(d.csv, 'group: g\nunit: id\nparent: p\noutcome: y\nlevel2: [w]\n');
       expect(profile.column('id')).toMatchObject({ nonMissing: 2, min: null, max: null });

@@ -21,7 +21,10 @@ describe('output selection', () => {
     expect(formatForPath('report')).toBeUndefined();
     expect(formatForPath('dir.html/report')).toBeUndefined();
     expect(planOutputs([], 'md')).toEqual([{ path: null, format: 'md' }]);
-    expect(planOutputs(['a.html', 'b.out'], 'junit')).toEqual([{ path: 'a.html', format: 'html' }, { path: 'b.out', format: 'junit' }]);
+    expect(planOutputs(['a.html', 'b.out'], 'junit')).toEqual([
+      { path: 'a.html', format: 'html' },
+      { path: 'b.out', format: 'junit' },
+    ]);
   });
 
   it('the plots are computed only for a format that reads them', () => {
@@ -40,7 +43,27 @@ describe('nestready audit with several outputs', () => {
     const stable = JSON.parse(readFileSync(p('plain.json'), 'utf8'));
     expect(stable.plots).toBeUndefined();
     expect(stable.rulesRun).toBeUndefined();
-    const run = await nestready('audit', ...DEMO, '--out', p('r.html'), '--out', p('r.json'), '--out', p('r.md'), '--out', p('r.xml'), '--out', p('r.other'), '-f', 'md', '--problems', p('rows.csv'), '--out', p('full.json'), '--with-plot-data');
+    const run = await nestready(
+      'audit',
+      ...DEMO,
+      '--out',
+      p('r.html'),
+      '--out',
+      p('r.json'),
+      '--out',
+      p('r.md'),
+      '--out',
+      p('r.xml'),
+      '--out',
+      p('r.other'),
+      '-f',
+      'md',
+      '--problems',
+      p('rows.csv'),
+      '--out',
+      p('full.json'),
+      '--with-plot-data',
+    );
     expect(run.code, run.stderr).toBe(1); // the demo has blockers
     expect(run.stdout).toBe('');
     // one line per file written, in the order written: the reports, then the problem rows
@@ -58,11 +81,15 @@ describe('nestready audit with several outputs', () => {
     expect(json.plots).toBeDefined(); // --with-plot-data applies to every JSON output
     const full = JSON.parse(readFileSync(p('full.json'), 'utf8'));
     expect(full.rulesRun.length).toBeGreaterThanOrEqual(6);
-    const failing = new Set(full.findings.filter((f: { severity: string }) => f.severity === 'blocker').map((f: { rule: string }) => f.rule));
+    const failing = new Set(
+      full.findings.filter((f: { severity: string }) => f.severity === 'blocker').map((f: { rule: string }) => f.rule),
+    );
     expect(readFileSync(p('r.md'), 'utf8')).toMatch(/^# nestready: Not ready for a multilevel model\n/);
     expect(readFileSync(p('r.other'), 'utf8')).toMatch(/^# nestready: Not ready for a multilevel model\n/);
     expect(readFileSync(p('r.xml'), 'utf8')).toMatch(
-      new RegExp(`^<\\?xml version="1.0" encoding="UTF-8"\\?>\n<testsuites name="nestready" tests="${full.rulesRun.length}" failures="${failing.size}"`),
+      new RegExp(
+        `^<\\?xml version="1.0" encoding="UTF-8"\\?>\n<testsuites name="nestready" tests="${full.rulesRun.length}" failures="${failing.size}"`,
+      ),
     );
     const rows = readFileSync(p('rows.csv'), 'utf8').trimEnd().split('\r\n');
     expect(rows[0]).toBe('record,group,unit,rule,severity,column,reason');

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { escapeHtml } from '../../src/report/escape-html.js';
 import { renderHtml } from '../../src/report/html.js';
 import { formatNumber } from '../../src/util/format.js';
-import { HOSTILE, demoReport, hostileReport } from './fixtures/reports.js';
+import { demoReport, HOSTILE, hostileReport } from './fixtures/reports.js';
 
 /** The <svg role="img"> charts of a page, each as its own string. */
 function charts(html: string): string[] {
@@ -65,9 +65,16 @@ describe('renderHtml', () => {
     const html = await renderHtml(report);
     const o = report.outcomes.repair_minutes;
     for (const [x, d] of [
-      [o.reml.tau2, 4], [o.reml.sigma2, 4], [o.reml.icc, 4], [o.ml.icc, 4], [o.anova.icc, 4],
-      [o.designEffect, 3], [o.effectiveN, 1], [o.meanReliability, 3],
-      [report.groups.sizes.median, 1], [report.groups.sizes.mean, 1],
+      [o.reml.tau2, 4],
+      [o.reml.sigma2, 4],
+      [o.reml.icc, 4],
+      [o.ml.icc, 4],
+      [o.anova.icc, 4],
+      [o.designEffect, 3],
+      [o.effectiveN, 1],
+      [o.meanReliability, 3],
+      [report.groups.sizes.median, 1],
+      [report.groups.sizes.mean, 1],
     ] as const) {
       expect(html).toContain(`>${formatNumber(x, d)}<`);
     }

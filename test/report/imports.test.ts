@@ -30,7 +30,9 @@ function importsOf(file: string): Import[] {
     for (const m of text.matchAll(re)) {
       const spec = i === 0 ? m[3] : m[1];
       if (!spec.startsWith('.')) continue;
-      const target = relative(ROOT, resolve(dirname(file), spec)).replace(/\\/g, '/').replace(/\.js$/, '');
+      const target = relative(ROOT, resolve(dirname(file), spec))
+        .replace(/\\/g, '/')
+        .replace(/\.js$/, '');
       found.push({ file: relative(ROOT, file), target, typeOnly: i === 0 && m[2] !== undefined });
     }
   }

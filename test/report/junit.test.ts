@@ -4,7 +4,7 @@ import type { FailOn } from '../../src/grade.js';
 import { renderJunit } from '../../src/report/junit.js';
 import type { Report } from '../../src/report/types.js';
 import { xmlAttr, xmlText } from '../../src/report/xml-escape.js';
-import { HOSTILE, demoReport, hostileReport } from './fixtures/reports.js';
+import { demoReport, HOSTILE, hostileReport } from './fixtures/reports.js';
 
 interface Case {
   name: string;
@@ -63,8 +63,16 @@ describe('renderJunit', () => {
     const report = demoReport();
     report.findings[0] = { ...report.findings[0], severity: 'warning' };
     report.findings.splice(1, 1); // level2-varies now only has a warning
-    expect(run(report, 'blocker').cases.filter((c) => c.failure).map((c) => c.name)).toEqual(['missing-group-id']);
-    expect(run(report, 'warning').cases.filter((c) => c.failure).map((c) => c.name)).toEqual(['level2-varies', 'missing-group-id']);
+    expect(
+      run(report, 'blocker')
+        .cases.filter((c) => c.failure)
+        .map((c) => c.name),
+    ).toEqual(['missing-group-id']);
+    expect(
+      run(report, 'warning')
+        .cases.filter((c) => c.failure)
+        .map((c) => c.name),
+    ).toEqual(['level2-varies', 'missing-group-id']);
     const never = run(report, 'never');
     expect(never.suite.failures).toBe('0');
     expect(never.cases.filter((c) => c['system-out']).length).toBe(3);

@@ -2,11 +2,14 @@ import { describe, expect, it } from 'vitest';
 import { renderMarkdown } from '../../src/report/markdown.js';
 import { mdText } from '../../src/report/md-escape.js';
 import { formatNumber } from '../../src/util/format.js';
-import { HOSTILE, demoReport, hostileReport } from './fixtures/reports.js';
+import { demoReport, HOSTILE, hostileReport } from './fixtures/reports.js';
 
 /** Cells of a Markdown table row, honouring `\|` escapes. */
 function cells(line: string): string[] {
-  return line.slice(1, -1).split(/(?<!\\)\|/).map((c) => c.trim());
+  return line
+    .slice(1, -1)
+    .split(/(?<!\\)\|/)
+    .map((c) => c.trim());
 }
 
 describe('renderMarkdown', () => {

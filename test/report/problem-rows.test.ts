@@ -8,8 +8,8 @@ import type { ProblemRows } from '../../src/problems/types.js';
 import type { Report } from '../../src/report/types.js';
 import { parseRoles } from '../../src/roles/load.js';
 import type { Roles } from '../../src/roles/types.js';
-import { toYaml, writeDelivery } from '../helpers/delivery.js';
 import type { Delivery, Row } from '../helpers/delivery.js';
+import { toYaml, writeDelivery } from '../helpers/delivery.js';
 
 /** What a spreadsheet-safe field holds: a leading quote before formula starters. */
 const neutral = (s: string) => (/^[=+\-@\t\r]/.test(s) ? `'${s}` : s);
@@ -47,8 +47,14 @@ describe('problemRows', () => {
   it('lists every offending record per finding with group, unit, rule and reason', async () => {
     const found = await problemRows(d.csv, roles, report.findings);
     const byRule = (rule: string) => found.rows.filter((r) => r.rule === rule);
-    expect(byRule('missing-group-id').map((r) => [r.record, r.group, r.unit])).toEqual([[7, null, '=1+1'], [9, null, 'u9']]);
-    expect(byRule('singleton-groups').map((r) => [r.record, r.group])).toEqual([[6, '\tTAB'], [10, 'G4']]);
+    expect(byRule('missing-group-id').map((r) => [r.record, r.group, r.unit])).toEqual([
+      [7, null, '=1+1'],
+      [9, null, 'u9'],
+    ]);
+    expect(byRule('singleton-groups').map((r) => [r.record, r.group])).toEqual([
+      [6, '\tTAB'],
+      [10, 'G4'],
+    ]);
     // site: "a,b" is the group's modal value, so the third record is the one that deviates
     expect(byRule('level2-varies').map((r) => [r.record, r.group, r.unit, r.column])).toEqual([[3, FORMULA_GROUP, '@SUM(A1)', 'site']]);
     expect(byRule('level2-varies')[0].reason).toBe('site is "say "hi"\nthere" here but "a,b" in most records of the group');
@@ -171,7 +177,14 @@ describe('problemRows on other shapes', () => {
       { g: 'B', u: 'b2', y: 4, staff: '2' },
       { g: 'B', u: 'b3', y: 5, staff: '2' },
     ];
-    const map = { group: 'g', unit: 'u', outcomes: ['y'], level2: ['staff'], types: { staff: 'numeric' }, rules: { 'level2-varies': { tolerance: 0.5 } } };
+    const map = {
+      group: 'g',
+      unit: 'u',
+      outcomes: ['y'],
+      level2: ['staff'],
+      types: { staff: 'numeric' },
+      rules: { 'level2-varies': { tolerance: 0.5 } },
+    };
     const { report, rows: varies } = await reportAndRows(data, map, 'level2-varies');
     const finding = report.findings.find((f) => f.rule === 'level2-varies')!;
     expect(finding.rows).toEqual([3, 4]);

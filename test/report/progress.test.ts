@@ -20,7 +20,11 @@ describe('startProgress', () => {
   });
 
   it('stays silent with --quiet, off a terminal, and for small files', () => {
-    for (const [tty, quiet, minBytes] of [[true, true, 0], [false, false, 0], [true, false, undefined]] as const) {
+    for (const [tty, quiet, minBytes] of [
+      [true, true, 0],
+      [false, false, 0],
+      [true, false, undefined],
+    ] as const) {
       const { written, stream } = fakeStream(tty);
       startProgress(FILE, 'auditing', { quiet, stream, minBytes })();
       expect(written).toEqual([]);

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { catalogue } from '../../rules/index.js';
 import { audit } from '../../src/audit.js';
-import { reportSchema } from '../../src/report/report-schema.js';
 import { renderJson } from '../../src/report/json.js';
+import { reportSchema } from '../../src/report/report-schema.js';
 import { loadRoles, parseRoles } from '../../src/roles/load.js';
 import { createAjv } from '../../src/util/ajv.js';
 import { demoReport } from './fixtures/reports.js';
@@ -16,12 +16,12 @@ const demoRoles = () => loadRoles('fixtures/demo/repairs-delivery.roles.yaml', c
 const demo = (includeValues = true) =>
   audit('fixtures/demo/repairs-delivery.csv', demoRoles(), { threads: 1, includeValues, plotData: false });
 
-describe('the report\'s JSON Schema', () => {
+describe("the report's JSON Schema", () => {
   it('accepts the frozen demo report', () => {
     expect(check(demoReport())).toEqual([]);
   });
 
-  it('accepts the demo delivery\'s report as --format json writes it, and each finding names its message', async () => {
+  it("accepts the demo delivery's report as --format json writes it, and each finding names its message", async () => {
     const json = JSON.parse(renderJson(await demo()));
     expect(check(json)).toEqual([]);
     for (const f of json.findings) expect(Object.keys(catalogue.find((r) => r.meta.id === f.rule)!.meta.messages)).toContain(f.messageId);
@@ -38,10 +38,10 @@ describe('the report\'s JSON Schema', () => {
   it('rejects a finding without its messageId', () => {
     const report = demoReport() as unknown as { findings: Record<string, unknown>[] };
     delete report.findings[0].messageId;
-    expect(check(report)).toContain('/findings/0 must have required property \'messageId\'');
+    expect(check(report)).toContain("/findings/0 must have required property 'messageId'");
   });
 
-  it('with --no-values, no raw value reaches a finding\'s data or text', async () => {
+  it("with --no-values, no raw value reaches a finding's data or text", async () => {
     const shown = await demo(true);
     const withheld = await demo(false);
     expect(withheld.findings.map((f) => [f.rule, f.messageId, f.data])).toEqual(shown.findings.map((f) => [f.rule, f.messageId, f.data]));

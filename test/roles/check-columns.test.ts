@@ -35,7 +35,9 @@ describe('checkColumns', () => {
   });
 
   it('suggests a column that differs only in case or spaces', () => {
-    expect(check('group: site\nlevel1: [age]\n')).toThrow('column "age" is not in data.csv (did you mean "Age"?); its header is: site, y, Age, kind');
+    expect(check('group: site\nlevel1: [age]\n')).toThrow(
+      'column "age" is not in data.csv (did you mean "Age"?); its header is: site, y, Age, kind',
+    );
   });
 
   it('the message is one line', () => {

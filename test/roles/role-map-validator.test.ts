@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
-import { describe, expect, it } from 'vitest';
 import type { ErrorObject } from 'ajv';
+import { describe, expect, it } from 'vitest';
 import { validate as generated } from '../../src/roles/role-map-validator.generated.js';
 import { roleMapSchema } from '../../src/roles/schema.js';
 import { ROLE_MAP_VALIDATOR_FILE, roleMapValidatorSource } from '../../src/roles/validator-source.js';

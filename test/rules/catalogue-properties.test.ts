@@ -1,9 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import type { Report } from '../../src/report/types.js';
-import { auditRows, findingsOf, groupId } from '../helpers/delivery.js';
 import type { Row } from '../helpers/delivery.js';
+import { auditRows, findingsOf, groupId } from '../helpers/delivery.js';
 import { mulberry32 } from '../helpers/prng.js';
-
 
 const ROLES = {
   group: 'g',
@@ -53,7 +52,20 @@ interface Planted {
 function plantDefects(seed: number, clean: Row[], groups: number): Planted {
   const rand = mulberry32(seed + 1000);
   const order = Array.from({ length: groups }, (_, j) => j).sort(() => rand() - 0.5);
-  const kinds = ['variant', 'copy', 'conflict', 'mobileFrom', 'mobileTo', 'partlyMissing', 'token', 'sentinel', 'reused', 'split', 'constantY', 'allMissingX'];
+  const kinds = [
+    'variant',
+    'copy',
+    'conflict',
+    'mobileFrom',
+    'mobileTo',
+    'partlyMissing',
+    'token',
+    'sentinel',
+    'reused',
+    'split',
+    'constantY',
+    'allMissingX',
+  ];
   const group = Object.fromEntries(kinds.map((k, i) => [k, groupId(order[i])]));
   const rows = clean.map((r) => ({ ...r }));
   const recordsOf = (g: string) => rows.map((r, k) => (r.g === g ? k : -1)).filter((k) => k >= 0);
@@ -133,8 +145,14 @@ describe('random deliveries (seeded)', () => {
     const includes = (list: readonly (string | number)[], items: readonly (string | number)[]) => items.every((x) => list.includes(x));
     check('id-variants', includes(ruleGroups(report, 'id-variants'), [group.variant, group.variant.toLowerCase()]));
     check('id-variants rows', includes(ruleRows(report, 'id-variants'), records.variant));
-    check('duplicate copy', findingsOf(report, 'duplicate-unit-id').some((f) => f.severity === 'warning' && includes(f.rows ?? [], records.copy)));
-    check('duplicate conflict', findingsOf(report, 'duplicate-unit-id').some((f) => f.severity === 'blocker' && includes(f.rows ?? [], records.conflict)));
+    check(
+      'duplicate copy',
+      findingsOf(report, 'duplicate-unit-id').some((f) => f.severity === 'warning' && includes(f.rows ?? [], records.copy)),
+    );
+    check(
+      'duplicate conflict',
+      findingsOf(report, 'duplicate-unit-id').some((f) => f.severity === 'blocker' && includes(f.rows ?? [], records.conflict)),
+    );
     check('unit-in-several-groups', includes(ruleGroups(report, 'unit-in-several-groups'), [group.mobileFrom, group.mobileTo]));
     check('level2-partly-missing', includes(ruleGroups(report, 'level2-partly-missing'), [group.partlyMissing]));
     check('level2-partly-missing rows', includes(ruleRows(report, 'level2-partly-missing'), records.partlyMissing));
@@ -143,9 +161,18 @@ describe('random deliveries (seeded)', () => {
     check('group-code-reused', includes(ruleGroups(report, 'group-code-reused'), [group.reused]));
     check('group-in-several-parents', includes(ruleGroups(report, 'group-in-several-parents'), [group.split]));
     check('outcome-constant-within', includes(ruleGroups(report, 'outcome-constant-within'), [group.constantY]));
-    check('missing-by-group', findingsOf(report, 'missing-by-group').some((f) => f.column === 'x' && (f.groups ?? []).includes(group.allMissingX)));
-    check('level1-constant-within', findingsOf(report, 'level1-constant-within').some((f) => f.column === 'c1'));
-    check('undeclared-level2', findingsOf(report, 'undeclared-level2').some((f) => f.column === 'region'));
+    check(
+      'missing-by-group',
+      findingsOf(report, 'missing-by-group').some((f) => f.column === 'x' && (f.groups ?? []).includes(group.allMissingX)),
+    );
+    check(
+      'level1-constant-within',
+      findingsOf(report, 'level1-constant-within').some((f) => f.column === 'c1'),
+    );
+    check(
+      'undeclared-level2',
+      findingsOf(report, 'undeclared-level2').some((f) => f.column === 'region'),
+    );
     expect(failures, JSON.stringify(report.findings.map((f) => [f.rule, f.column, f.groups, f.rows]))).toEqual([]);
   });
 });

@@ -3,11 +3,11 @@ import { basename, dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { catalogue } from '../../rules/index.js';
-import { createAjv } from '../../src/util/ajv.js';
-import { fill, resolveParams } from '../../src/rules/engine.js';
 import type { Roles } from '../../src/roles/types.js';
 import type { AnyRule } from '../../src/rules/define.js';
+import { fill, resolveParams } from '../../src/rules/engine.js';
 import type { Finding } from '../../src/rules/types.js';
+import { createAjv } from '../../src/util/ajv.js';
 import { expectMessage, placeholders } from '../helpers/messages.js';
 
 const rulesDir = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'rules');
@@ -28,7 +28,7 @@ describe('rule catalogue', () => {
     expect(new Set(listed).size).toBe(listed.length);
   });
 
-  it.each(ruleFiles)('%s: the catalogue entry is the file\'s default export and meta.id is its basename', async (file) => {
+  it.each(ruleFiles)("%s: the catalogue entry is the file's default export and meta.id is its basename", async (file) => {
     const mod = (await import(pathToFileURL(join(rulesDir, file)).href)) as { default: AnyRule };
     const id = basename(file, '.ts');
     expect(mod.default.meta.id).toBe(id);
@@ -110,9 +110,14 @@ describe('rule catalogue', () => {
   });
 });
 
-describe('expectMessage, the rule tests\' check of a finding\'s message', () => {
+describe("expectMessage, the rule tests' check of a finding's message", () => {
   const finding: Finding = {
-    rule: 'few-groups', severity: 'warning', messageId: 'usual', data: { count: 12, limit: 30 }, message: 'm', fix: 'f',
+    rule: 'few-groups',
+    severity: 'warning',
+    messageId: 'usual',
+    data: { count: 12, limit: 30 },
+    message: 'm',
+    fix: 'f',
   };
 
   it('passes on the declared messageId and the data given', () => {

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { parseRoles } from '../../src/roles/load.js';
 import { catalogue } from '../../rules/index.js';
+import { parseRoles } from '../../src/roles/load.js';
 import { createLookup } from '../../src/source/lookups/lookup.js';
 import { openDelivery } from '../../src/source/open.js';
-import { auditRows, onlyFinding, writeDelivery } from '../helpers/delivery.js';
 import type { Row } from '../helpers/delivery.js';
+import { auditRows, onlyFinding, writeDelivery } from '../helpers/delivery.js';
 
 // The audit starts the unit-ID check as soon as the profile has read the delivery. When that
 // read rejects a line for a value that is not a number (past the type sniff's sample), the

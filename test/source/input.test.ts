@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { readFileSync, readdirSync, statSync } from 'node:fs';
+import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { describe, expect, it } from 'vitest';
 import { delimiterHint, detectFormat } from '../../src/source/formats/detect.js';
@@ -15,7 +15,10 @@ function run(args: string[], input?: Buffer) {
     maxBuffer: 1 << 26,
   });
 }
-const spooled = () => readdirSync(tmpdir()).filter((n) => n.startsWith('nestready-stdin-')).sort();
+const spooled = () =>
+  readdirSync(tmpdir())
+    .filter((n) => n.startsWith('nestready-stdin-'))
+    .sort();
 
 describe('formats are detected from the extension and the content', () => {
   it.each([
@@ -46,7 +49,7 @@ describe('formats are detected from the extension and the content', () => {
     expect(delimiterHint(text)).toBe(delim);
   });
 
-  it('the user\'s --input-format wins', () => {
+  it("the user's --input-format wins", () => {
     expect(detectFormat(`${F}/repairs.tsv`, 'csv').format).toBe('csv');
   });
 });

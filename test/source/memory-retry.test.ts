@@ -5,8 +5,8 @@ import { createEngine } from '../../src/source/engines/duckdb/engine.js';
 import { manyGroups } from '../../src/source/engines/duckdb/memory.js';
 import { readColumns } from '../../src/source/engines/duckdb/stream.js';
 import { openDelivery } from '../../src/source/open.js';
-import { writeDelivery } from '../helpers/delivery.js';
 import type { Row } from '../helpers/delivery.js';
+import { writeDelivery } from '../helpers/delivery.js';
 
 // An aggregate whose size the data decides (here 250,000 groups with text states) does not fit a
 // tiny limit; the engine raises the limit fourfold and runs it again rather than failing

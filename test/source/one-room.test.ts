@@ -19,7 +19,9 @@ describe('delivery access in one room', () => {
   });
 
   it('the problem-rows stage neither imports the rule catalogue nor names a rule', () => {
-    const stage = sources(join('src', 'problems')).map((p) => readFileSync(p, 'utf8')).join('\n');
+    const stage = sources(join('src', 'problems'))
+      .map((p) => readFileSync(p, 'utf8'))
+      .join('\n');
     expect(stage).not.toMatch(/rules\/index/);
     const ids = readdirSync('rules')
       .filter((n) => n.endsWith('.ts') && !n.endsWith('.test.ts') && n !== 'index.ts')

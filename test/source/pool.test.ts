@@ -1,5 +1,5 @@
-import { describe, expect, it } from 'vitest';
 import type { DuckDBConnection } from '@duckdb/node-api';
+import { describe, expect, it } from 'vitest';
 import { connectionPool } from '../../src/source/engines/duckdb/pool.js';
 
 // stand-ins: the pool only lends them out and closes them
@@ -44,8 +44,16 @@ describe('connectionPool', () => {
 
   it('takes a connection back when fn throws or rejects', async () => {
     const pool = connectionPool([fake('a')]);
-    await expect(pool.use(() => { throw new Error('sync'); })).rejects.toThrow('sync');
-    await expect(pool.use(async () => { throw new Error('async'); })).rejects.toThrow('async');
+    await expect(
+      pool.use(() => {
+        throw new Error('sync');
+      }),
+    ).rejects.toThrow('sync');
+    await expect(
+      pool.use(async () => {
+        throw new Error('async');
+      }),
+    ).rejects.toThrow('async');
     await expect(pool.use(async (con) => (con as unknown as { name: string }).name)).resolves.toBe('a');
   });
 

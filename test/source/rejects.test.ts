@@ -48,14 +48,20 @@ describe('unreadable lines are counted and listed, never dropped silently', () =
   });
 
   it('--strict makes any unreadable line an input error (exit 2, one line on stderr)', () => {
-    const res = spawnSync(process.execPath, [CLI, 'audit', 'fixtures/formats/rejects.csv', '-r', ROLES, '--strict', '-q'], { encoding: 'utf8' });
+    const res = spawnSync(process.execPath, [CLI, 'audit', 'fixtures/formats/rejects.csv', '-r', ROLES, '--strict', '-q'], {
+      encoding: 'utf8',
+    });
     expect(res.status).toBe(2);
     expect(res.stderr.trim().split('\n')).toHaveLength(1);
     expect(res.stderr).toMatch(/rejects\.csv: 4 line\(s\) could not be read \(first: line 12, .*--strict/);
   });
 
   it('--strict passes a delivery whose every line reads', () => {
-    const out = execFileSync(process.execPath, [CLI, 'audit', 'fixtures/formats/repairs.tsv', '-r', ROLES, '--strict', '-q', '-f', 'json', '--fail-on', 'never'], { encoding: 'utf8' });
+    const out = execFileSync(
+      process.execPath,
+      [CLI, 'audit', 'fixtures/formats/repairs.tsv', '-r', ROLES, '--strict', '-q', '-f', 'json', '--fail-on', 'never'],
+      { encoding: 'utf8' },
+    );
     expect(JSON.parse(out).input.rowsRejected).toBe(0);
   });
 });

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { parseRoles } from '../../src/roles/load.js';
 import { catalogue } from '../../rules/index.js';
+import { parseRoles } from '../../src/roles/load.js';
 import { createLookup } from '../../src/source/lookups/lookup.js';
 import { openDelivery } from '../../src/source/open.js';
-import { writeDelivery } from '../helpers/delivery.js';
 import type { Row } from '../helpers/delivery.js';
+import { writeDelivery } from '../helpers/delivery.js';
 
 // Stage 1 of the unit-ID check groups on a 64-bit hash of the normalised ID. A collision must
 // cost only a second look, never a finding: here every key is made to share one hash.

@@ -1,14 +1,6 @@
 import fCdf from '@stdlib/stats-base-dists-f-cdf';
 import { afterAll, describe, expect, it } from 'vitest';
-import {
-  anovaIcc,
-  effectiveGroupSize,
-  fUpperTail,
-  icc1,
-  icc1Interval,
-  icc2,
-  momentsFromValues,
-} from '../../src/stats/index.js';
+import { anovaIcc, effectiveGroupSize, fUpperTail, icc1, icc1Interval, icc2, momentsFromValues } from '../../src/stats/index.js';
 import { expectRel, logRelativeErrors, referenceMoments } from './helpers.js';
 
 const TOL = 1e-6;
@@ -124,8 +116,6 @@ describe('ANOVA formulas', () => {
   });
 
   it('throws on a negative ss', () => {
-    expect(() => anovaIcc([{ n: 2, mean: 0, ss: -0.5 }])).toThrow(
-      'groups[0].ss must be a finite number >= 0',
-    );
+    expect(() => anovaIcc([{ n: 2, mean: 0, ss: -0.5 }])).toThrow('groups[0].ss must be a finite number >= 0');
   });
 });

@@ -1,8 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { expect } from 'vitest';
-import { momentsFromValues } from '../../src/stats/index.js';
 import type { GroupMoments } from '../../src/stats/index.js';
+import { momentsFromValues } from '../../src/stats/index.js';
 
 /** Relative errors seen by expectRel in this test file, for logRelativeErrors. */
 const relativeErrors: { label: string; error: number }[] = [];
@@ -18,10 +18,7 @@ const relativeErrors: { label: string; error: number }[] = [];
 export function expectRel(actual: number, expected: number, tol: number, label = ''): void {
   const error = Math.abs(actual - expected) / Math.abs(expected);
   relativeErrors.push({ label, error });
-  expect(
-    error,
-    `${label}: actual ${actual}, expected ${expected}, relative error ${error}`,
-  ).toBeLessThanOrEqual(tol);
+  expect(error, `${label}: actual ${actual}, expected ${expected}, relative error ${error}`).toBeLessThanOrEqual(tol);
 }
 
 /**
@@ -32,9 +29,7 @@ export function logRelativeErrors(): void {
   if (relativeErrors.length === 0) return;
   const worst = relativeErrors.reduce((a, b) => (b.error > a.error ? b : a));
   const lines = relativeErrors.map((r) => `  ${r.label}: ${r.error.toExponential(2)}`);
-  console.log(
-    `${lines.join('\n')}\n  max relative error: ${worst.error.toExponential(2)} (${worst.label})`,
-  );
+  console.log(`${lines.join('\n')}\n  max relative error: ${worst.error.toExponential(2)} (${worst.label})`);
 }
 
 /**
@@ -61,11 +56,7 @@ export function readReferenceCsv(name: string): Record<string, string>[] {
  * @param valueColumn numeric column
  * @returns one array of values per group
  */
-export function valuesByGroup(
-  records: Record<string, string>[],
-  groupColumn: string,
-  valueColumn: string,
-): number[][] {
+export function valuesByGroup(records: Record<string, string>[], groupColumn: string, valueColumn: string): number[][] {
   const groups = new Map<string, number[]>();
   for (const record of records) {
     const key = record[groupColumn];
@@ -84,11 +75,7 @@ export function valuesByGroup(
  * @param valueColumn numeric column
  * @returns GroupMoments per group
  */
-export function referenceMoments(
-  name: string,
-  groupColumn: string,
-  valueColumn: string,
-): GroupMoments[] {
+export function referenceMoments(name: string, groupColumn: string, valueColumn: string): GroupMoments[] {
   return momentsFromValues(valuesByGroup(readReferenceCsv(name), groupColumn, valueColumn));
 }
 

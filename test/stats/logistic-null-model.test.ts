@@ -1,5 +1,6 @@
 import chisquareCdf from '@stdlib/stats-base-dists-chisquare-cdf';
 import { describe, expect, it } from 'vitest';
+import type { BinaryGroup } from '../../src/stats/index.js';
 import {
   chiSquareHomogeneity,
   clusterSizeVariation,
@@ -10,9 +11,7 @@ import {
   medianOddsRatio,
   momentsAreZeroOne,
 } from '../../src/stats/index.js';
-import type { BinaryGroup } from '../../src/stats/index.js';
 import { mulberry32 } from '../helpers/prng.js';
-
 
 function simulate(seed: number, groups: number, size: (j: number) => number, beta: number, tau2: number): BinaryGroup[] {
   const rand = mulberry32(seed);
@@ -79,8 +78,25 @@ describe('logisticMarginalLogLik: adaptive Gauss–Hermite against brute-force i
   // the tolerance is looser where the integrand is far from Gaussian (a lone record, large τ)
   const cases: [BinaryGroup[], number, number, number][] = [
     [[{ n: 10, ones: 3 }], 0, 1, 1e-9],
-    [[{ n: 200, ones: 190 }, { n: 3, ones: 0 }], -1.2, 0.3, 1e-8],
-    [[{ n: 1, ones: 1 }, { n: 50, ones: 0 }, { n: 7, ones: 7 }], 0.8, 2.5, 1e-6],
+    [
+      [
+        { n: 200, ones: 190 },
+        { n: 3, ones: 0 },
+      ],
+      -1.2,
+      0.3,
+      1e-8,
+    ],
+    [
+      [
+        { n: 1, ones: 1 },
+        { n: 50, ones: 0 },
+        { n: 7, ones: 7 },
+      ],
+      0.8,
+      2.5,
+      1e-6,
+    ],
     [[{ n: 40, ones: 12 }], -0.5, 0.05, 1e-9],
   ];
   it.each(cases)('groups %j at β0 = %d, τ = %d', (groups, beta, tau, tolerance) => {
@@ -95,9 +111,30 @@ describe('logisticNullModel', () => {
   // test/stats/reference/logistic-null-scipy.py: SciPy 1.17.1 integrate.quad (adaptive
   // Gauss–Kronrod) + optimize.minimize (Nelder–Mead then BFGS) on the same 24 groups
   const GROUPS: BinaryGroup[] = [
-    [12, 3], [7, 0], [25, 11], [3, 1], [40, 9], [18, 10], [9, 2], [30, 21], [5, 0], [14, 4],
-    [22, 6], [11, 11], [16, 5], [8, 3], [35, 14], [6, 2], [20, 4], [27, 15], [4, 1], [13, 9],
-    [19, 3], [10, 6], [33, 8], [15, 7],
+    [12, 3],
+    [7, 0],
+    [25, 11],
+    [3, 1],
+    [40, 9],
+    [18, 10],
+    [9, 2],
+    [30, 21],
+    [5, 0],
+    [14, 4],
+    [22, 6],
+    [11, 11],
+    [16, 5],
+    [8, 3],
+    [35, 14],
+    [6, 2],
+    [20, 4],
+    [27, 15],
+    [4, 1],
+    [13, 9],
+    [19, 3],
+    [10, 6],
+    [33, 8],
+    [15, 7],
   ].map(([n, ones]) => ({ n, ones }));
 
   it('matches an independent SciPy fit', () => {
@@ -137,8 +174,9 @@ describe('logisticNullModel', () => {
 
   it('averages to the known τ² over replicate deliveries of unequal groups', () => {
     // 12 replicates × 300 groups of 5–60 records, β0 = 1, τ² = 0.5: the mean estimate is within 0.06
-    const estimates = Array.from({ length: 12 }, (_, r) =>
-      logisticNullModel(simulate(1000 + r, 300, (j) => 5 + ((j * 37) % 56), 1, 0.5)).tau2,
+    const estimates = Array.from(
+      { length: 12 },
+      (_, r) => logisticNullModel(simulate(1000 + r, 300, (j) => 5 + ((j * 37) % 56), 1, 0.5)).tau2,
     );
     const mean = estimates.reduce((a, b) => a + b, 0) / estimates.length;
     expect(Math.abs(mean - 0.5)).toBeLessThan(0.06);
@@ -162,13 +200,23 @@ describe('logisticNullModel', () => {
   });
 
   it('is undefined (NaN) when every record is 0, or with one group', () => {
-    expect(logisticNullModel([{ n: 5, ones: 0 }, { n: 8, ones: 0 }]).tau2).toBeNaN();
+    expect(
+      logisticNullModel([
+        { n: 5, ones: 0 },
+        { n: 8, ones: 0 },
+      ]).tau2,
+    ).toBeNaN();
     expect(logisticNullModel([{ n: 5, ones: 2 }]).tau2).toBeNaN();
     expect(() => logisticNullModel([{ n: 3, ones: 4 }])).toThrow(/0 <= ones <= n/);
   });
 
   it('reports no convergence when τ² runs away (every group all 0 or all 1)', () => {
-    const fit = logisticNullModel([{ n: 10, ones: 0 }, { n: 10, ones: 10 }, { n: 12, ones: 0 }, { n: 9, ones: 9 }]);
+    const fit = logisticNullModel([
+      { n: 10, ones: 0 },
+      { n: 10, ones: 10 },
+      { n: 12, ones: 0 },
+      { n: 9, ones: 9 },
+    ]);
     expect(fit.converged).toBe(false);
     expect(fit.tau2).toBeGreaterThan(100);
   });
@@ -194,7 +242,12 @@ describe('latentIcc, medianOddsRatio', () => {
 
 describe('momentsAreZeroOne', () => {
   it('accepts 0/1 groups and rejects others', () => {
-    expect(momentsAreZeroOne([{ n: 4, mean: 0.25, ss: 0.75 }, { n: 2, mean: 1, ss: 0 }])).toBe(true);
+    expect(
+      momentsAreZeroOne([
+        { n: 4, mean: 0.25, ss: 0.75 },
+        { n: 2, mean: 1, ss: 0 },
+      ]),
+    ).toBe(true);
     // {0.5, 0.5}: Σx² = 0.5 ≠ Σx = 1
     expect(momentsAreZeroOne([{ n: 2, mean: 0.5, ss: 0 }])).toBe(false);
     expect(momentsAreZeroOne([{ n: 2, mean: 2, ss: 0 }])).toBe(false);
@@ -204,7 +257,10 @@ describe('momentsAreZeroOne', () => {
 describe('chiSquareHomogeneity (Pearson; p from @stdlib/stats-base-dists-chisquare-cdf)', () => {
   it('30/100 against 50/100 missing: X² = 25/3 on 1 df, between the handbook .005 and .001 points', () => {
     // by hand: pooled 0.4, expected 40/60 in each group: 2.5 + 1.667 + 2.5 + 1.667 = 8.333
-    const t = chiSquareHomogeneity([{ n: 100, events: 30 }, { n: 100, events: 50 }]);
+    const t = chiSquareHomogeneity([
+      { n: 100, events: 30 },
+      { n: 100, events: 50 },
+    ]);
     expect(t.statistic).toBeCloseTo(25 / 3, 12);
     expect(t.df).toBe(1);
     // handbook table of χ² upper points, 1 df: 7.879 at .005, 10.828 at .001 (e.g. Pearson & Hartley, Biometrika Tables, Table 8)
@@ -221,8 +277,18 @@ describe('chiSquareHomogeneity (Pearson; p from @stdlib/stats-base-dists-chisqua
   });
 
   it('equal rates give X² = 0, no variation gives p = 1, one group is undefined', () => {
-    expect(chiSquareHomogeneity([{ n: 10, events: 2 }, { n: 20, events: 4 }]).statistic).toBeCloseTo(0, 12);
-    expect(chiSquareHomogeneity([{ n: 10, events: 0 }, { n: 20, events: 0 }]).p).toBe(1);
+    expect(
+      chiSquareHomogeneity([
+        { n: 10, events: 2 },
+        { n: 20, events: 4 },
+      ]).statistic,
+    ).toBeCloseTo(0, 12);
+    expect(
+      chiSquareHomogeneity([
+        { n: 10, events: 0 },
+        { n: 20, events: 0 },
+      ]).p,
+    ).toBe(1);
     expect(chiSquareHomogeneity([{ n: 10, events: 2 }]).p).toBeNaN();
   });
 });

@@ -1,11 +1,5 @@
 import { afterAll, describe, expect, it } from 'vitest';
-import {
-  anovaIcc,
-  mlComponents,
-  momentsFromValues,
-  outcomeStats,
-  remlComponents,
-} from '../../src/stats/index.js';
+import { anovaIcc, mlComponents, momentsFromValues, outcomeStats, remlComponents } from '../../src/stats/index.js';
 import { expectRel, logRelativeErrors, readReferenceCsv, referenceMoments } from './helpers.js';
 
 const TOL = 1e-6;
@@ -86,7 +80,13 @@ describe('outcomeStats edge cases', () => {
   });
 
   it('τ² = 0: design effect 1, reliability 0, negative ANOVA ICC', () => {
-    const stats = outcomeStats(momentsFromValues([[1, 2, 3], [0, 2, 4], [3, 1, 2, 2]]));
+    const stats = outcomeStats(
+      momentsFromValues([
+        [1, 2, 3],
+        [0, 2, 4],
+        [3, 1, 2, 2],
+      ]),
+    );
     expect(stats.reml.tau2).toBe(0);
     expect(stats.designEffect).toBe(1);
     expect(stats.effectiveN).toBe(stats.n);
@@ -96,17 +96,9 @@ describe('outcomeStats edge cases', () => {
 
   it('throws a clear error on invalid moments', () => {
     const good = { n: 3, mean: 1, ss: 2 };
-    expect(() => outcomeStats([good, { n: 4, mean: 0, ss: -1 }])).toThrow(
-      'groups[1].ss must be a finite number >= 0, got -1',
-    );
-    expect(() => outcomeStats([{ n: 2.5, mean: 0, ss: 1 }, good])).toThrow(
-      'groups[0].n must be a non-negative integer, got 2.5',
-    );
-    expect(() => outcomeStats([good, { n: 2, mean: NaN, ss: 1 }])).toThrow(
-      'groups[1].mean must be a finite number, got NaN',
-    );
-    expect(() => outcomeStats([good, { n: 1, mean: 3, ss: 0.1 }])).toThrow(
-      'groups[1].ss must be 0 for a group of one value, got 0.1',
-    );
+    expect(() => outcomeStats([good, { n: 4, mean: 0, ss: -1 }])).toThrow('groups[1].ss must be a finite number >= 0, got -1');
+    expect(() => outcomeStats([{ n: 2.5, mean: 0, ss: 1 }, good])).toThrow('groups[0].n must be a non-negative integer, got 2.5');
+    expect(() => outcomeStats([good, { n: 2, mean: NaN, ss: 1 }])).toThrow('groups[1].mean must be a finite number, got NaN');
+    expect(() => outcomeStats([good, { n: 1, mean: 3, ss: 0.1 }])).toThrow('groups[1].ss must be 0 for a group of one value, got 0.1');
   });
 });

@@ -1,13 +1,7 @@
 // Property tests on simulated data (seeded mulberry32 + Box–Muller from helpers.ts, so every
 // run sees the same data sets).
 import { describe, expect, it } from 'vitest';
-import {
-  anovaIcc,
-  effectiveGroupSize,
-  momentsFromValues,
-  remlComponents,
-  remlDeviance,
-} from '../../src/stats/index.js';
+import { anovaIcc, effectiveGroupSize, momentsFromValues, remlComponents, remlDeviance } from '../../src/stats/index.js';
 import { mulberry32, randomSizes, simulateGroups } from './helpers.js';
 
 // Large-sample standard error of an ICC estimate from J groups of size n:
@@ -32,18 +26,13 @@ describe('REML ICC recovers the simulated ICC', () => {
       seed += 17;
       const scenarioSeed = seed;
       it(`${pattern.name}, ICC ${icc}`, () => {
-        const groups = momentsFromValues(
-          simulateGroups(pattern.sizes(scenarioSeed), icc, scenarioSeed + 1),
-        );
+        const groups = momentsFromValues(simulateGroups(pattern.sizes(scenarioSeed), icc, scenarioSeed + 1));
         const reml = remlComponents(groups);
         const se = iccStandardError(icc, effectiveGroupSize(groups), groups.length);
         // Within 3 sampling SEs. A fixed bound such as 0.06 would be too tight for ICC 0.5
         // with 50 × 20 (SE ≈ 0.054) and far too loose for ICC 0.05 (SE ≈ 0.019), so the bound
         // scales with the SE; at 3 SE a correct estimator fails about 0.3% of the time.
-        expect(
-          Math.abs(reml.icc - icc),
-          `estimate ${reml.icc}, SE ${se}`,
-        ).toBeLessThan(3 * se);
+        expect(Math.abs(reml.icc - icc), `estimate ${reml.icc}, SE ${se}`).toBeLessThan(3 * se);
       });
     }
   }
@@ -55,9 +44,7 @@ describe('REML over many random data sets, including pure noise', () => {
     const groupCount = 2 + Math.floor(uniform() * 59);
     const balanced = uniform() < 0.4;
     const common = 2 + Math.floor(uniform() * 15);
-    const sizes = balanced
-      ? Array<number>(groupCount).fill(common)
-      : randomSizes(groupCount, 1, 20, 5000 + k);
+    const sizes = balanced ? Array<number>(groupCount).fill(common) : randomSizes(groupCount, 1, 20, 5000 + k);
     const icc = [0, 0, 0.02, 0.1, 0.4][k % 5];
     return { sizes, balanced, icc, seed: 9000 + k };
   });

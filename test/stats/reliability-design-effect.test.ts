@@ -1,11 +1,5 @@
 import { afterAll, describe, expect, it } from 'vitest';
-import {
-  designEffect,
-  effectiveSampleSize,
-  groupMeanReliability,
-  meanReliability,
-  remlComponents,
-} from '../../src/stats/index.js';
+import { designEffect, effectiveSampleSize, groupMeanReliability, meanReliability, remlComponents } from '../../src/stats/index.js';
 import { expectRel, logRelativeErrors, referenceMoments } from './helpers.js';
 
 const TOL = 1e-6;

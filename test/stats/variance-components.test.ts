@@ -251,20 +251,34 @@ describe('degenerate designs', () => {
   });
 
   it('a constant outcome gives zero components and NaN ICC', () => {
-    const reml = remlComponents(momentsFromValues([[4, 4], [4, 4, 4]]));
+    const reml = remlComponents(
+      momentsFromValues([
+        [4, 4],
+        [4, 4, 4],
+      ]),
+    );
     expect(reml.tau2).toBe(0);
     expect(reml.sigma2).toBe(0);
     expect(reml.icc).toBeNaN();
   });
 
   it('constant groups with different means put nearly all variance between groups', () => {
-    const reml = remlComponents(momentsFromValues([[1, 1], [3, 3, 3], [8, 8]]));
+    const reml = remlComponents(
+      momentsFromValues([
+        [1, 1],
+        [3, 3, 3],
+        [8, 8],
+      ]),
+    );
     expect(reml.icc).toBeGreaterThan(0.9999);
   });
 
   it('rejects invalid moments', () => {
-    expect(() => remlComponents([{ n: 3, mean: 1, ss: -1 }, { n: 2, mean: 0, ss: 1 }])).toThrow(
-      'groups[0].ss must be a finite number >= 0',
-    );
+    expect(() =>
+      remlComponents([
+        { n: 3, mean: 1, ss: -1 },
+        { n: 2, mean: 0, ss: 1 },
+      ]),
+    ).toThrow('groups[0].ss must be a finite number >= 0');
   });
 });

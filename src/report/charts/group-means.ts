@@ -17,7 +17,10 @@ export function groupMeansChart(outcome: string, means: GroupMeans, index: numbe
       return { rank: p.rank, mean: p.mean, lo: p.mean - half, hi: p.mean + half };
     });
   if (!values.length) return null;
-  const shown = values.length < means.total ? `${values.length} of ${means.total} groups shown (lowest, highest and an even sample)` : `${means.total} groups`;
+  const shown =
+    values.length < means.total
+      ? `${values.length} of ${means.total} groups shown (lowest, highest and an even sample)`
+      : `${means.total} groups`;
   const lo = values[0];
   const hi = values[values.length - 1];
   const subtitle = `${shown}; overall mean ${formatNumber(means.mean, 2)} (REML); bars: mean ± 1.96·SE`;
@@ -40,7 +43,11 @@ export function groupMeansChart(outcome: string, means: GroupMeans, index: numbe
   if (Number.isFinite(means.mean)) {
     const rule = { values: [{ y: means.mean, label: `overall mean ${formatNumber(means.mean, 2)}` }] };
     layers.push(
-      { data: rule, mark: { type: 'rule', color: PALETTE.highlight, strokeDash: [5, 3] }, encoding: { y: { field: 'y', type: 'quantitative' } } },
+      {
+        data: rule,
+        mark: { type: 'rule', color: PALETTE.highlight, strokeDash: [5, 3] },
+        encoding: { y: { field: 'y', type: 'quantitative' } },
+      },
       {
         data: rule,
         mark: { type: 'text', align: 'left', baseline: 'bottom', x: 4, dy: -3, color: PALETTE.highlight, fontSize: 11 },

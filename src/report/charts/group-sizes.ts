@@ -1,5 +1,5 @@
-import type { PlotData } from '../types.js';
 import { PALETTE } from '../palette.js';
+import type { PlotData } from '../types.js';
 import { CHART_CONFIG, CHART_SIZE } from './theme.js';
 import type { Chart } from './types.js';
 
@@ -13,7 +13,11 @@ export function groupSizesChart(plots: PlotData): Chart | null {
   const threshold = plots.smallGroupThreshold;
   const kind = (size: number) =>
     size === 1 ? 'singleton (1 record)' : threshold !== undefined && size < threshold ? `small (fewer than ${threshold})` : 'other groups';
-  const kinds = ['singleton (1 record)', ...(threshold !== undefined && threshold > 2 ? [`small (fewer than ${threshold})`] : []), 'other groups'];
+  const kinds = [
+    'singleton (1 record)',
+    ...(threshold !== undefined && threshold > 2 ? [`small (fewer than ${threshold})`] : []),
+    'other groups',
+  ];
   const values = hist.map((h) => ({ size: h.size, count: h.count, kind: kind(h.size) }));
   const groups = hist.reduce((a, h) => a + h.count, 0);
   const singletons = hist.find((h) => h.size === 1)?.count ?? 0;

@@ -46,15 +46,29 @@ export function iccChart(outcomes: Record<string, OutcomeStats>, lowIcc: number 
       encoding: {
         y,
         x: { field: 'icc', type: 'quantitative', title: 'intraclass correlation (share of variance between groups)' },
-        color: { field: 'method', type: 'nominal', title: 'estimate', scale: { domain: [...METHODS], range: [PALETTE.accent, PALETTE.note, PALETTE.highlight] } },
-        shape: { field: 'method', type: 'nominal', title: 'estimate', scale: { domain: [...METHODS], range: ['circle', 'square', 'diamond'] } },
+        color: {
+          field: 'method',
+          type: 'nominal',
+          title: 'estimate',
+          scale: { domain: [...METHODS], range: [PALETTE.accent, PALETTE.note, PALETTE.highlight] },
+        },
+        shape: {
+          field: 'method',
+          type: 'nominal',
+          title: 'estimate',
+          scale: { domain: [...METHODS], range: ['circle', 'square', 'diamond'] },
+        },
       },
     },
   ];
   if (lowIcc !== undefined) {
     const rule = { values: [{ x: lowIcc, label: `low-ICC threshold ${lowIcc}` }] };
     layers.push(
-      { data: rule, mark: { type: 'rule', color: PALETTE.blocker, strokeDash: [4, 3] }, encoding: { x: { field: 'x', type: 'quantitative' } } },
+      {
+        data: rule,
+        mark: { type: 'rule', color: PALETTE.blocker, strokeDash: [4, 3] },
+        encoding: { x: { field: 'x', type: 'quantitative' } },
+      },
       {
         data: rule,
         mark: { type: 'text', align: 'left', dx: 4, y: -6, color: PALETTE.blocker, fontSize: 11 },

@@ -15,7 +15,11 @@ export function predictorSharesChart(plots: PlotData): Chart | null {
     .map(([column, s]) => ({ column, reml: Number.isFinite(s.reml) ? s.reml : null, anova: Number.isFinite(s.anova) ? s.anova : null }));
   if (!values.length) return null;
   const y = { field: 'column', type: 'nominal', title: null, sort: values.map((v) => v.column) };
-  const x = { type: 'quantitative', scale: { domain: [0, 1], clamp: true }, title: 'share of the predictor’s variance between groups (ICC)' };
+  const x = {
+    type: 'quantitative',
+    scale: { domain: [0, 1], clamp: true },
+    title: 'share of the predictor’s variance between groups (ICC)',
+  };
   const layers: unknown[] = [
     {
       data: { values: values.filter((v) => v.reml !== null) },

@@ -25,7 +25,15 @@ export const CHART_CONFIG: Config = {
     titleLimit: 240,
   },
   legend: { labelColor: PALETTE.ink, titleColor: PALETTE.ink, labelFontSize: 11, titleFontSize: 12, orient: 'bottom', labelLimit: 320 },
-  title: { color: PALETTE.ink, subtitleColor: PALETTE.muted, fontSize: 14, subtitleFontSize: 12, anchor: 'start', fontWeight: 600, subtitlePadding: 4 },
+  title: {
+    color: PALETTE.ink,
+    subtitleColor: PALETTE.muted,
+    fontSize: 14,
+    subtitleFontSize: 12,
+    anchor: 'start',
+    fontWeight: 600,
+    subtitlePadding: 4,
+  },
   range: { category: [PALETTE.accent, PALETTE.highlight, PALETTE.note, PALETTE.warning] },
   mark: { color: PALETTE.accent },
 };

@@ -35,15 +35,29 @@ export function statisticsHtml(report: Report, svgs: ChartSvgs): string {
   if (!names.length) out.push('<p class="muted">No numeric outcome was profiled.</p>');
   for (const name of names) {
     const o = report.outcomes[name];
-    out.push(`<h4>Outcome <code>${e(name)}</code></h4>`, '<div class="tables">', statTableHtml(componentsTable(name, o)), statTableHtml(anovaTable(name, o)), '</div>');
-    out.push(figure(svgs.means.get(name) ?? null, `Group means of ${name}, lowest to highest, each with mean ± 1.96·SE; the dashed line is the overall (REML) mean. The wider the spread relative to the bars, the larger the ICC.`));
+    out.push(
+      `<h4>Outcome <code>${e(name)}</code></h4>`,
+      '<div class="tables">',
+      statTableHtml(componentsTable(name, o)),
+      statTableHtml(anovaTable(name, o)),
+      '</div>',
+    );
+    out.push(
+      figure(
+        svgs.means.get(name) ?? null,
+        `Group means of ${name}, lowest to highest, each with mean ± 1.96·SE; the dashed line is the overall (REML) mean. The wider the spread relative to the bars, the larger the ICC.`,
+      ),
+    );
     const ext = extremesTable(report, name);
     if (ext) out.push(statTableHtml(ext));
   }
   if (svgs.icc) {
     out.push(
       '<h4>ICC by method</h4>',
-      figure(svgs.icc, 'REML, ML and ANOVA ICC(1) (with its 95% interval) for each outcome; methods differ in colour and shape. The dashed line is the low-ICC threshold.'),
+      figure(
+        svgs.icc,
+        'REML, ML and ANOVA ICC(1) (with its 95% interval) for each outcome; methods differ in colour and shape. The dashed line is the low-ICC threshold.',
+      ),
     );
   }
   out.push('</section>');
@@ -53,7 +67,10 @@ export function statisticsHtml(report: Report, svgs: ChartSvgs): string {
     out.push(
       '<section aria-labelledby="predictors-h"><h3 id="predictors-h">Level-1 predictors</h3>',
       statTableHtml(predictors),
-      figure(svgs.predictors, 'Share of each numeric level-1 predictor’s variance between groups: bar REML ICC, tick ANOVA ICC(1). A clear between-group share calls for centring within groups.'),
+      figure(
+        svgs.predictors,
+        'Share of each numeric level-1 predictor’s variance between groups: bar REML ICC, tick ANOVA ICC(1). A clear between-group share calls for centring within groups.',
+      ),
       '</section>',
     );
   }

@@ -1,5 +1,5 @@
-import { PALETTE as P } from '../palette.js';
 import { CHART_FONT } from '../charts/theme.js';
+import { PALETTE as P } from '../palette.js';
 
 /** The report's inline stylesheet: our own look, readable on screen and on paper. */
 export const STYLES = `

@@ -1,7 +1,7 @@
 import { InputError } from '../../errors.js';
 import { STDIN } from '../types.js';
-import { isPostgresInput, isPostgresUrl } from './postgres/input.js';
 import type { PostgresInput } from './postgres/input.js';
+import { isPostgresInput, isPostgresUrl } from './postgres/input.js';
 import type { DeliveryInput, InputKind } from './types.js';
 
 // Telling inputs apart needs no engine: the CLI asks here before any engine is loaded.

@@ -1,11 +1,11 @@
 import { open } from 'node:fs/promises';
-import { DataType, RecordBatchReader } from 'apache-arrow';
 import type { Field } from 'apache-arrow';
+import { DataType, RecordBatchReader } from 'apache-arrow';
 import { InputError } from '../../errors.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
 import type { ReadContext } from './registry.js';
-import { Stager, stagedLayout } from './staged.js';
 import type { StagedColumn, StagedValue } from './staged.js';
+import { Stager, stagedLayout } from './staged.js';
 
 function stagedType(f: Field): StagedColumn['type'] {
   return DataType.isInt(f.type) || DataType.isFloat(f.type) ? 'DOUBLE' : 'VARCHAR';

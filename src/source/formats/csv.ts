@@ -1,7 +1,7 @@
 import { closeSync, openSync, readSync } from 'node:fs';
-import { readCsv, typedColumns } from '../engines/duckdb/read-csv.js';
-import type { CsvOptions } from '../engines/duckdb/read-csv.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
+import type { CsvOptions } from '../engines/duckdb/read-csv.js';
+import { readCsv, typedColumns } from '../engines/duckdb/read-csv.js';
 import type { RejectedLine, SourceFormat } from '../types.js';
 import type { ReadContext } from './registry.js';
 
@@ -26,7 +26,9 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     NewLineDelimiter: string;
     SkipRows: number | bigint;
     Columns: { name: string; type: string }[];
-  }>(`SELECT Delimiter, Quote, Escape, NewLineDelimiter, SkipRows, Columns FROM ${readCsv(file, missing, 'sniff', options).replace(/^read_csv\(/, 'sniff_csv(')}`);
+  }>(
+    `SELECT Delimiter, Quote, Escape, NewLineDelimiter, SkipRows, Columns FROM ${readCsv(file, missing, 'sniff', options).replace(/^read_csv\(/, 'sniff_csv(')}`,
+  );
   const none = (v: string) => (v === '(empty)' ? '' : v);
   let sniffed = found.Columns.map((c) => ({ column_name: c.name, column_type: c.type }));
   const dialect = {
@@ -57,7 +59,7 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     sample: () => readCsv(file, missing, storage, options, true),
     async rejects(): Promise<RejectedLine[]> {
       const rows = await all<{ line: bigint; error_message: string; error_type: string; column_name: string | null; lines: bigint }>(
-        "SELECT line, error_message, error_type, column_name, len(string_split(rtrim(csv_line, chr(13) || chr(10)), chr(10))) AS lines FROM nr_rejects " +
+        'SELECT line, error_message, error_type, column_name, len(string_split(rtrim(csv_line, chr(13) || chr(10)), chr(10))) AS lines FROM nr_rejects ' +
           'WHERE scan_id = (SELECT max(scan_id) FROM nr_rejects) ORDER BY line',
       ).catch(() => []); // no table: nothing was rejected
       // DuckDB may log one line more than once (a short line: once per missing field); a line

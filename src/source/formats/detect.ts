@@ -1,8 +1,8 @@
 import { closeSync, openSync, readSync } from 'node:fs';
 import { constants, gunzipSync } from 'node:zlib';
 import { InputError } from '../../errors.js';
-import { FORMATS, formatSpec } from './registry.js';
 import type { InputFormat } from './registry.js';
+import { FORMATS, formatSpec } from './registry.js';
 
 export { delimiterHint } from './delimiter-hint.js';
 
@@ -50,10 +50,7 @@ export function detectFormat(path: string, given?: InputFormat): Detected {
   const name = path.toLowerCase().replace(/\.gz$/, '');
   const ext = name.includes('.') ? name.slice(name.lastIndexOf('.') + 1) : '';
   const format =
-    given ??
-    FORMATS.find((f) => f.magic?.(bytes))?.name ??
-    FORMATS.find((f) => f.extensions.includes(ext))?.name ??
-    textKind(bytes);
+    given ?? FORMATS.find((f) => f.magic?.(bytes))?.name ?? FORMATS.find((f) => f.extensions.includes(ext))?.name ?? textKind(bytes);
   const spec = formatSpec(format);
   if (gzip && !spec.gzip) {
     throw new InputError(`${path}: a gzip-compressed ${format} file cannot be read; decompress it first`);

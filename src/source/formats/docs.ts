@@ -1,5 +1,5 @@
-import { FORMATS } from './registry.js';
 import type { FormatOption } from './registry.js';
+import { FORMATS } from './registry.js';
 
 const OPTION_FLAGS: Record<FormatOption, string> = { encoding: '`--encoding`', sheet: '`--sheet`' };
 
@@ -18,7 +18,7 @@ export function formatsMarkdown(): string {
       const options = f.options.map((o) => OPTION_FLAGS[o]).join(' ');
       return `| \`${f.name}\` | ${f.label} | ${detected} | ${cell(f.readBy)} | ${options} | ${cell(notes)} |`;
     }),
-    `| | \`-\` | the content, as above | standard input, spooled to a temp file deleted afterwards | | any of the above |`,
+    '| | `-` | the content, as above | standard input, spooled to a temp file deleted afterwards | | any of the above |',
   ];
   return `${lines.join('\n')}\n`;
 }

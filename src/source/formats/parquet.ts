@@ -1,6 +1,6 @@
-import { literal } from '../sql.js';
-import { typedSelect, typedStorage } from '../engines/duckdb/typed-select.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
+import { typedSelect, typedStorage } from '../engines/duckdb/typed-select.js';
+import { literal } from '../sql.js';
 import type { ReadContext } from './registry.js';
 
 /**
@@ -13,9 +13,10 @@ async function typedFileLayout(
   reader: string,
   format: 'parquet' | 'json' | 'ndjson',
 ): Promise<DuckLayout> {
-  const columns = (await engine.all<{ column_name: string; column_type: string }>(`DESCRIBE SELECT * FROM ${reader}`)).map(
-    (d) => ({ name: d.column_name, type: d.column_type }),
-  );
+  const columns = (await engine.all<{ column_name: string; column_type: string }>(`DESCRIBE SELECT * FROM ${reader}`)).map((d) => ({
+    name: d.column_name,
+    type: d.column_type,
+  }));
   const storage = typedStorage(columns, roles);
   return {
     path: display,

@@ -1,9 +1,9 @@
 import type { DuckDBAppender } from '@duckdb/node-api';
 import type { Roles } from '../../roles/types.js';
-import { ident } from '../sql.js';
-import { typedSelect, typedStorage } from '../engines/duckdb/typed-select.js';
 import type { DuckEngine } from '../engines/duckdb/engine.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
+import { typedSelect, typedStorage } from '../engines/duckdb/typed-select.js';
+import { ident } from '../sql.js';
 import type { RejectedLine, SourceFormat } from '../types.js';
 
 export type StagedType = 'DOUBLE' | 'VARCHAR';

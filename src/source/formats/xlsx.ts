@@ -1,10 +1,10 @@
 import ExcelJS from 'exceljs';
 import { InputError } from '../../errors.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
-import type { ReadContext } from './registry.js';
 import type { RejectedLine } from '../types.js';
-import { Stager, stagedLayout } from './staged.js';
+import type { ReadContext } from './registry.js';
 import type { StagedColumn, StagedValue } from './staged.js';
+import { Stager, stagedLayout } from './staged.js';
 
 /** A cell's value as the text a CSV export of the sheet would hold (numbers stay numbers). */
 export function cellText(v: unknown): string | number | null {

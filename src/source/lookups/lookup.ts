@@ -1,13 +1,13 @@
 import { ident, literal } from '../sql.js';
 import type { Source } from '../types.js';
 import { modalValueSql } from './modal-value.js';
-import { EXAMPLE_LIMIT } from './types.js';
 import type { Lookup, UnitIdSummary } from './types.js';
+import { EXAMPLE_LIMIT } from './types.js';
 import { unitIdSummary } from './unit-ids.js';
 
+export { normalizedIdQuery, normalizeId } from './normalize-id.js';
 export type { Lookup, ParentSubset, UnitIdExample, UnitIdSummary, ValueCounts } from './types.js';
 export { EXAMPLE_LIMIT } from './types.js';
-export { normalizedIdQuery, normalizeId } from './normalize-id.js';
 
 /** The rules' look-ups over an opened delivery: bounded queries, in the source's dialect. */
 export function createLookup(source: Source, group: string): Lookup {
@@ -34,7 +34,7 @@ export function createLookup(source: Source, group: string): Lookup {
       const c = ident(column);
       const rows = await source.all<{ g: string; v: string; k: bigint }>(
         `SELECT ${g} AS g, ${c} AS v, count(*) AS k FROM ${source.view} WHERE ${g} IN ${inList(groups)} AND ${c} IS NOT NULL ` +
-          `GROUP BY 1, 2 ORDER BY 1, 3 DESC, 2`,
+          'GROUP BY 1, 2 ORDER BY 1, 3 DESC, 2',
       );
       for (const r of rows) {
         const list = out.get(r.g) ?? [];
@@ -111,7 +111,8 @@ export function createLookup(source: Source, group: string): Lookup {
       const d = source.dialect;
       const aggs = columns.map((column, i) => {
         // numbers stay numbers here (formatted in JS below), text compares in byte order
-        if (source.storage.get(column) === 'double') return `CASE WHEN min(${ident(column)}) = max(${ident(column)}) THEN min(${ident(column)}) END AS c${i}`;
+        if (source.storage.get(column) === 'double')
+          return `CASE WHEN min(${ident(column)}) = max(${ident(column)}) THEN min(${ident(column)}) END AS c${i}`;
         const c = d.ordered(ident(column));
         return `CASE WHEN min(${c}) = max(${c}) THEN ${d.text(`min(${c})`)} END AS c${i}`;
       });
@@ -123,7 +124,9 @@ export function createLookup(source: Source, group: string): Lookup {
         group: String(r.g),
         parent: String(r.p),
         count: Number(r.k),
-        constant: columns.map((_, i) => (r[`c${i}`] === null ? null : typeof r[`c${i}`] === 'number' ? String(Number(r[`c${i}`])) : String(r[`c${i}`]))),
+        constant: columns.map((_, i) =>
+          r[`c${i}`] === null ? null : typeof r[`c${i}`] === 'number' ? String(Number(r[`c${i}`])) : String(r[`c${i}`]),
+        ),
       }));
     },
   };

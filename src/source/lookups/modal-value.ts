@@ -42,7 +42,6 @@ export function modalValueSql(
   const ranked = `SELECT g, v, row_number() OVER (PARTITION BY g ORDER BY k DESC, ${order}) AS r FROM (${counted}) AS counted`;
   return {
     cte: `m AS (SELECT g, v FROM (${ranked}) AS ranked WHERE r = 1)`,
-    differs: (rec) =>
-      tolerance === null ? `${rec}.${c} <> m.v` : `abs(${value(`${rec}.${c}`)} - m.v) > ${Number(tolerance)}`,
+    differs: (rec) => (tolerance === null ? `${rec}.${c} <> m.v` : `abs(${value(`${rec}.${c}`)} - m.v) > ${Number(tolerance)}`),
   };
 }

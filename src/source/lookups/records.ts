@@ -1,8 +1,8 @@
+import { mostlyNumbers } from '../../profile/reads-as-numbers.js';
 import type { ValueType } from '../../roles/types.js';
 import { ident } from '../sql.js';
 import type { Source } from '../types.js';
 import { modalValueSql } from './modal-value.js';
-import { mostlyNumbers } from '../../profile/reads-as-numbers.js';
 
 /**
  * The records behind one finding, as a bounded query over the numbered delivery `d`: what a

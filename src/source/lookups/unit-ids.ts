@@ -1,8 +1,8 @@
 import { ident, literal } from '../sql.js';
 import type { Session, Source } from '../types.js';
 import { normalizedIdQuery } from './normalize-id.js';
-import { EXAMPLE_LIMIT } from './types.js';
 import type { UnitIdExample, UnitIdSummary } from './types.js';
+import { EXAMPLE_LIMIT } from './types.js';
 
 /**
  * Stage 1 scans the unit column once, grouped by a hash of the normalised ID, and keeps only the hashes
@@ -38,7 +38,7 @@ export async function unitIdSummary(source: Source, db: Session, group: string, 
     // per spelling and group: records, distinct contents (every column but the record number), first records
     const content = d.rowHash(source.header.map(ident));
     await db.run(
-      `CREATE TEMP TABLE nr_unit_cells AS SELECT r.kd, r.ks, r.u, r.g, count(*) AS n, count(DISTINCT r.h) AS dh, ` +
+      'CREATE TEMP TABLE nr_unit_cells AS SELECT r.kd, r.ks, r.u, r.g, count(*) AS n, count(DISTINCT r.h) AS dh, ' +
         `${d.firstValues('r.__rec', 'r.__rec', EXAMPLE_LIMIT)} AS recs ` +
         `FROM (${normalizedIdQuery(source.numbered, `__rec, ${u} AS u, ${g} AS g, ${content} AS h`, u, d)}) AS r ` +
         `JOIN nr_unit_keys k ON ${d.keyHash(['r.kd', 'r.ks'])} = k.h GROUP BY r.kd, r.ks, r.u, r.g`,
@@ -63,9 +63,15 @@ export async function unitIdSummary(source: Source, db: Session, group: string, 
           key: keyOf(r),
           count: Number(r.n),
           copies: Number(r.n) - Number(r.distinct_rows),
-          groups: own.filter((c) => c.g !== null).map((c) => String(c.g)).slice(0, 10),
+          groups: own
+            .filter((c) => c.g !== null)
+            .map((c) => String(c.g))
+            .slice(0, 10),
           groupCount: Number(r.groups),
-          rows: own.flatMap((c) => c.recs.map(Number)).sort((a, b) => a - b).slice(0, EXAMPLE_LIMIT),
+          rows: own
+            .flatMap((c) => c.recs.map(Number))
+            .sort((a, b) => a - b)
+            .slice(0, EXAMPLE_LIMIT),
         };
       });
     };

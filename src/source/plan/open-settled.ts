@@ -17,7 +17,7 @@ export async function openSettled(
 ): Promise<{ source: Source; rejected: RejectedLine[] }> {
   const source = await openSource(input, roles, { ...options, missing: roles.missing });
   try {
-    for (;;) {
+    while (true) {
       // a count of every column converts every column, so every unreadable line is seen; run as a
       // full read (columns), on the connection whose rejects log rejects() reads
       await source.columns(`SELECT ${source.header.map((c) => `count(${ident(c)})`).join(', ')} FROM ${source.view}`);

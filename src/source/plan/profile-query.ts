@@ -1,7 +1,7 @@
-import { duckdb } from '../dialect.js';
 import type { Dialect } from '../dialect.js';
-import { ident } from '../sql.js';
+import { duckdb } from '../dialect.js';
 import type { Storage } from '../sql.js';
+import { ident } from '../sql.js';
 
 export interface ProfileColumnPlan {
   name: string;
@@ -35,7 +35,8 @@ export function profileQuery(view: string, group: string, plan: readonly Profile
     const c = ident(col.name);
     inner.push(`${c} AS t${i}`);
     aggs.push(`${d.double(`count(t${i})`)} AS ${as('nn')}`);
-    if (col.storage === 'text' && col.textRange !== false) aggs.push(`min(${d.ordered(`t${i}`)}) AS ${as('min')}`, `max(${d.ordered(`t${i}`)}) AS ${as('max')}`);
+    if (col.storage === 'text' && col.textRange !== false)
+      aggs.push(`min(${d.ordered(`t${i}`)}) AS ${as('min')}`, `max(${d.ordered(`t${i}`)}) AS ${as('max')}`);
     if (!col.numeric) return;
     // a text column's numeric reading is cast once here, not once per aggregate
     const x = col.storage === 'double' ? `t${i}` : `x${i}`;

@@ -1,7 +1,7 @@
 import type { Roles } from '../../roles/types.js';
 import type { Dialect } from '../dialect.js';
-import { ident, literal } from '../sql.js';
 import type { Storage } from '../sql.js';
+import { ident, literal } from '../sql.js';
 import { numericTokens } from './sample-hints.js';
 
 /**

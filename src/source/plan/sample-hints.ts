@@ -1,6 +1,6 @@
 import type { Roles } from '../../roles/types.js';
-import { ident } from '../sql.js';
 import type { Storage } from '../sql.js';
+import { ident } from '../sql.js';
 
 /** Rows sampled to tell text columns that hold numbers from those that hold none. */
 export const SAMPLE_ROWS = 20480;

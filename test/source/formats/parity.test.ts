@@ -1,8 +1,8 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { catalogue } from '../../../rules/index.js';
+import type { AuditOptions } from '../../../src/audit.js';
 import { audit } from '../../../src/audit.js';
 import { problemRows } from '../../../src/problem-rows.js';
-import type { AuditOptions } from '../../../src/audit.js';
 import type { Report } from '../../../src/report/types.js';
 import { loadRoles } from '../../../src/roles/load.js';
 import { detectFormat } from '../../../src/source/formats/detect.js';
@@ -69,6 +69,8 @@ describe('every delivery format gives the report of the same data as CSV', () =>
   });
 
   it('an Excel sheet that is not there is an input error naming the sheets', async () => {
-    await expect(audit('fixtures/formats/repairs.xlsx', roles, { sheet: 'nope' })).rejects.toThrow(/no worksheet named "nope" \(sheets: jobs, notes\)/);
+    await expect(audit('fixtures/formats/repairs.xlsx', roles, { sheet: 'nope' })).rejects.toThrow(
+      /no worksheet named "nope" \(sheets: jobs, notes\)/,
+    );
   });
 });

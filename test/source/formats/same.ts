@@ -29,5 +29,9 @@ export function expectSameAudit(got: Report, want: Report): void {
   expect(got.input.rows).toBe(want.input.rows);
   expect(got.input.rowsRejected).toBe(want.input.rowsRejected);
   expect(got.input.columns).toEqual(want.input.columns);
-  expect({ score: got.score, grade: got.grade, verdict: got.verdict }).toEqual({ score: want.score, grade: want.grade, verdict: want.verdict });
+  expect({ score: got.score, grade: got.grade, verdict: got.verdict }).toEqual({
+    score: want.score,
+    grade: want.grade,
+    verdict: want.verdict,
+  });
 }

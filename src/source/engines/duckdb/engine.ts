@@ -2,10 +2,10 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { DuckDBConnection } from '@duckdb/node-api';
-import { native } from './native.js';
 import type { DuckDB } from './native.js';
-import { connectionPool } from './pool.js';
+import { native } from './native.js';
 import type { ConnectionPool } from './pool.js';
+import { connectionPool } from './pool.js';
 import { readAll } from './stream.js';
 
 /** An embedded DuckDB with its own spill directory (deleted on close). */
@@ -31,7 +31,17 @@ export function parseSize(size: string): number | null {
   const m = /^\s*([\d.]+)\s*(b|kb|kib|mb|mib|gb|gib|tb|tib)?\s*$/i.exec(size);
   if (!m) return null;
   const unit = (m[2] ?? 'b').toLowerCase();
-  const scale: Record<string, number> = { b: 1, kb: 1e3, kib: 2 ** 10, mb: 1e6, mib: 2 ** 20, gb: 1e9, gib: 2 ** 30, tb: 1e12, tib: 2 ** 40 };
+  const scale: Record<string, number> = {
+    b: 1,
+    kb: 1e3,
+    kib: 2 ** 10,
+    mb: 1e6,
+    mib: 2 ** 20,
+    gb: 1e9,
+    gib: 2 ** 30,
+    tb: 1e12,
+    tib: 2 ** 40,
+  };
   return Number(m[1]) * scale[unit];
 }
 

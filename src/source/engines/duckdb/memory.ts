@@ -1,5 +1,5 @@
-import type { DuckEngine } from './engine.js';
 import { SAMPLE_ROWS } from '../../plan/sample-hints.js';
+import type { DuckEngine } from './engine.js';
 
 /** The most the profile may raise DuckDB's memory limit to when a wide aggregate over many groups does not fit. */
 const MEMORY_CAP = 4 * 2 ** 30;
@@ -28,7 +28,7 @@ export function manyGroups(sampledGroups: number): boolean {
  * memory only where the delivery's size demands it.
  */
 export async function withMemory<T>(engine: DuckEngine, query: () => Promise<T>): Promise<T> {
-  for (;;) {
+  while (true) {
     try {
       return await query();
     } catch (e) {

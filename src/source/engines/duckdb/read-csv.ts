@@ -1,6 +1,6 @@
 import type { Roles } from '../../../roles/types.js';
-import { literal } from '../../sql.js';
 import type { Storage } from '../../sql.js';
+import { literal } from '../../sql.js';
 
 /** The dialect the sniffer found, passed back so that no later read sniffs again. */
 export interface CsvDialect {

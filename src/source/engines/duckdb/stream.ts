@@ -1,8 +1,8 @@
 import type { DuckDBConnection } from '@duckdb/node-api';
 import type { DuckEngine } from './engine.js';
 import { withMemory } from './memory.js';
-import { native } from './native.js';
 import type { DuckDB } from './native.js';
+import { native } from './native.js';
 
 const { DuckDBDoubleVector, DuckDBVarCharVector, JSDuckDBValueConverter } = native;
 

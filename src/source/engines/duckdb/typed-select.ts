@@ -1,7 +1,7 @@
 import type { Roles } from '../../../roles/types.js';
 import { duckdb } from '../../dialect.js';
-import { readingList, readingStorage } from '../../plan/reading.js';
 import type { SourceColumn } from '../../plan/reading.js';
+import { readingList, readingStorage } from '../../plan/reading.js';
 import type { Storage } from '../../sql.js';
 import { NUMERIC_TYPES } from './read-csv.js';
 

@@ -12,9 +12,7 @@ import { readAll, readColumns } from './stream.js';
 export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: Roles, missing: readonly string[]): Promise<Source> {
   const { con, all } = engine;
   const { header, storage } = layout;
-  const group = header.includes(roles.group)
-    ? ` REPLACE (${blankAsNull(roles.group, missing)} AS ${ident(roles.group)})`
-    : '';
+  const group = header.includes(roles.group) ? ` REPLACE (${blankAsNull(roles.group, missing)} AS ${ident(roles.group)})` : '';
   // DuckDB 1.5's CSV reader fails (and invalidates the database) when a line with invalid UTF-8
   // is met by a scan that reads only some of the columns; once such a line is known, the views
   // read every column (a filter that uses them all and is always true)
@@ -38,7 +36,16 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
 
   const ids = new Set([roles.group, roles.unit, roles.parent]);
   const sampled = layout.sample ? `(SELECT * FROM ${layout.sample()} WHERE ${everyColumn})` : 'nr_delivery';
-  const { probe, textOnly, sampledGroups } = await sampleHints(all, sampled, header, storage, roles, ids, !layout.typedReader, duckdb.numeric);
+  const { probe, textOnly, sampledGroups } = await sampleHints(
+    all,
+    sampled,
+    header,
+    storage,
+    roles,
+    ids,
+    !layout.typedReader,
+    duckdb.numeric,
+  );
   if (manyGroups(sampledGroups)) await raiseMemory(engine);
 
   return {

@@ -6,8 +6,8 @@ import { readingList, readingStorage } from '../../plan/reading.js';
 import { sampleHints } from '../../plan/sample-hints.js';
 import { ident, literal } from '../../sql.js';
 import type { OpenOptions, RejectedLine, Source } from '../../types.js';
-import { redactUrl } from './input.js';
 import type { PostgresInput } from './input.js';
+import { redactUrl } from './input.js';
 
 /** float4/8, int2/4/8, numeric: read as double precision */
 const NUMERIC_OIDS = new Set([20, 21, 23, 700, 701, 1700]);
@@ -47,18 +47,20 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
   // one client runs one query at a time: the rules' look-ups, asked for at once, wait their turn
   // here rather than in the client's own queue (which pg has deprecated, with a warning on stderr)
   let turn: Promise<unknown> = Promise.resolve();
-  const queued = <R,>(fn: () => Promise<R>): Promise<R> => {
+  const queued = <R>(fn: () => Promise<R>): Promise<R> => {
     const run = turn.then(fn);
     turn = run.catch(() => undefined);
     return run;
   };
   const query = (sql: string) => queued(() => client.query(sql));
-  const all = async <T,>(sql: string) => (await query(sql)).rows as T[];
+  const all = async <T>(sql: string) => (await query(sql)).rows as T[];
   try {
     const base = input.table ? qualified(input.table) : `(${input.query}) AS nr_base`;
     let byCtid = false;
     if (input.table) {
-      const [kind] = await all<{ relkind: string | null }>(`SELECT relkind FROM pg_class WHERE oid = to_regclass(${literal(qualified(input.table))})`);
+      const [kind] = await all<{ relkind: string | null }>(
+        `SELECT relkind FROM pg_class WHERE oid = to_regclass(${literal(qualified(input.table))})`,
+      );
       if (!kind?.relkind) throw new InputError(`${display}: no such table or view`);
       byCtid = kind.relkind === 'r' || kind.relkind === 'm';
     }
