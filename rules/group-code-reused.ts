@@ -45,9 +45,9 @@ export default defineRule<Params>({
   async check({ profile, roles, params, lookup }) {
     if (!roles.parent) return [];
     const { examined } = await parentSplits(profile, roles, lookup, params.examine);
-    const reused = examined.filter((s) => s.differs);
+    const reused = examined.flatMap((s) => (s.differs ? [{ ...s, differs: s.differs }] : []));
     if (reused.length === 0) return [];
-    const columns = [...new Set(reused.map((s) => s.differs!.column))];
+    const columns = [...new Set(reused.map((s) => s.differs.column))];
     return [
       {
         messageId: 'reused',
@@ -55,7 +55,7 @@ export default defineRule<Params>({
         count: reused.length,
         groups: reused.map((s) => s.group),
         rows: await lookup.rowsInGroups(reused.map((s) => s.group)),
-        values: reused.map((s) => `${s.group}: ${s.differs!.column} ${s.differs!.values.join(' / ')}`),
+        values: reused.map((s) => `${s.group}: ${s.differs.column} ${s.differs.values.join(' / ')}`),
         data: {
           count: reused.length,
           group: roles.group,

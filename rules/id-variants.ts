@@ -64,7 +64,7 @@ export default defineRule<Params>({
     // most records first: the usual spelling leads each set, the others are the ones to fix
     const sets = [...byKey.values()]
       .filter((set) => set.length > 1)
-      .map((set) => set.sort((a, b) => size.get(b)! - size.get(a)! || (a < b ? -1 : 1)));
+      .map((set) => set.sort((a, b) => (size.get(b) ?? 0) - (size.get(a) ?? 0) || (a < b ? -1 : 1)));
     if (sets.length) {
       const minority = sets.flatMap((set) => set.slice(1));
       findings.push({

@@ -38,7 +38,7 @@ export function grade(findings: readonly Finding[]): Graded {
   const warnings = count('warning');
   const notes = count('note');
   const score = Math.max(0, 100 - PENALTY.blocker * blockers - PENALTY.warning * warnings - Math.min(NOTES_CAP, PENALTY.note * notes));
-  const byScore = GRADE_FLOORS.find(([, floor]) => score >= floor)![0];
+  const byScore = GRADE_FLOORS.find(([, floor]) => score >= floor)?.[0] ?? 'F';
   const g: Grade = blockers > 0 ? 'F' : byScore;
   const verdict: Verdict = blockers > 0 ? 'not-ready' : warnings > 0 ? 'caveats' : 'ready';
   return { score, grade: g, verdict };

@@ -202,7 +202,7 @@ describe.concurrent('nestready audit: usage and input errors exit 2 with one lin
     expect(line).toMatch(/required option '-r, --roles <file>' not specified/);
   });
 
-  it('an unknown command', async ({ expect }) => {
+  it('an unknown command', async () => {
     expectUsageError(await nestready('inspect', `${DEMO}/repairs-clean.csv`));
   });
 });
@@ -338,7 +338,7 @@ describe.concurrent('nestready rules and schema', () => {
     expect(text.stdout).toContain('few-groups  [structure, default warning]  Too few groups');
   });
 
-  it('rules --format xml is a usage error', async ({ expect }) => {
+  it('rules --format xml is a usage error', async () => {
     expectUsageError(await nestready('rules', '--format', 'xml'));
   });
 

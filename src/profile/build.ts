@@ -1,6 +1,6 @@
 import type { ColumnTable } from 'arquero';
 import type { Roles } from '../roles/types.js';
-import type { Source } from '../source/open.js';
+import type { RejectedLine, Source } from '../source/open.js';
 import type { ProfileColumnPlan } from '../source/plan/profile-query.js';
 import { profileQuery } from '../source/plan/profile-query.js';
 import { settleProbes } from '../source/plan/settle-probes.js';
@@ -56,13 +56,19 @@ export function planColumns(
  */
 export async function buildProfile(source: Source, roles: Roles, options: { onScanned?: () => void } = {}): Promise<Profile> {
   let plan: ProfileColumnPlan[];
-  let result;
-  let rejected;
+  let result: Record<string, unknown[]>;
+  let rejected: RejectedLine[];
   while (true) {
     plan = planColumns(source.header, roles, source.storage, source);
     result = await source.columns(profileQuery(source.view, roles.group, plan, source.dialect), options);
     rejected = await source.rejects();
-    const retype = [...new Set(rejected.filter((r) => r.column && source.storage.get(r.column) === 'double').map((r) => r.column!))];
+    const retype = [
+      ...new Set(
+        rejected
+          .filter((r) => r.column !== undefined && source.storage.get(r.column) === 'double')
+          .flatMap((r) => (r.column ? [r.column] : [])),
+      ),
+    ];
     if (retype.length === 0) break;
     await source.readAsText(retype);
   }
@@ -139,9 +145,9 @@ export async function buildProfile(source: Source, roles: Roles, options: { onSc
  */
 function directArrays(table: ColumnTable): ColumnTable {
   const scan = table.array.bind(table);
-  table.array = ((name: string, constructor?: ArrayConstructor) => {
+  table.array = ((name: string, arrayType?: ArrayConstructor) => {
     const column = table.column(name) as unknown;
-    if ((constructor && constructor !== Array) || table.isFiltered() || table.isOrdered() || !column) return scan(name, constructor);
+    if ((arrayType && arrayType !== Array) || table.isFiltered() || table.isOrdered() || !column) return scan(name, arrayType);
     if (Array.isArray(column)) return column.slice();
     // a typed column (Float64Array): a counted loop, several times faster than Array.from's iterator
     const typed = column as ArrayLike<unknown>;

@@ -32,7 +32,9 @@ export async function renderHtml(report: Report): Promise<string> {
     ...charts.means.map((m) => chartToSvg(m.chart)),
   ]);
   const svgs: ChartSvgs = { sizes, icc, predictors, means: new Map() };
-  charts.means.forEach((m, i) => svgs.means.set(m.outcome, means[i] as string));
+  charts.means.forEach((m, i) => {
+    svgs.means.set(m.outcome, means[i] as string);
+  });
 
   const title = `nestready: ${VERDICT_HEADLINE[report.verdict]} — ${report.input.path}`;
   return `<!DOCTYPE html>

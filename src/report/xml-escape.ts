@@ -1,5 +1,6 @@
 // characters XML 1.0 does not allow at all (C0 controls other than tab, LF, CR; U+FFFE/FFFF; lone surrogates)
 const INVALID =
+  // biome-ignore lint/suspicious/noControlCharactersInRegex: matching the control characters XML forbids is the point
   /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g;
 
 /** Text for XML element content or a double-quoted attribute; disallowed characters become U+FFFD. */

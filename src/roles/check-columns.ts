@@ -10,10 +10,10 @@ export function checkColumns(roles: Roles, header: readonly string[], locate: Lo
   add(roles.group, ['group']);
   add(roles.unit, ['unit']);
   add(roles.parent, ['parent']);
-  roles.outcomes.forEach((c, i) => add(c, ['outcomes', i]));
-  roles.level1.forEach((c, i) => add(c, ['level1', i]));
-  roles.level2.forEach((c, i) => add(c, ['level2', i]));
-  Object.keys(roles.types).forEach((c) => add(c, ['types', c]));
+  for (const [i, c] of roles.outcomes.entries()) add(c, ['outcomes', i]);
+  for (const [i, c] of roles.level1.entries()) add(c, ['level1', i]);
+  for (const [i, c] of roles.level2.entries()) add(c, ['level2', i]);
+  for (const c of Object.keys(roles.types)) add(c, ['types', c]);
   const have = new Set(header);
   for (const [column, path] of named) {
     if (have.has(column)) continue;

@@ -158,7 +158,7 @@ function checkRoleOverlap(roles: Roles, locate: LoadedRoles['locate'], singleOut
   };
   for (const [role, column] of single) if (column) claim(role, column, [role]);
   for (const [role, columns] of listed) {
-    columns.forEach((column, i) => claim(role, column, role === 'outcomes' && singleOutcome ? ['outcome'] : [role, i]));
+    for (const [i, column] of columns.entries()) claim(role, column, role === 'outcomes' && singleOutcome ? ['outcome'] : [role, i]);
   }
 }
 

@@ -54,7 +54,10 @@ export function bySize(groups: readonly GroupMoments[]): readonly GroupMoments[]
   const classes = new Map<number, SizeClass>();
   for (const g of groups) {
     let c = classes.get(g.n);
-    if (!c) classes.set(g.n, (c = { n: g.n, mean: 0, ss: 0, count: 0, spread: 0 }));
+    if (!c) {
+      c = { n: g.n, mean: 0, ss: 0, count: 0, spread: 0 };
+      classes.set(g.n, c);
+    }
     c.count++;
     const delta = g.mean - c.mean;
     c.mean += delta / c.count;

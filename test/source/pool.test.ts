@@ -4,7 +4,13 @@ import { connectionPool } from '../../src/source/engines/duckdb/pool.js';
 
 // stand-ins: the pool only lends them out and closes them
 const fake = (name: string) => {
-  const con = { name, closed: false, closeSync: () => void (con.closed = true) };
+  const con = {
+    name,
+    closed: false,
+    closeSync: () => {
+      con.closed = true;
+    },
+  };
   return con as unknown as DuckDBConnection & { name: string; closed: boolean };
 };
 

@@ -15,7 +15,10 @@ import type { GroupMoments } from '../../src/stats/types.js';
 // the fused two-pass sums the fits use must be the one-formula functions, term by term
 function groups(count: number): GroupMoments[] {
   let seed = 99;
-  const rand = () => (seed = (seed * 16807) % 2147483647) / 2147483647;
+  const rand = () => {
+    seed = (seed * 16807) % 2147483647;
+    return seed / 2147483647;
+  };
   return Array.from({ length: count }, () => {
     const n = 1 + Math.floor(rand() * 40);
     return { n, mean: 30 + 12 * rand(), ss: n > 1 ? (n - 1) * 9 * rand() : 0 };

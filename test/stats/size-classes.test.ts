@@ -9,7 +9,10 @@ import type { GroupMoments } from '../../src/stats/types.js';
 // size; every term of the profiled likelihood must be the same as over the groups themselves
 function groups(count: number): GroupMoments[] {
   let seed = 12345;
-  const rand = () => (seed = (seed * 16807) % 2147483647) / 2147483647;
+  const rand = () => {
+    seed = (seed * 16807) % 2147483647;
+    return seed / 2147483647;
+  };
   return Array.from({ length: count }, () => {
     const n = 1 + Math.floor(rand() * rand() * 25);
     return { n, mean: 50 + 8 * (rand() - 0.5) + (rand() - 0.5) * 6, ss: n > 1 ? (n - 1) * 20 * rand() : 0 };

@@ -23,8 +23,12 @@ export async function chartToSvg(chart: Chart): Promise<string> {
 function localIds(svg: string, prefix: string): string {
   const names = new Map<string, string>();
   const local = (id: string) => {
-    if (!names.has(id)) names.set(id, `${prefix}-${names.size + 1}`);
-    return names.get(id)!;
+    let name = names.get(id);
+    if (name === undefined) {
+      name = `${prefix}-${names.size + 1}`;
+      names.set(id, name);
+    }
+    return name;
   };
   return svg
     .replace(/\bid="([^"]+)"/g, (_, id: string) => `id="${local(id)}"`)

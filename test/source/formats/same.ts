@@ -10,7 +10,7 @@ function close(a: unknown, b: unknown, path: string): void {
   }
   if (Array.isArray(a) && Array.isArray(b)) {
     expect(a.length, `${path}.length`).toBe(b.length);
-    a.forEach((x, i) => close(x, b[i], `${path}[${i}]`));
+    for (const [i, x] of a.entries()) close(x, b[i], `${path}[${i}]`);
     return;
   }
   if (a && b && typeof a === 'object' && typeof b === 'object') {
