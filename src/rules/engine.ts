@@ -15,7 +15,7 @@ export function resolveParams(rule: AnyRule, roles: Roles): Record<string, unkno
   if (setting === 'off') return 'off';
   const { severity: _severity, ...given } = setting ?? {};
   // a rule the role map leaves alone runs with its schema's defaults: no validator is compiled
-  // for it (compiling one per rule was most of the 0.15 s ajv took in every audit)
+  // for it, since compiling validators was most of what ajv cost an audit (docs/performance.md)
   if (Object.keys(given).length === 0) return schemaDefaults(rule);
   const params = structuredClone(given);
   const validate = validatorOf(rule);
@@ -36,7 +36,7 @@ function schemaDefaults(rule: AnyRule): Record<string, unknown> {
   );
 }
 
-// one Ajv and one compiled validator per rule, not one per call: compiling costs ~30 ms a rule
+// one Ajv and one compiled validator per rule, not one per call: compiling is the expensive part
 const validators = new WeakMap<AnyRule, ReturnType<ReturnType<typeof createAjv>['compile']>>();
 let sharedAjv: ReturnType<typeof createAjv> | null = null;
 function validatorOf(rule: AnyRule) {

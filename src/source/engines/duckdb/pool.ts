@@ -9,8 +9,8 @@ export interface ConnectionPool {
 /**
  * A few connections for the rules' look-ups, so that two of them (say the unit-ID check and
  * the numbered records of a level-2 variable that varies) run at once: each scan leaves part of
- * the two cores idle (a numbered scan is partly serial), and on 1 million rows such a pair took
- * 0.52-0.66 s at once against 0.79 s one after the other. The pool's size bounds the scans (and
+ * the two cores idle (a numbered scan is partly serial), so such a pair finishes sooner at once
+ * than one after the other (docs/performance.md). The pool's size bounds the scans (and
  * their memory) in flight.
  *
  * The connections are opened beforehand, so a free one is lent at once and a look-up reaches
