@@ -35,6 +35,8 @@ export interface RecordQueries {
   has(column: string): boolean;
   /** records whose group ID is missing */
   missingGroup(): RecordQuery;
+  /** records whose `column` is missing */
+  missing(column: string): RecordQuery;
   /** the record of every group that has only one */
   singletons(): RecordQuery;
   /**
@@ -59,6 +61,7 @@ export function recordQueries(source: Source, group: string): RecordQueries {
   return {
     has: (column) => source.header.includes(column),
     missingGroup: () => ({ with: '', from: `FROM ${numbered} d WHERE d.${g} IS NULL`, extra: '' }),
+    missing: (column) => ({ with: '', from: `FROM ${numbered} d WHERE d.${ident(column)} IS NULL`, extra: '' }),
     singletons: () => ({
       with: `WITH s AS (SELECT ${g} AS g FROM ${view} WHERE ${g} IS NOT NULL GROUP BY 1 HAVING count(*) = 1)`,
       from: `FROM ${numbered} d JOIN s ON d.${g} = s.g`,
