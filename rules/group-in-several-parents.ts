@@ -1,6 +1,7 @@
 import { defineRule } from '../src/rules/define.js';
-import { listSome } from '../src/rules/describe.js';
+import { listSome, recordId } from '../src/rules/describe.js';
 import { describeSplit, parentSplits } from '../src/rules/parent-subsets.js';
+import type { FoundRecord } from '../src/rules/rows.js';
 
 interface Params {
   examine: number;
@@ -61,5 +62,15 @@ export default defineRule<Params>({
         data: { count, group: roles.group, parent: roles.parent, how, splits: listSome(splits.map(describeSplit)) },
       },
     ];
+  },
+  // the records the finding lists, each naming its group and parent (IDs, so kept under --no-values)
+  rows: (finding, { roles, records }) => {
+    const parent = roles.parent;
+    if (parent === undefined || !finding.rows?.length || !records.has(parent)) return null;
+    return {
+      query: records.listed(finding.rows, parent),
+      reason: (r: FoundRecord) =>
+        `${roles.group} ${recordId(r.grp)} is under ${parent} ${recordId(r.value)} here and under another ${parent} on other records`,
+    };
   },
 });

@@ -13,6 +13,7 @@ import lowGroupMeanReliability from './low-group-mean-reliability.js';
 import lowIcc from './low-icc.js';
 import missingByGroup from './missing-by-group.js';
 import missingGroupId from './missing-group-id.js';
+import missingUnitId from './missing-unit-id.js';
 import nonNumericValues from './non-numeric-values.js';
 import outcomeConstantWithin from './outcome-constant-within.js';
 import predictorBetweenShare from './predictor-between-share.js';
@@ -40,6 +41,7 @@ export const catalogue: readonly AnyRule[] = [
   lowIcc,
   missingByGroup,
   missingGroupId,
+  missingUnitId,
   nonNumericValues,
   outcomeConstantWithin,
   predictorBetweenShare,

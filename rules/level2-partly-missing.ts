@@ -1,5 +1,7 @@
 import { groupIds, groupSizes, groupStat } from '../src/profile/group-stats.js';
 import { defineRule } from '../src/rules/define.js';
+import type { FoundRecord } from '../src/rules/rows.js';
+import { showValue } from '../src/rules/show-value.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { groupRange } from '../src/rules/within.js';
 
@@ -51,5 +53,18 @@ export default defineRule<Record<string, never>>({
       });
     }
     return findings;
+  },
+  // the records the finding lists, each with the value its group's other records hold
+  rows: (finding, { records, includeValues }) => {
+    const column = finding.column;
+    if (column === undefined || !finding.rows?.length || !records.has(column)) return null;
+    return {
+      query: records.listedWithGroupValue(finding.rows, column),
+      reason: (r: FoundRecord) => {
+        if (!includeValues) return `${column} is missing here but present on other records of the group (values withheld)`;
+        if (r.expected === null || r.expected === undefined) return `${column} is missing here but present on other records of the group`;
+        return `${column} is missing here; the other records of the group have ${showValue(r.expected)} (the most common value)`;
+      },
+    };
   },
 });

@@ -40,7 +40,7 @@ describe('low-icc', () => {
     const f = onlyFinding(report, 'low-icc');
     expect(f.severity).toBe('warning');
     expect(f.column).toBe('y');
-    expectMessage(f, 'none', { column: 'y', icc: '0.000', f: '0.000', df1: 9, df2: 30, p: '1.000' });
+    expectMessage(f, 'none', { column: 'y', icc: '0.000', f: '0.000', df1: 9, df2: 30, p: 'p = 1' });
     expect(f.rows).toBeUndefined();
     expect(f.groups).toBeUndefined();
   });
@@ -57,7 +57,7 @@ describe('low-icc', () => {
     expect(f.data).toMatchObject({
       icc: expect.stringMatching(/^0\.02\d$/),
       f: expect.stringMatching(/^2\.10\d$/),
-      p: expect.stringMatching(/^0\.00\d$/),
+      p: expect.stringMatching(/^p = \.00\d$/),
     });
     expect(f.data.deff).toMatch(/^2\.0\d$/);
   });
@@ -71,7 +71,7 @@ describe('low-icc', () => {
     expect(f.data).toMatchObject({
       icc: expect.stringMatching(/^0\.01\d$/),
       f: expect.stringMatching(/^1\.54\d$/),
-      p: expect.stringMatching(/^0\.06\d$/),
+      p: expect.stringMatching(/^p = \.06\d$/),
     });
   });
 

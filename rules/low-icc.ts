@@ -1,5 +1,5 @@
 import { defineRule } from '../src/rules/define.js';
-import { formatNumber } from '../src/util/format.js';
+import { formatNumber, pClause } from '../src/util/format.js';
 
 interface Params {
   icc_below: number;
@@ -39,11 +39,11 @@ export default defineRule<Params>({
     },
     messages: {
       none: {
-        message: '{column}: ICC {icc} (REML), F = {f} on ({df1}, {df2}) df, p = {p}: no evidence of between-group variance',
+        message: '{column}: ICC {icc} (REML), F = {f} on ({df1}, {df2}) df, {p}: no evidence of between-group variance',
         fix: 'No change to the delivery; an analyst may compare a single-level model, keeping in mind that even ICC .01 with about 50 records per group inflates type I error from .05 to about .11',
       },
       small: {
-        message: '{column}: ICC {icc} (REML) is below {limit} but the groups do differ (F = {f}, p = {p}); design effect {deff}',
+        message: '{column}: ICC {icc} (REML) is below {limit} but the groups do differ (F = {f}, {p}); design effect {deff}',
         fix: 'No change to the delivery; small clustering still matters for standard errors, so keep the random intercept unless the analysis plan says otherwise',
       },
     },
@@ -64,7 +64,7 @@ export default defineRule<Params>({
         f: formatNumber(s.anova.f, 3),
         df1: s.anova.df1,
         df2: s.anova.df2,
-        p: formatNumber(s.anova.p, 3),
+        p: pClause(s.anova.p),
         limit: params.icc_below,
         deff: formatNumber(s.designEffect, 2),
       };

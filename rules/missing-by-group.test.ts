@@ -19,7 +19,9 @@ describe('missing-by-group', () => {
     expectMessage(f, 'uneven', { column: 'x', chi2: x2.toFixed(1), df: 19 });
     // p from the kept library @stdlib/stats-base-dists-chisquare-cdf (well below the .01 default)
     expect(1 - chisquareCdf(x2, 19)).toBeLessThan(0.001);
-    expect(f.data).toMatchObject({ p: '< .001', missing: 40, records: 400, share: '10.0%' });
+    expect(f.data).toMatchObject({ p: 'p < .001', missing: 40, records: 400, share: '10.0%' });
+    // the relation is said once: "p < .001", never "p = < .001"
+    expect(f.message).toContain('19 df, p < .001;');
     expect(f.data.worst).toMatch(/^G001 \(12 of 20\), G002 \(10 of 20\)/);
     expect(f.groups).toEqual(['G001', 'G002']);
   });

@@ -3,7 +3,7 @@ import { defineRule } from '../src/rules/define.js';
 import { percent } from '../src/rules/describe.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { chiSquareHomogeneity } from '../src/stats/chi-square-homogeneity.js';
-import { formatNumber } from '../src/util/format.js';
+import { formatNumber, pClause } from '../src/util/format.js';
 
 interface Params {
   alpha: number;
@@ -38,7 +38,7 @@ export default defineRule<Params>({
     messages: {
       uneven: {
         message:
-          '{column}: {missing} of {records} values missing ({share}); the missing rate differs between groups (X² = {chi2} on {df} df, p = {p}{rough}), from {low} to {high}, highest in {worst}',
+          '{column}: {missing} of {records} values missing ({share}); the missing rate differs between groups (X² = {chi2} on {df} df, {p}{rough}), from {low} to {high}, highest in {worst}',
         fix: 'Ask the sender why {column} is missing more often in the listed groups; impute with a model that includes the groups (random intercepts or group means), not a single-level one',
       },
       allMissing: {
@@ -104,7 +104,7 @@ export default defineRule<Params>({
           share: percent(share),
           chi2: formatNumber(test.statistic, 1),
           df: test.df,
-          p: test.p < 0.001 ? '< .001' : formatNumber(test.p, 3),
+          p: pClause(test.p),
           rough: smallExpected > 0.2 ? '; rough: many small expected counts' : '',
           // reduce, not Math.min(...rates): a million groups overflow the call stack as arguments
           low: percent(rates.reduce((a, b) => Math.min(a, b), Infinity)),

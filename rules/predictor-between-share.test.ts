@@ -39,4 +39,22 @@ describe('predictor-between-share', () => {
     const high = onlyFinding(await auditRows(rows, { group: 'g', level1: ['x'], rules }), 'predictor-between-share', 'x');
     expectMessage(high, 'small');
   });
+
+  it('a predictor constant within every group is a group-level variable, never "centre within groups"', async () => {
+    // x is one value per group (0, 1, 2, … by group), so level1-constant-within warns about it too
+    const rows = groupedRows(10, 4, (j, i) => ({ x: j, y: i + j }));
+    const report = await auditRows(rows, { group: 'g', outcome: 'y', level1: ['x'] });
+    expectMessage(onlyFinding(report, 'level1-constant-within', 'x'), 'between', { column: 'x', groups: 10 });
+    const f = onlyFinding(report, 'predictor-between-share', 'x');
+    // ANOVA ICC(1) is exactly 1 with no within-group mean square; REML's share is 1 to the printed digits
+    expectMessage(f, 'groupLevel', { column: 'x', share: '100.0%', reml: '1.000', anova: '1.000' });
+    expect(f.fix).not.toMatch(/centre \S+ within groups/i);
+    expect(f.fix).toContain('level2');
+  });
+
+  it('one record that varies makes it a level-1 predictor again', async () => {
+    const rows = groupedRows(10, 4, (j, i) => ({ x: j + (j === 0 && i === 0 ? 0.5 : 0) }));
+    const f = onlyFinding(await auditRows(rows, { group: 'g', level1: ['x'] }), 'predictor-between-share', 'x');
+    expectMessage(f, 'decompose', { column: 'x' });
+  });
 });

@@ -19,8 +19,9 @@ export default defineRule<Params>({
       'For every numeric level-1 variable, the share of its variance that lies between groups (its own ' +
       'ICC: REML null model and ANOVA ICC(1)). A clear share means the predictor has a group-level part ' +
       'whose effect can differ from the within-group effect: centre it within groups and add its group ' +
-      'mean as a contextual variable. Near zero, grand-mean centering loses nothing. Reported for every ' +
-      'predictor, as a note.',
+      'mean as a contextual variable. Near zero, grand-mean centering loses nothing. A predictor that does ' +
+      'not vary within any group is all between: it is a group-level variable, with nothing to centre ' +
+      'within groups. Reported for every predictor, as a note.',
     params: {
       type: 'object',
       properties: {
@@ -38,6 +39,11 @@ export default defineRule<Params>({
       decompose: {
         message: '{column}: {share} of its variance lies between groups (REML ICC {reml}, ANOVA ICC(1) {anova})',
         fix: 'Centre {column} within groups (x − group mean) and add its group mean as a level-2 (contextual) variable, so that within- and between-group effects are estimated separately',
+      },
+      groupLevel: {
+        message:
+          '{column}: all of its variance lies between groups; it does not vary within any group (REML ICC {reml}, ANOVA ICC(1) {anova})',
+        fix: 'Declare {column} under level2 in the role map: it is a group-level variable (centred within groups it would be zero on every record)',
       },
       small: {
         message: '{column}: only {share} of its variance lies between groups (REML ICC {reml}, ANOVA ICC(1) {anova})',
@@ -58,8 +64,11 @@ export default defineRule<Params>({
       if (!readsAsNumbers(col)) continue;
       const s = variableStats(profile, column);
       if (!Number.isFinite(s.reml.icc)) continue;
+      // no within-group sum of squares: every group holds one value (level1-constant-within warns
+      // of the same), so the share is all between; centred within groups it would be all zeros
+      const groupLevel = s.anova.msw === 0;
       findings.push({
-        messageId: s.reml.icc >= params.decompose_from ? 'decompose' : 'small',
+        messageId: groupLevel ? 'groupLevel' : s.reml.icc >= params.decompose_from ? 'decompose' : 'small',
         column,
         data: {
           column,

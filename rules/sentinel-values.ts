@@ -2,6 +2,8 @@ import { groupStat } from '../src/profile/group-stats.js';
 import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
 import { defineRule } from '../src/rules/define.js';
 import { firstRows } from '../src/rules/describe.js';
+import type { FoundRecord } from '../src/rules/rows.js';
+import { showValue } from '../src/rules/show-value.js';
 import type { FindingDraft } from '../src/rules/types.js';
 
 interface Params {
@@ -97,5 +99,17 @@ export default defineRule<Params>({
       });
     }
     return findings;
+  },
+  // the records the finding lists, each with the code it holds
+  rows: (finding, { records, includeValues }) => {
+    const column = finding.column;
+    if (column === undefined || !finding.rows?.length || !records.has(column)) return null;
+    return {
+      query: records.listed(finding.rows, column),
+      reason: (r: FoundRecord) =>
+        includeValues
+          ? `${column} holds ${showValue(r.value)}, far outside its other values: probably a missing-value code`
+          : `${column} holds a value far outside its other values, probably a missing-value code (values withheld)`,
+    };
   },
 });

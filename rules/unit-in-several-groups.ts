@@ -1,6 +1,7 @@
 import type { Severity } from '../src/roles/types.js';
 import { defineRule } from '../src/rules/define.js';
-import { firstRows, listSome, percent, quoteId } from '../src/rules/describe.js';
+import { firstRows, listSome, percent, quoteId, recordId } from '../src/rules/describe.js';
+import type { FoundRecord } from '../src/rules/rows.js';
 
 interface Params {
   block_share: number;
@@ -69,5 +70,15 @@ export default defineRule<Params>({
         },
       },
     ];
+  },
+  // the records the finding lists, each naming its unit ID and group (IDs, so kept under --no-values)
+  rows: (finding, { roles, records }) => {
+    const column = finding.column;
+    if (column === undefined || !finding.rows?.length) return null;
+    return {
+      query: records.listed(finding.rows),
+      reason: (r: FoundRecord) =>
+        `${column} ${recordId(r.unit)} is in ${roles.group} ${recordId(r.grp)} here and in another ${roles.group} on other records`,
+    };
   },
 });

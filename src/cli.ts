@@ -1,7 +1,7 @@
 import { rmSync } from 'node:fs';
 import { Command, CommanderError, InvalidArgumentError, Option } from 'commander';
 import { catalogue } from '../rules/index.js';
-import { planOutputs, writeOutput } from './cli-output.js';
+import { planOutputs, protectInputs, writeOutput } from './cli-output.js';
 import { startProgress } from './cli-progress.js';
 import { InputError } from './errors.js';
 import type { FailOn } from './grade.js';
@@ -128,6 +128,7 @@ export function buildProgram(): Command {
     .option('--query <sql>', 'with --source: a query whose rows are the delivery')
     .option('--strict', 'any line that cannot be read is an input error (exit 2), not a finding')
     .action(async (deliveryArg: string | undefined, flags: AuditFlags) => {
+      protectInputs(flags, deliveryArg);
       const roles = loadRoles(flags.roles, catalogue, { preset: flags.preset });
       const resolved = await deliveryInput(deliveryArg, flags);
       const delivery = isFileInput(resolved.input) ? resolved.input : resolved.label;
@@ -149,7 +150,7 @@ export function buildProgram(): Command {
         }).finally(stop);
         for (const target of targets) {
           const options = { color: colorLevel(flags, target.path !== null), failOn: flags.failOn, withPlotData };
-          writeOutput(target, await renderReport(report, target.format, options), { quiet: flags.quiet === true });
+          await writeOutput(target, () => renderReport(report, target.format, options), { quiet: flags.quiet === true });
         }
         if (flags.problems) {
           const stopRows = startProgress(delivery, 'collecting problem rows of', { quiet: flags.quiet === true });
@@ -163,7 +164,7 @@ export function buildProgram(): Command {
             sheet: flags.sheet,
             displayPath: resolved.displayPath,
           }).finally(stopRows);
-          writeOutput({ path: flags.problems, format: 'problems' }, problemsCsv(found), { quiet: flags.quiet === true });
+          await writeOutput({ path: flags.problems, format: 'problems' }, problemsCsv(found), { quiet: flags.quiet === true });
           if (found.omitted && !flags.quiet) {
             process.stderr.write(
               `nestready: ${flags.problems}: ${found.omitted} of ${found.total} problem rows left out (--max-rows ${flags.maxRows})\n`,

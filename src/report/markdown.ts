@@ -1,7 +1,7 @@
 import { SEVERITIES, SEVERITY_ACTION, SEVERITY_WORD } from '../severity.js';
 import { bySeverity, listed, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, VERDICT_HEADLINE, verdictSentence } from './labels.js';
-import { mdText as m } from './md-escape.js';
+import { mdText as m, mdHeading, mdLine } from './md-escape.js';
 import type { StatTable } from './stat-tables.js';
 import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from './stat-tables.js';
 import type { Report } from './types.js';
@@ -59,13 +59,13 @@ export function renderMarkdown(report: Report): string {
     );
   }
   for (const [name, o] of Object.entries(report.outcomes)) {
-    out.push(`### Outcome ${m(name)}`, '', ...table(componentsTable(name, o)), ...table(anovaTable(name, o)));
+    out.push(`### Outcome ${mdHeading(name)}`, '', ...table(componentsTable(name, o)), ...table(anovaTable(name, o)));
     const ext = extremesTable(report, name);
     if (ext) out.push(...table(ext));
   }
   const predictors = predictorsTable(report);
   if (predictors) out.push('### Level-1 predictors', '', ...table(predictors));
-  out.push('---', '', `_${m(THRESHOLD_CAVEAT)}_`, '', `${m(report.tool.name)} ${m(report.tool.version)} (${m(report.schema)})`);
+  out.push('---', '', `_${m(THRESHOLD_CAVEAT)}_`, '', `${mdLine(report.tool.name)} ${m(report.tool.version)} (${m(report.schema)})`);
   return `${out.join('\n')}\n`;
 }
 

@@ -73,7 +73,7 @@ export function predictorsTable(report: Report): StatTable | null {
   return {
     caption: 'Level-1 predictors: share of variance between groups (centring advice)',
     head: ['predictor', 'REML ICC', 'ANOVA ICC(1)', 'advice'],
-    rows: Object.entries(shares).map(([col, s]) => [col, f(s.reml, 3), f(s.anova, 3), centeringAdvice(s.reml, threshold)]),
+    rows: Object.entries(shares).map(([col, s]) => [col, f(s.reml, 3), f(s.anova, 3), centeringAdvice(s.reml, threshold, s.anova)]),
     numeric: [1, 2],
   };
 }

@@ -3,7 +3,7 @@ import { Chalk } from 'chalk';
 import type { Finding } from '../rules/types.js';
 import type { Severity } from '../severity.js';
 import { SEVERITIES, SEVERITY_ACTION, SEVERITY_SHAPE, SEVERITY_WORD } from '../severity.js';
-import { formatNumber, formatP } from '../util/format.js';
+import { formatNumber, pClause } from '../util/format.js';
 import { bySeverity, listed, origin, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, verdictSentence } from './labels.js';
 import type { Report } from './types.js';
@@ -92,7 +92,7 @@ function statisticsLines(report: Report, c: ChalkInstance): string[] {
     lines.push(row('REML', o.reml), row('ML', o.ml));
     const a = o.anova;
     lines.push(
-      `    ANOVA  ICC(1) ${formatNumber(a.icc, 4)} [95% ${formatNumber(a.ci95[0], 4)}, ${formatNumber(a.ci95[1], 4)}]  ICC(2) ${formatNumber(a.icc2, 4)}  F ${formatNumber(a.f, 3)} on (${a.df1}, ${a.df2}) df, p ${formatP(a.p)}`,
+      `    ANOVA  ICC(1) ${formatNumber(a.icc, 4)} [95% ${formatNumber(a.ci95[0], 4)}, ${formatNumber(a.ci95[1], 4)}]  ICC(2) ${formatNumber(a.icc2, 4)}  F ${formatNumber(a.f, 3)} on (${a.df1}, ${a.df2}) df, ${pClause(a.p)}`,
       `    design effect ${formatNumber(o.designEffect, 3)}, effective N ${formatNumber(o.effectiveN, 1)}, mean reliability of group means ${formatNumber(o.meanReliability, 3)}`,
     );
   }

@@ -5,6 +5,11 @@ export function quoteId(id: string): string {
   return JSON.stringify(id);
 }
 
+/** An ID a record holds, as a problem-rows reason names it: quoted as written, "(missing)" when absent. */
+export function recordId(value: unknown): string {
+  return value === null || value === undefined ? '(missing)' : quoteId(String(value));
+}
+
 /** A share as a percentage with one decimal: `12.5%`. */
 export function percent(share: number): string {
   return `${formatNumber(100 * share, 1)}%`;

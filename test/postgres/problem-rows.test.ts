@@ -20,7 +20,8 @@ const DEMO = 'fixtures/demo/repairs-delivery.csv';
 const ROLES = 'fixtures/demo/repairs-delivery.roles.yaml';
 
 // a small delivery with every kind of send-back row: missing group IDs, singletons, a text and a
-// numeric level-2 variable that vary, a repeated unit ID (listed records)
+// numeric level-2 variable that vary, a repeated unit ID (listed records), a missing unit ID and a
+// level-2 value missing on one record of a group
 const rows: Row[] = [
   { u: 'a1', g: 'G1', site: 'north', staff: 3, y: 1 },
   { u: 'a2', g: 'G1', site: 'north', staff: 3, y: 2 },
@@ -31,6 +32,10 @@ const rows: Row[] = [
   { u: 'a7', g: 'G3', site: 'west', staff: 2, y: 7 },
   { u: 'a8', g: 'G2', site: 'east', staff: 5, y: 8 },
   { u: 'a9', g: 'G4', site: 'west', staff: 2, y: 9 },
+  // a missing unit ID; site missing on one record of G5 (the group's value named from the others)
+  { u: '', g: 'G5', site: 'west', staff: 2, y: 10 },
+  { u: 'b2', g: 'G5', site: null, staff: 2, y: 11 },
+  { u: 'b3', g: 'G5', site: 'west', staff: 2, y: 12 },
 ];
 const roleMap = { group: 'g', unit: 'u', outcomes: ['y'], level2: ['site', 'staff'], types: { site: 'categorical' } };
 
@@ -58,12 +63,28 @@ describe.skipIf(!url)('--problems on PostgreSQL: the rows of the file it was loa
     const report = await audit(d.csv, roles);
     const file = await problemRows(d.csv, roles, report.findings);
     const db = await problemRows({ url: url!, table: 'nr_test_rows_text' }, roles, report.findings);
-    const kinds = new Set(['missing-group-id', 'singleton-groups', 'level2-varies', 'duplicate-unit-id']);
+    const kinds = new Set([
+      'missing-group-id',
+      'singleton-groups',
+      'level2-varies',
+      'duplicate-unit-id',
+      'missing-unit-id',
+      'level2-partly-missing',
+    ]);
     expect(new Set(file.rows.map((r) => r.rule))).toEqual(kinds);
     expect(byRule(db)).toEqual(byRule(file));
     expect(db.total).toBe(file.total);
     // the numeric level-2 column is compared as numbers in both: no quotes around its values
     expect(db.rows.find((r) => r.column === 'staff')?.reason).toBe('staff is 4 here but 3 in most records of the group');
+    expect(db.rows.find((r) => r.rule === 'level2-partly-missing')?.reason).toBe(
+      'site is missing here; the other records of the group have "west" (the most common value)',
+    );
+    expect(db.rows.filter((r) => r.rule === 'missing-unit-id').map((r) => [r.record, r.group])).toEqual([[10, 'G5']]);
+    // the rule's own look-up (lookup.rowsMissing) in PostgreSQL's dialect
+    const viaDb = await audit({ url: url!, table: 'nr_test_rows_text' }, roles);
+    const missingUnit = (r: typeof report) => r.findings.find((f) => f.rule === 'missing-unit-id');
+    expect(missingUnit(viaDb)).toMatchObject({ count: 1, rows: [10] });
+    expect(missingUnit(viaDb)).toEqual(missingUnit(report));
   });
 
   it.each([

@@ -79,7 +79,7 @@ describe('renderHtml', () => {
       expect(html).toContain(`>${formatNumber(x, d)}<`);
     }
     expect(html).toContain(`>${formatNumber(o.anova.ci95[0], 4)} to ${formatNumber(o.anova.ci95[1], 4)}<`);
-    expect(html).toContain('>&lt; 0.0001<'); // p of F
+    expect(html).toContain('>&lt; .001<'); // p of F
     expect(html).toContain('<caption>');
     expect(html).toContain('<th scope="col">');
     expect(html).toContain('<th scope="row">REML</th>');

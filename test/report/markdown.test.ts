@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { renderMarkdown } from '../../src/report/markdown.js';
-import { mdText } from '../../src/report/md-escape.js';
+import { mdHeading, mdLine, mdText } from '../../src/report/md-escape.js';
 import { formatNumber } from '../../src/util/format.js';
 import { demoReport, HOSTILE, hostileReport } from './fixtures/reports.js';
 
@@ -40,7 +40,7 @@ describe('renderMarkdown', () => {
     const md = renderMarkdown(report);
     const o = report.outcomes.repair_minutes;
     expect(md).toContain(`| REML | ${formatNumber(o.reml.tau2, 4)} | ${formatNumber(o.reml.sigma2, 4)} | ${formatNumber(o.reml.icc, 4)} |`);
-    expect(md).toContain(`| ICC\\(1\\) 95% interval | ${formatNumber(o.anova.ci95[0], 4)} to ${formatNumber(o.anova.ci95[1], 4)} |`);
+    expect(md).toContain(`| ICC(1) 95% interval | ${formatNumber(o.anova.ci95[0], 4)} to ${formatNumber(o.anova.ci95[1], 4)} |`);
     expect(md).toContain(`| design effect | ${formatNumber(o.designEffect, 3)} |`);
     expect(md).toContain('| item\\_age\\_years | 0.082 | 0.082 |');
   });
@@ -48,7 +48,8 @@ describe('renderMarkdown', () => {
   it('keeps every table row at its column count and lets no hostile value become markup', () => {
     const md = renderMarkdown(hostileReport());
     expect(md).not.toMatch(/<script|<img|<svg/i);
-    expect(md).not.toContain('](javascript:');
+    // an escaped ] closes no link text, so the ( after it opens no link target
+    expect(md).not.toMatch(/(?<!\\)\]\(javascript:/);
     expect(md).not.toMatch(/(?<!\\)\*\*bold/);
     expect(md).not.toMatch(/(?<!\\)`code/);
     const lines = md.split('\n');
@@ -63,7 +64,26 @@ describe('renderMarkdown', () => {
   it('mdText escapes what Markdown and HTML would read', () => {
     expect(mdText('a|b')).toBe('a\\|b');
     expect(mdText('<b>&')).toBe('&lt;b&gt;&amp;');
-    expect(mdText('*x* _y_ [l](u) `c`')).toBe('\\*x\\* \\_y\\_ \\[l\\]\\(u\\) \\`c\\`');
+    expect(mdText('<script>alert(1)</script>')).toBe('&lt;script&gt;alert(1)&lt;/script&gt;');
+    expect(mdText('*x* _y_ [l](u) `c` ~~s~~ a\\b')).toBe('\\*x\\* \\_y\\_ \\[l\\](u) \\`c\\` \\~\\~s\\~\\~ a\\\\b');
     expect(mdText('one\ntwo\r\nthree')).toBe('one two three');
+  });
+
+  it('mdText leaves ordinary text as written', () => {
+    for (const plain of ['value(s)', '1.5', '-0.25', '50%', 'ICC(1) 95% interval', 'a + b = c', '#3 of 10', 'e.g. {x}', 'n!', 'W-014'])
+      expect(mdText(plain)).toBe(plain);
+  });
+
+  it('escapes a block opener only where the text starts a line or ends a heading', () => {
+    expect(mdLine('# title')).toBe('\\# title');
+    expect(mdLine('- item')).toBe('\\- item');
+    expect(mdLine('+ item')).toBe('\\+ item');
+    expect(mdLine('===')).toBe('\\===');
+    expect(mdLine('12. item')).toBe('12\\. item');
+    expect(mdLine('    code')).toBe('&#32;   code');
+    expect(mdLine('> quote')).toBe('&gt; quote');
+    expect(mdLine('nestready')).toBe('nestready');
+    expect(mdHeading('y #')).toBe('y \\#');
+    expect(mdHeading('y#2')).toBe('y#2');
   });
 });

@@ -10,6 +10,7 @@ import { parseRoles } from '../../src/roles/load.js';
 import type { Roles } from '../../src/roles/types.js';
 import type { Delivery, Row } from '../helpers/delivery.js';
 import { toYaml, writeDelivery } from '../helpers/delivery.js';
+import { parentRows } from '../helpers/parent-rows.js';
 
 /** What a spreadsheet-safe field holds: a leading quote before formula starters. */
 const neutral = (s: string) => (/^[=+\-@\t\r]/.test(s) ? `'${s}` : s);
@@ -221,6 +222,62 @@ describe('problemRows on other shapes', () => {
       );
       // IDs are what the sender fixes: they stay under --no-values
       expect(withheld.rows.find((x) => x.rule === 'id-variants')?.reason).toContain('"w-014 "');
+    } finally {
+      dd.remove();
+    }
+  });
+
+  it('names the group value, the code, the moved unit and the parent, and withholds only values', async () => {
+    // parentRows: A is split across north (5) and south (1), B is one code reused by both;
+    // two records added to C (16, 17): 16 lacks site (C's others have "x"), both hold y = -999;
+    // unit a1 is in A (record 1) and in C (record 16)
+    const data: Row[] = [
+      ...parentRows.map((r, i) => ({ ...r, u: i === 0 ? 'a1' : `r${i + 1}`, site: r.g === 'C' ? 'x' : 'm' })),
+      { g: 'C', p: 'east', size: 5, y: -999, u: 'a1', site: null },
+      { g: 'C', p: 'east', size: 5, y: -999, u: 'c5', site: 'x' },
+    ];
+    const map = { group: 'g', unit: 'u', parent: 'p', outcomes: ['y'], level2: ['size', 'site'], types: { site: 'categorical' } };
+    const dd = writeDelivery(data, map);
+    try {
+      const r = parseRoles(toYaml(map), dd.roles, catalogue).roles;
+      const rep = await audit(dd.csv, r, { threads: 1 });
+      const found = await problemRows(dd.csv, r, rep.findings);
+      const reasons = (rule: string) => found.rows.filter((x) => x.rule === rule).map((x) => [x.record, x.reason]);
+      expect(reasons('group-in-several-parents')).toEqual([
+        ...[1, 2, 3, 4, 5].map((k) => [k, 'g "A" is under p "north" here and under another p on other records']),
+        [6, 'g "A" is under p "south" here and under another p on other records'],
+      ]);
+      expect(reasons('group-code-reused')).toEqual([
+        ...[7, 8, 9].map((k) => [k, 'g "B" under p "north" here: another p uses the same code for a different group']),
+        ...[10, 11, 12].map((k) => [k, 'g "B" under p "south" here: another p uses the same code for a different group']),
+      ]);
+      expect(reasons('level2-partly-missing')).toEqual([
+        [16, 'site is missing here; the other records of the group have "x" (the most common value)'],
+      ]);
+      expect(reasons('sentinel-values')).toEqual([
+        [16, 'y holds -999, far outside its other values: probably a missing-value code'],
+        [17, 'y holds -999, far outside its other values: probably a missing-value code'],
+      ]);
+      expect(reasons('unit-in-several-groups')).toEqual([
+        [1, 'u "a1" is in g "A" here and in another g on other records'],
+        [16, 'u "a1" is in g "C" here and in another g on other records'],
+      ]);
+      // every record a finding lists has its row
+      for (const f of rep.findings.filter((f) => f.rows?.length)) {
+        expect(found.rows.filter((x) => x.rule === f.rule && x.column === f.column).map((x) => x.record)).toEqual(f.rows);
+      }
+      // no generic reason left for a finding that lists records
+      expect(found.rows.filter((x) => x.reason.includes('one of the records the report lists'))).toEqual([]);
+      const withheld = await problemRows(dd.csv, r, rep.findings, { includeValues: false });
+      const first = (rule: string) => withheld.rows.find((x) => x.rule === rule)?.reason;
+      expect(first('level2-partly-missing')).toBe('site is missing here but present on other records of the group (values withheld)');
+      expect(first('sentinel-values')).toBe(
+        'y holds a value far outside its other values, probably a missing-value code (values withheld)',
+      );
+      // IDs are what the sender fixes: they stay under --no-values
+      expect(first('unit-in-several-groups')).toContain('"a1"');
+      expect(first('group-code-reused')).toContain('p "north"');
+      expect(withheld.rows.map((x) => x.reason).join('\n')).not.toContain('999');
     } finally {
       dd.remove();
     }

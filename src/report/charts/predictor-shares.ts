@@ -1,4 +1,5 @@
 import { formatNumber } from '../../util/format.js';
+import { withoutWithinVariation } from '../centering-advice.js';
 import { PALETTE } from '../palette.js';
 import type { PlotData } from '../types.js';
 import { CHART_CONFIG } from './theme.js';
@@ -47,6 +48,7 @@ export function predictorSharesChart(plots: PlotData): Chart | null {
       'Share of each numeric level-1 predictor’s variance that lies between groups: ' +
       values.map((v) => `${v.column} ${formatNumber(v.reml ?? NaN, 3)} (REML), ${formatNumber(v.anova ?? NaN, 3)} (ANOVA)`).join('; ') +
       '. A share well above zero means the predictor has a group-level part: centre it within groups.' +
+      groupLevel(values) +
       (threshold !== undefined ? ` Dashed line: ${threshold}.` : ''),
     spec: {
       $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
@@ -60,4 +62,10 @@ export function predictorSharesChart(plots: PlotData): Chart | null {
       layer: layers,
     } as Chart['spec'],
   };
+}
+
+/** The predictors that do not vary within any group: nothing to centre, they describe the group. */
+function groupLevel(values: readonly { column: string; anova?: number | null }[]): string {
+  const names = values.filter((v) => withoutWithinVariation(v.anova ?? Number.NaN)).map((v) => v.column);
+  return names.length ? ` Without variation within groups (group-level variables, nothing to centre): ${names.join(', ')}.` : '';
 }

@@ -21,6 +21,12 @@ export function createLookup(source: Source, group: string): Lookup {
       );
       return rows.map((r) => Number(r.__rec));
     },
+    async rowsMissing(column, limit = EXAMPLE_LIMIT) {
+      const rows = await source.all<{ __rec: bigint }>(
+        `SELECT __rec FROM ${source.numbered} WHERE ${ident(column)} IS NULL ORDER BY __rec LIMIT ${limit}`,
+      );
+      return rows.map((r) => Number(r.__rec));
+    },
     async rowsInGroups(groups, limit = EXAMPLE_LIMIT) {
       if (!groups.length) return [];
       const rows = await source.all<{ __rec: bigint }>(

@@ -35,6 +35,8 @@ export interface RecordQueries {
   has(column: string): boolean;
   /** records whose group ID is missing */
   missingGroup(): RecordQuery;
+  /** records whose `column` is missing */
+  missing(column: string): RecordQuery;
   /** the record of every group that has only one */
   singletons(): RecordQuery;
   /**
@@ -45,6 +47,11 @@ export interface RecordQueries {
   deviating(column: string, tolerance: number | null): RecordQuery;
   /** the records with these numbers; with a column, its value in each (as `value`) */
   listed(rows: readonly number[], column?: string): RecordQuery;
+  /**
+   * the records with these numbers, each with its value of `column` (as `value`) and its group's
+   * most common value of it, compared as written (as `expected`; null when the group has none)
+   */
+  listedWithGroupValue(rows: readonly number[], column: string): RecordQuery;
   /**
    * Whether a column reads as numbers as the profile reads it: its declared type, else read as
    * numbers, else when at least 95% of its values are numbers (one count over the delivery).
@@ -59,6 +66,7 @@ export function recordQueries(source: Source, group: string): RecordQueries {
   return {
     has: (column) => source.header.includes(column),
     missingGroup: () => ({ with: '', from: `FROM ${numbered} d WHERE d.${g} IS NULL`, extra: '' }),
+    missing: (column) => ({ with: '', from: `FROM ${numbered} d WHERE d.${ident(column)} IS NULL`, extra: '' }),
     singletons: () => ({
       with: `WITH s AS (SELECT ${g} AS g FROM ${view} WHERE ${g} IS NOT NULL GROUP BY 1 HAVING count(*) = 1)`,
       from: `FROM ${numbered} d JOIN s ON d.${g} = s.g`,
@@ -80,6 +88,16 @@ export function recordQueries(source: Source, group: string): RecordQueries {
       const list = rows.filter((r) => Number.isSafeInteger(r)).map(String);
       const extra = column === undefined ? '' : `, d.${ident(column)} AS value`;
       return { with: '', from: `FROM ${numbered} d WHERE d.__rec IN (${list.length ? list.join(', ') : 'NULL'})`, extra };
+    },
+    listedWithGroupValue(rows, column) {
+      const list = rows.filter((r) => Number.isSafeInteger(r)).map(String);
+      const recs = `(${list.length ? list.join(', ') : 'NULL'})`;
+      const m = modalValueSql(view, group, column, null, `${g} IN (SELECT ${g} FROM ${numbered} WHERE __rec IN ${recs})`, d);
+      return {
+        with: `WITH ${m.cte}`,
+        from: `FROM ${numbered} d LEFT JOIN m ON d.${g} = m.g WHERE d.__rec IN ${recs}`,
+        extra: `, d.${ident(column)} AS value, m.v AS expected`,
+      };
     },
     async readsAsNumber(column, declared) {
       if (declared === 'categorical') return false;

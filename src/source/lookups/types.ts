@@ -8,6 +8,8 @@ export const EXAMPLE_LIMIT = 20;
 export interface Lookup {
   /** record numbers whose group ID is missing */
   rowsMissingGroup(limit?: number): Promise<number[]>;
+  /** record numbers where `column` is missing, in any group or none */
+  rowsMissing(column: string, limit?: number): Promise<number[]>;
   /** record numbers in `groups` whose `column` value is not the group's first (most common) value */
   rowsInGroups(groups: readonly string[], limit?: number): Promise<number[]>;
   /** per group, the distinct values of `column` with their counts, most common first */
