@@ -37,6 +37,11 @@ export interface AuditOptions {
   encoding?: Encoding;
   /** Excel: the worksheet to read (default the first) */
   sheet?: string;
+  /**
+   * CSV/TSV: read numbers written with a decimal comma (12,5). Without it they are read so when
+   * the fields are not separated by commas and the first records leave no doubt.
+   */
+  decimalComma?: boolean;
   /** any line that cannot be read is an input error instead of a finding */
   strict?: boolean;
   /** what the report calls a file input (default its path; the CLI passes "-" for a spooled stdin) */
@@ -61,6 +66,7 @@ export function openInput(input: AuditInput, roles: Roles, options: AuditOptions
     encoding: options.encoding,
     sheet: options.sheet,
     displayPath: options.displayPath,
+    ...(options.decimalComma && { decimalComma: true }),
   });
 }
 
@@ -102,7 +108,13 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
     return {
       schema: REPORT_SCHEMA,
       tool: TOOL,
-      input: { path, rows: profile.rows, rowsRejected: profile.rejected.length, columns: profile.header },
+      input: {
+        path,
+        rows: profile.rows,
+        rowsRejected: profile.rejected.length,
+        columns: profile.header,
+        ...(source.reading && { reading: source.reading }),
+      },
       roles,
       groups: groupSummary(profile),
       outcomes,
