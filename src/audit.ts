@@ -18,6 +18,7 @@ import { runRules } from './rules/engine.js';
 import { createLookup } from './source/lookups/lookup.js';
 import type { DeliveryInput, Encoding, InputFormat, Source } from './source/open.js';
 import { openSource } from './source/open.js';
+import { withheldWords } from './source/plan/binary-words.js';
 import { outcomeStats } from './stats/index.js';
 import { binaryGroupsFromMoments, logisticNullModel, momentsAreZeroOne } from './stats/logistic-null-model.js';
 import type { OutcomeStats } from './stats/types.js';
@@ -113,7 +114,7 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
         rows: profile.rows,
         rowsRejected: profile.rejected.length,
         columns: profile.header,
-        ...(source.reading && { reading: source.reading }),
+        ...(source.reading && { reading: options.includeValues === false ? withheldWords(source.reading) : source.reading }),
       },
       roles,
       groups: groupSummary(profile),
@@ -140,7 +141,9 @@ function outcomeStatistics(profile: Profile, roles: Roles): Record<string, Outco
   const out: Record<string, OutcomeStats> = {};
   for (const name of roles.outcomes) {
     const col = profile.column(name);
-    if (!readsAsNumbers(col)) continue;
+    // no number at all (words of a declared binary, text of a declared numeric): no statistics,
+    // and the variable-without-statistics rule says why
+    if (!readsAsNumbers(col) || col.numericCount === 0) continue;
     const moments = profile.moments(name);
     out[name] = outcomeStats(moments);
     // a 0/1 outcome also gets the logistic null model (the binary-outcome rule reads it)

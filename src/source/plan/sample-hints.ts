@@ -45,7 +45,8 @@ export async function sampleHints(
     // a column of words read as 0/1 is read as text with digits in it (never probed, never text only)
     if (words.has(c)) return;
     if (probing && n > 0 && k === n) probe.add(c);
-    else if (n > 0 && k === 0 && roles.types[c] === undefined) textOnly.add(c);
+    // an outcome is always read for numbers: if it holds none, the finding that says so counts them
+    else if (n > 0 && k === 0 && roles.types[c] === undefined && !roles.outcomes.includes(c)) textOnly.add(c);
   });
   return { probe, textOnly, sampledGroups: Number(row.sampled_groups), binaryWords: words };
 }
