@@ -63,6 +63,8 @@ export default defineRule<Record<string, never>>({
     sources: ['A declared outcome must yield the statistics the audit grades; a numeric predictor must read as numbers (common practice)'],
   },
   async check({ profile, roles, outcomes, lookup }) {
+    // a delivery without records yields nothing for any variable: that is said once, elsewhere
+    if (profile.rows === 0) return [];
     const declared: [string, Role][] = [
       ...roles.outcomes.map((c): [string, Role] => [c, 'outcome']),
       ...roles.level1.map((c): [string, Role] => [c, 'level1']),
