@@ -72,7 +72,8 @@ export default defineRule<Params>({
     const findings: FindingDraft[] = [];
     for (const column of roles.outcomes) {
       const col = profile.column(column);
-      if (col.type !== 'binary' || !readsAsNumbers(col)) continue;
+      // no number at all (words whose 1 is not known): variable-without-statistics says so
+      if (col.type !== 'binary' || !readsAsNumbers(col) || col.numericCount === 0) continue;
       const moments = profile.moments(column);
       if (!momentsAreZeroOne(moments) || (col.numMin ?? 0) < 0 || (col.numMax ?? 1) > 1) {
         findings.push({

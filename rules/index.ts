@@ -24,6 +24,7 @@ import unbalancedGroups from './unbalanced-groups.js';
 import undeclaredLevel2 from './undeclared-level2.js';
 import unitInSeveralGroups from './unit-in-several-groups.js';
 import unreadableLines from './unreadable-lines.js';
+import variableWithoutStatistics from './variable-without-statistics.js';
 
 /** The built-in catalogue, alphabetical by id (a test checks it against the files in rules/). */
 export const catalogue: readonly AnyRule[] = [
@@ -52,4 +53,5 @@ export const catalogue: readonly AnyRule[] = [
   undeclaredLevel2,
   unitInSeveralGroups,
   unreadableLines,
+  variableWithoutStatistics,
 ];

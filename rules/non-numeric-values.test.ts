@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { tokenKinds } from '../src/rules/token-kind.js';
 import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import { expectMessage } from '../test/helpers/messages.js';
 import { tokenKind } from './non-numeric-values.js';
@@ -45,5 +46,16 @@ describe('non-numeric-values', () => {
     expect(tokenKind('3,5')).toBe('decimal comma');
     expect(tokenKind('12 kg')).toBe('number with a unit');
     expect(tokenKind('abc')).toBe('other text');
+  });
+
+  it('a "1,234" beside values that can only be decimal commas is a decimal comma, not a thousands separator', async () => {
+    const kindOf = tokenKinds(['12,5', '1,234']);
+    expect([kindOf('12,5'), kindOf('1,234')]).toEqual(['decimal comma', 'decimal comma']);
+    // a number that can only have thousands separators keeps "1,234" one
+    const thousands = tokenKinds(['12,5', '1,234', '1,234,567']);
+    expect([thousands('1,234'), thousands('1,234,567')]).toEqual(['thousands separator', 'thousands separator']);
+    const mixed = groupedRows(5, 20, (j, i) => ({ y: j * 20 + i === 7 ? '12,5' : j * 20 + i === 9 ? '1,234' : String(10 + i + j) }));
+    const f = onlyFinding(await auditRows(mixed, { group: 'g', outcome: 'y' }), 'non-numeric-values');
+    expectMessage(f, 'tokens', { column: 'y', count: 2, kinds: '2 decimal commas' });
   });
 });

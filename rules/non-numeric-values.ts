@@ -3,25 +3,14 @@ import type { Severity } from '../src/roles/types.js';
 import { defineRule } from '../src/rules/define.js';
 import { firstRows, percent, quoteId } from '../src/rules/describe.js';
 import type { FoundRecord } from '../src/rules/rows.js';
+import { describeKinds, kindCounts } from '../src/rules/token-kind.js';
 import type { FindingDraft } from '../src/rules/types.js';
 
 interface Params {
   block_share: number;
 }
 
-const KINDS: [string, RegExp][] = [
-  ['missing code', /^(n\/?a|na|nan|null|none|missing|unknown|unk|-+|\?+|\.|x|\*|not applicable|refused|dk)$/i],
-  ['censored value', /^[<>]=?\s*[-+]?\d/],
-  ['thousands separator', /^[-+]?\d{1,3}(,\d{3})+(\.\d+)?$/],
-  ['decimal comma', /^[-+]?\d+,\d+$/],
-  ['number with a unit', /^[-+]?\d+(\.\d+)?\s*[a-z%µ]+\.?$/i],
-];
-
-/** What a token probably is, so that the fix can be specific. */
-export function tokenKind(token: string): string {
-  const t = token.trim();
-  return KINDS.find(([, re]) => re.test(t))?.[0] ?? 'other text';
-}
+export { tokenKind } from '../src/rules/token-kind.js';
 
 /** Text in a numeric column is silently read as missing by every numeric statistic. */
 export default defineRule<Params>({
@@ -64,8 +53,6 @@ export default defineRule<Params>({
       const count = col.nonMissing - col.numericCount;
       if (count <= 0) continue;
       const tokens = await lookup.nonNumericTokens(column);
-      const kinds = new Map<string, number>();
-      for (const t of tokens) kinds.set(tokenKind(t.token), (kinds.get(tokenKind(t.token)) ?? 0) + t.count);
       const share = count / col.nonMissing;
       const severity: Severity = share >= params.block_share ? 'blocker' : 'warning';
       findings.push({
@@ -82,7 +69,7 @@ export default defineRule<Params>({
           count,
           present: col.nonMissing,
           share: percent(share),
-          kinds: [...kinds].map(([kind, k]) => `${k} ${kind}${k === 1 ? '' : 's'}`).join(', '),
+          kinds: describeKinds(kindCounts(tokens)),
         },
       });
     }

@@ -18,6 +18,7 @@ import { runRules } from './rules/engine.js';
 import { createLookup } from './source/lookups/lookup.js';
 import type { DeliveryInput, Encoding, InputFormat, Source } from './source/open.js';
 import { openSource } from './source/open.js';
+import { withheldWords } from './source/plan/binary-words.js';
 import { outcomeStats } from './stats/index.js';
 import { binaryGroupsFromMoments, logisticNullModel, momentsAreZeroOne } from './stats/logistic-null-model.js';
 import type { OutcomeStats } from './stats/types.js';
@@ -37,6 +38,11 @@ export interface AuditOptions {
   encoding?: Encoding;
   /** Excel: the worksheet to read (default the first) */
   sheet?: string;
+  /**
+   * CSV/TSV: read numbers written with a decimal comma (12,5). Without it they are read so when
+   * the fields are not separated by commas and the first records leave no doubt.
+   */
+  decimalComma?: boolean;
   /** any line that cannot be read is an input error instead of a finding */
   strict?: boolean;
   /** what the report calls a file input (default its path; the CLI passes "-" for a spooled stdin) */
@@ -61,6 +67,7 @@ export function openInput(input: AuditInput, roles: Roles, options: AuditOptions
     encoding: options.encoding,
     sheet: options.sheet,
     displayPath: options.displayPath,
+    ...(options.decimalComma && { decimalComma: true }),
   });
 }
 
@@ -102,7 +109,13 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
     return {
       schema: REPORT_SCHEMA,
       tool: TOOL,
-      input: { path, rows: profile.rows, rowsRejected: profile.rejected.length, columns: profile.header },
+      input: {
+        path,
+        rows: profile.rows,
+        rowsRejected: profile.rejected.length,
+        columns: profile.header,
+        ...(source.reading && { reading: options.includeValues === false ? withheldWords(source.reading) : source.reading }),
+      },
       roles,
       groups: groupSummary(profile),
       outcomes,
@@ -128,7 +141,9 @@ function outcomeStatistics(profile: Profile, roles: Roles): Record<string, Outco
   const out: Record<string, OutcomeStats> = {};
   for (const name of roles.outcomes) {
     const col = profile.column(name);
-    if (!readsAsNumbers(col)) continue;
+    // no number at all (words of a declared binary, text of a declared numeric): no statistics,
+    // and the variable-without-statistics rule says why
+    if (!readsAsNumbers(col) || col.numericCount === 0) continue;
     const moments = profile.moments(name);
     out[name] = outcomeStats(moments);
     // a 0/1 outcome also gets the logistic null model (the binary-outcome rule reads it)

@@ -42,6 +42,7 @@ interface AuditFlags {
   inputFormat?: InputFormat;
   encoding?: Encoding;
   sheet?: string;
+  decimalComma?: boolean;
   source?: string;
   table?: string;
   query?: string;
@@ -123,6 +124,11 @@ export function buildProgram(): Command {
     .addOption(new Option('--input-format <format>', 'the delivery format (default: from the name and content)').choices(INPUT_FORMATS))
     .addOption(new Option('--encoding <encoding>', 'text encoding of a CSV/TSV delivery').choices(ENCODINGS).default('utf-8'))
     .option('--sheet <name>', 'Excel: the worksheet to read (default the first)')
+    .option(
+      '--decimal-comma',
+      'CSV/TSV: numbers are written with a decimal comma (12,5); by default read so when the fields are not separated by commas ' +
+        'and the first records leave no doubt',
+    )
     .option('--source <url>', 'audit a table or query in PostgreSQL where it lives (postgres://user@host:port/db)')
     .option('--table <name>', 'with --source: the table or view')
     .option('--query <sql>', 'with --source: a query whose rows are the delivery')
@@ -145,6 +151,7 @@ export function buildProgram(): Command {
           inputFormat: flags.inputFormat,
           encoding: flags.encoding,
           sheet: flags.sheet,
+          decimalComma: flags.decimalComma === true,
           strict: flags.strict === true,
           displayPath: resolved.displayPath,
         }).finally(stop);
@@ -162,6 +169,7 @@ export function buildProgram(): Command {
             format: flags.inputFormat,
             encoding: flags.encoding,
             sheet: flags.sheet,
+            decimalComma: flags.decimalComma === true,
             displayPath: resolved.displayPath,
           }).finally(stopRows);
           await writeOutput({ path: flags.problems, format: 'problems' }, problemsCsv(found), { quiet: flags.quiet === true });

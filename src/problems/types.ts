@@ -33,6 +33,8 @@ export interface ProblemOptions {
   format?: InputFormat;
   encoding?: Encoding;
   sheet?: string;
+  /** CSV/TSV: numbers written with a decimal comma, as the audit was told */
+  decimalComma?: boolean;
   /** what messages call a file input (default its path; the CLI passes "-" for a spooled stdin) */
   displayPath?: string;
 }

@@ -2,6 +2,7 @@ import { SEVERITIES, SEVERITY_ACTION, SEVERITY_WORD } from '../severity.js';
 import { bySeverity, listed, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, VERDICT_HEADLINE, verdictSentence } from './labels.js';
 import { mdText as m, mdHeading, mdLine } from './md-escape.js';
+import { readingLines } from './reading.js';
 import type { StatTable } from './stat-tables.js';
 import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from './stat-tables.js';
 import type { Report } from './types.js';
@@ -21,6 +22,7 @@ export function renderMarkdown(report: Report): string {
       ` (group ID: ${m(report.roles.group)})`,
     '',
   );
+  out.push(...readingLines(report.input.reading).flatMap((r) => [m(r), '']));
   out.push(
     `| ${SEVERITIES.map((s) => SEVERITY_WORD[s].many).join(' | ')} |`,
     `|${SEVERITIES.map(() => '---:').join('|')}|`,

@@ -32,7 +32,39 @@ export const reportSchema = {
       type: 'object',
       additionalProperties: false,
       required: ['path', 'rows', 'rowsRejected', 'columns'],
-      properties: { path: text, rows: count, rowsRejected: count, columns: texts },
+      properties: {
+        path: text,
+        rows: count,
+        rowsRejected: count,
+        columns: texts,
+        reading: {
+          description: "how values were read where the delivery's writing asked for it; absent when plainly",
+          type: 'object',
+          additionalProperties: false,
+          properties: {
+            decimalComma: { const: true },
+            binary: {
+              description: 'per column: the word read as 1 and the word read as 0 (lower case; `written`: as the delivery writes them)',
+              type: 'object',
+              additionalProperties: {
+                type: 'object',
+                additionalProperties: false,
+                required: ['one', 'zero'],
+                properties: {
+                  one: text,
+                  zero: text,
+                  written: {
+                    type: 'object',
+                    additionalProperties: false,
+                    required: ['one', 'zero'],
+                    properties: { one: text, zero: text },
+                  },
+                },
+              },
+            },
+          },
+        },
+      },
     },
     roles: {
       description: 'the normalised role map',
@@ -47,6 +79,7 @@ export const reportSchema = {
         level2: texts,
         missing: texts,
         types: { type: 'object', additionalProperties: { enum: ['numeric', 'categorical', 'binary', 'count'] } },
+        binaryOne: { type: 'object', additionalProperties: text },
         rules: { type: 'object' },
       },
     },

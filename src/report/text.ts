@@ -6,6 +6,7 @@ import { SEVERITIES, SEVERITY_ACTION, SEVERITY_SHAPE, SEVERITY_WORD } from '../s
 import { formatNumber, pClause } from '../util/format.js';
 import { bySeverity, listed, origin, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, verdictSentence } from './labels.js';
+import { readingLines } from './reading.js';
 import type { Report } from './types.js';
 
 export interface TextOptions {
@@ -37,6 +38,7 @@ export function renderText(report: Report, options: TextOptions): string {
         ` (group ID: ${report.roles.group})`,
     ),
   );
+  out.push(...readingLines(report.input.reading).map((r) => tone.dim(r)));
   out.push('');
   let number = 0;
   for (const severity of SEVERITIES) {

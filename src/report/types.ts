@@ -2,6 +2,7 @@ import type { PlotData, RuleRun } from '../analysis/types.js';
 import type { Grade, Verdict } from '../grade.js';
 import type { Roles } from '../roles/types.js';
 import type { Finding } from '../rules/types.js';
+import type { ValueReading } from '../source/types.js';
 import type { OutcomeStats } from '../stats/types.js';
 
 export const REPORT_SCHEMA = 'nestready/report@1';
@@ -10,7 +11,8 @@ export const REPORT_SCHEMA = 'nestready/report@1';
 export interface Report {
   schema: typeof REPORT_SCHEMA;
   tool: { name: string; version: string };
-  input: { path: string; rows: number; rowsRejected: number; columns: string[] };
+  /** `reading`: how values were read where the delivery's writing asked for it (absent when plainly) */
+  input: { path: string; rows: number; rowsRejected: number; columns: string[]; reading?: ValueReading };
   roles: Roles;
   groups: { count: number; singletons: number; sizes: { min: number; median: number; mean: number; max: number } };
   outcomes: Record<string, OutcomeStats>;

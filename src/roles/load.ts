@@ -77,11 +77,25 @@ export function parseRoles(text: string, file: string, catalogue: readonly AnyRu
     level1: toList(map.level1),
     level2: toList(map.level2),
     missing: map.missing === undefined ? [...DEFAULT_MISSING] : (map.missing as unknown[]).map(String),
-    types: (map.types ?? {}) as Record<string, ValueType>,
+    ...valueTypes(map.types),
     rules,
   };
   checkRoleOverlap(roles, locate, map.outcome !== undefined);
   return { roles, file, locate };
+}
+
+/** `types` as column → type, and the words named as 1 of binary variables apart (binaryOne). */
+function valueTypes(raw: unknown): Pick<Roles, 'types' | 'binaryOne'> {
+  const types: Record<string, ValueType> = {};
+  const binaryOne: Record<string, string> = {};
+  for (const [column, t] of Object.entries((raw ?? {}) as Record<string, ValueType | { binary: { one: string | boolean } }>)) {
+    if (typeof t === 'string') types[column] = t;
+    else {
+      types[column] = 'binary';
+      binaryOne[column] = String(t.binary.one);
+    }
+  }
+  return { types, ...(Object.keys(binaryOne).length && { binaryOne }) };
 }
 
 function presetRules(name: string): Record<string, RuleSetting> {

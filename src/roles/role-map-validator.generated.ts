@@ -4,7 +4,7 @@
 "use strict";
 export const validate = validate0;
 export default validate0;
-const schema0 = {"$schema":"http://json-schema.org/draft-07/schema#","$id":"https://nestready.dev/schema/role-map-1.json","title":"nestready role map","description":"Which column of a delivery plays which part in a two-level design.","type":"object","additionalProperties":false,"required":["group"],"properties":{"group":{"type":"string","minLength":1,"description":"level-2 identifier column (required)"},"unit":{"type":"string","minLength":1,"description":"level-1 identifier column"},"parent":{"type":"string","minLength":1,"description":"identifier of the level above the groups"},"outcome":{"type":"string","minLength":1,"description":"a single outcome column (same as outcomes: [name])"},"outcomes":{"anyOf":[{"type":"string","minLength":1},{"type":"array","items":{"type":"string","minLength":1},"uniqueItems":true}],"description":"outcome columns"},"level1":{"anyOf":[{"type":"string","minLength":1},{"type":"array","items":{"type":"string","minLength":1},"uniqueItems":true}],"description":"level-1 variables"},"level2":{"anyOf":[{"type":"string","minLength":1},{"type":"array","items":{"type":"string","minLength":1},"uniqueItems":true}],"description":"level-2 variables: must be constant within each group"},"missing":{"type":"array","items":{"type":["string","number"]},"description":"tokens read as missing; default [\"\",\"NA\",\"N/A\",\"NULL\",\"null\",\".\"]"},"types":{"type":"object","additionalProperties":{"enum":["numeric","categorical","binary"]},"description":"type overrides per column"},"rules":{"type":"object","description":"per rule id: `off`, or an object with an optional severity and the rule params","additionalProperties":{"anyOf":[{"const":"off"},{"type":"object","properties":{"severity":{"enum":["blocker","warning","note"]}}}]}}}};
+const schema0 = {"$schema":"http://json-schema.org/draft-07/schema#","$id":"https://nestready.dev/schema/role-map-1.json","title":"nestready role map","description":"Which column of a delivery plays which part in a two-level design.","type":"object","additionalProperties":false,"required":["group"],"properties":{"group":{"type":"string","minLength":1,"description":"level-2 identifier column (required)"},"unit":{"type":"string","minLength":1,"description":"level-1 identifier column"},"parent":{"type":"string","minLength":1,"description":"identifier of the level above the groups"},"outcome":{"type":"string","minLength":1,"description":"a single outcome column (same as outcomes: [name])"},"outcomes":{"anyOf":[{"type":"string","minLength":1},{"type":"array","items":{"type":"string","minLength":1},"uniqueItems":true}],"description":"outcome columns"},"level1":{"anyOf":[{"type":"string","minLength":1},{"type":"array","items":{"type":"string","minLength":1},"uniqueItems":true}],"description":"level-1 variables"},"level2":{"anyOf":[{"type":"string","minLength":1},{"type":"array","items":{"type":"string","minLength":1},"uniqueItems":true}],"description":"level-2 variables: must be constant within each group"},"missing":{"type":"array","items":{"type":["string","number"]},"description":"tokens read as missing; default [\"\",\"NA\",\"N/A\",\"NULL\",\"null\",\".\"]"},"types":{"type":"object","additionalProperties":{"anyOf":[{"enum":["numeric","categorical","binary"]},{"type":"object","additionalProperties":false,"required":["binary"],"properties":{"binary":{"type":"object","additionalProperties":false,"required":["one"],"properties":{"one":{"type":["string","boolean"],"minLength":1,"description":"the word read as 1 (default: yes, true or y, whichever pair the column is written in)"}}}}}]},"description":"type overrides per column; a binary variable written in words may name the word read as 1: `{ binary: { one: \"No\" } }`"},"rules":{"type":"object","description":"per rule id: `off`, or an object with an optional severity and the rule params","additionalProperties":{"anyOf":[{"const":"off"},{"type":"object","properties":{"severity":{"enum":["blocker","warning","note"]}}}]}}}};
 const func0 = Object.prototype.hasOwnProperty;
 
 function validate0(data, {instancePath="", parentData, parentDataProperty, rootData=data}={}){
@@ -522,8 +522,11 @@ let data12 = data.types;
 if(data12 && typeof data12 == "object" && !Array.isArray(data12)){
 for(const key1 in data12){
 let data13 = data12[key1];
+const _errs42 = errors;
+let valid16 = false;
+const _errs43 = errors;
 if(!(((data13 === "numeric") || (data13 === "categorical")) || (data13 === "binary"))){
-const err33 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/enum",keyword:"enum",params:{allowedValues: schema0.properties.types.additionalProperties.enum},message:"must be equal to one of the allowed values"};
+const err33 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/0/enum",keyword:"enum",params:{allowedValues: schema0.properties.types.additionalProperties.anyOf[0].enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err33];
 }
@@ -532,10 +535,13 @@ vErrors.push(err33);
 }
 errors++;
 }
-}
-}
-else {
-const err34 = {instancePath:instancePath+"/types",schemaPath:"#/properties/types/type",keyword:"type",params:{type: "object"},message:"must be object"};
+var _valid3 = _errs43 === errors;
+valid16 = valid16 || _valid3;
+if(!valid16){
+const _errs44 = errors;
+if(data13 && typeof data13 == "object" && !Array.isArray(data13)){
+if(data13.binary === undefined){
+const err34 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/1/required",keyword:"required",params:{missingProperty: "binary"},message:"must have required property '"+"binary"+"'"};
 if(vErrors === null){
 vErrors = [err34];
 }
@@ -544,17 +550,9 @@ vErrors.push(err34);
 }
 errors++;
 }
-}
-if(data.rules !== undefined){
-let data14 = data.rules;
-if(data14 && typeof data14 == "object" && !Array.isArray(data14)){
-for(const key2 in data14){
-let data15 = data14[key2];
-const _errs46 = errors;
-let valid17 = false;
-const _errs47 = errors;
-if("off" !== data15){
-const err35 = {instancePath:instancePath+"/rules/" + key2.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/rules/additionalProperties/anyOf/0/const",keyword:"const",params:{allowedValue: "off"},message:"must be equal to constant"};
+for(const key2 in data13){
+if(!(key2 === "binary")){
+const err35 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/1/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err35];
 }
@@ -563,15 +561,12 @@ vErrors.push(err35);
 }
 errors++;
 }
-var _valid3 = _errs47 === errors;
-valid17 = valid17 || _valid3;
-if(!valid17){
-const _errs48 = errors;
-if(data15 && typeof data15 == "object" && !Array.isArray(data15)){
-if(data15.severity !== undefined){
-let data16 = data15.severity;
-if(!(((data16 === "blocker") || (data16 === "warning")) || (data16 === "note"))){
-const err36 = {instancePath:instancePath+"/rules/" + key2.replace(/~/g, "~0").replace(/\//g, "~1")+"/severity",schemaPath:"#/properties/rules/additionalProperties/anyOf/1/properties/severity/enum",keyword:"enum",params:{allowedValues: schema0.properties.rules.additionalProperties.anyOf[1].properties.severity.enum},message:"must be equal to one of the allowed values"};
+}
+if(data13.binary !== undefined){
+let data14 = data13.binary;
+if(data14 && typeof data14 == "object" && !Array.isArray(data14)){
+if(data14.one === undefined){
+const err36 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/binary/required",keyword:"required",params:{missingProperty: "one"},message:"must have required property '"+"one"+"'"};
 if(vErrors === null){
 vErrors = [err36];
 }
@@ -580,10 +575,9 @@ vErrors.push(err36);
 }
 errors++;
 }
-}
-}
-else {
-const err37 = {instancePath:instancePath+"/rules/" + key2.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/rules/additionalProperties/anyOf/1/type",keyword:"type",params:{type: "object"},message:"must be object"};
+for(const key3 in data14){
+if(!(key3 === "one")){
+const err37 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/binary/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key3},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err37];
 }
@@ -592,11 +586,11 @@ vErrors.push(err37);
 }
 errors++;
 }
-var _valid3 = _errs48 === errors;
-valid17 = valid17 || _valid3;
 }
-if(!valid17){
-const err38 = {instancePath:instancePath+"/rules/" + key2.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/rules/additionalProperties/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(data14.one !== undefined){
+let data15 = data14.one;
+if((typeof data15 !== "string") && (typeof data15 !== "boolean")){
+const err38 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary/one",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/binary/properties/one/type",keyword:"type",params:{type: schema0.properties.types.additionalProperties.anyOf[1].properties.binary.properties.one.type},message:"must be string,boolean"};
 if(vErrors === null){
 vErrors = [err38];
 }
@@ -605,21 +599,9 @@ vErrors.push(err38);
 }
 errors++;
 }
-else {
-errors = _errs46;
-if(vErrors !== null){
-if(_errs46){
-vErrors.length = _errs46;
-}
-else {
-vErrors = null;
-}
-}
-}
-}
-}
-else {
-const err39 = {instancePath:instancePath+"/rules",schemaPath:"#/properties/rules/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(typeof data15 === "string"){
+if(data15.length < 1){
+const err39 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary/one",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/binary/properties/one/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err39];
 }
@@ -630,13 +612,158 @@ errors++;
 }
 }
 }
+}
 else {
-const err40 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err40 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/binary/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err40];
 }
 else {
 vErrors.push(err40);
+}
+errors++;
+}
+}
+}
+else {
+const err41 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/1/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err41];
+}
+else {
+vErrors.push(err41);
+}
+errors++;
+}
+var _valid3 = _errs44 === errors;
+valid16 = valid16 || _valid3;
+}
+if(!valid16){
+const err42 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(vErrors === null){
+vErrors = [err42];
+}
+else {
+vErrors.push(err42);
+}
+errors++;
+}
+else {
+errors = _errs42;
+if(vErrors !== null){
+if(_errs42){
+vErrors.length = _errs42;
+}
+else {
+vErrors = null;
+}
+}
+}
+}
+}
+else {
+const err43 = {instancePath:instancePath+"/types",schemaPath:"#/properties/types/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err43];
+}
+else {
+vErrors.push(err43);
+}
+errors++;
+}
+}
+if(data.rules !== undefined){
+let data16 = data.rules;
+if(data16 && typeof data16 == "object" && !Array.isArray(data16)){
+for(const key4 in data16){
+let data17 = data16[key4];
+const _errs56 = errors;
+let valid20 = false;
+const _errs57 = errors;
+if("off" !== data17){
+const err44 = {instancePath:instancePath+"/rules/" + key4.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/rules/additionalProperties/anyOf/0/const",keyword:"const",params:{allowedValue: "off"},message:"must be equal to constant"};
+if(vErrors === null){
+vErrors = [err44];
+}
+else {
+vErrors.push(err44);
+}
+errors++;
+}
+var _valid4 = _errs57 === errors;
+valid20 = valid20 || _valid4;
+if(!valid20){
+const _errs58 = errors;
+if(data17 && typeof data17 == "object" && !Array.isArray(data17)){
+if(data17.severity !== undefined){
+let data18 = data17.severity;
+if(!(((data18 === "blocker") || (data18 === "warning")) || (data18 === "note"))){
+const err45 = {instancePath:instancePath+"/rules/" + key4.replace(/~/g, "~0").replace(/\//g, "~1")+"/severity",schemaPath:"#/properties/rules/additionalProperties/anyOf/1/properties/severity/enum",keyword:"enum",params:{allowedValues: schema0.properties.rules.additionalProperties.anyOf[1].properties.severity.enum},message:"must be equal to one of the allowed values"};
+if(vErrors === null){
+vErrors = [err45];
+}
+else {
+vErrors.push(err45);
+}
+errors++;
+}
+}
+}
+else {
+const err46 = {instancePath:instancePath+"/rules/" + key4.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/rules/additionalProperties/anyOf/1/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err46];
+}
+else {
+vErrors.push(err46);
+}
+errors++;
+}
+var _valid4 = _errs58 === errors;
+valid20 = valid20 || _valid4;
+}
+if(!valid20){
+const err47 = {instancePath:instancePath+"/rules/" + key4.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/rules/additionalProperties/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(vErrors === null){
+vErrors = [err47];
+}
+else {
+vErrors.push(err47);
+}
+errors++;
+}
+else {
+errors = _errs56;
+if(vErrors !== null){
+if(_errs56){
+vErrors.length = _errs56;
+}
+else {
+vErrors = null;
+}
+}
+}
+}
+}
+else {
+const err48 = {instancePath:instancePath+"/rules",schemaPath:"#/properties/rules/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err48];
+}
+else {
+vErrors.push(err48);
+}
+errors++;
+}
+}
+}
+else {
+const err49 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err49];
+}
+else {
+vErrors.push(err49);
 }
 errors++;
 }

@@ -33,8 +33,31 @@ export const roleMapSchema = {
     },
     types: {
       type: 'object',
-      additionalProperties: { enum: ['numeric', 'categorical', 'binary'] },
-      description: 'type overrides per column',
+      additionalProperties: {
+        anyOf: [
+          { enum: ['numeric', 'categorical', 'binary'] },
+          {
+            type: 'object',
+            additionalProperties: false,
+            required: ['binary'],
+            properties: {
+              binary: {
+                type: 'object',
+                additionalProperties: false,
+                required: ['one'],
+                properties: {
+                  one: {
+                    type: ['string', 'boolean'],
+                    minLength: 1,
+                    description: 'the word read as 1 (default: yes, true or y, whichever pair the column is written in)',
+                  },
+                },
+              },
+            },
+          },
+        ],
+      },
+      description: 'type overrides per column; a binary variable written in words may name the word read as 1: `{ binary: { one: "No" } }`',
     },
     rules: {
       type: 'object',

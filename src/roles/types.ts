@@ -14,5 +14,10 @@ export interface Roles {
   level2: string[];
   missing: string[];
   types: Record<string, ValueType>;
+  /**
+   * Binary variables written in words: the word read as 1, per column (from
+   * `types: { x: { binary: { one: … } } }`); absent when the role map names none.
+   */
+  binaryOne?: Record<string, string>;
   rules: Record<string, RuleSetting>;
 }

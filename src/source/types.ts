@@ -21,6 +21,22 @@ export const STDIN = '-';
 export type SourceFormat = InputFormat | 'postgres';
 
 export const ENCODINGS = ['utf-8', 'latin1'] as const;
+
+/** Two words of a binary variable read as 1 and 0, as compared (lower case, trimmed), and as written. */
+export interface BinaryWords {
+  one: string;
+  zero: string;
+  /** the forms the first records write them in, when each is written one way */
+  written?: { one: string; zero: string };
+}
+
+/** How values were read where the delivery's own writing asked for it: the report states it. */
+export interface ValueReading {
+  /** numbers were read with a decimal comma (12,5 is twelve and a half) */
+  decimalComma?: boolean;
+  /** per column: which word was read as 1 and which as 0 */
+  binary?: Record<string, BinaryWords>;
+}
 export type Encoding = (typeof ENCODINGS)[number];
 
 /**
@@ -63,6 +79,8 @@ export interface Source {
   readonly viewVersion: number;
   /** run `fn` on one session of its own: the temp tables it makes are its own and stay until it drops them */
   session<T>(fn: (session: Session) => Promise<T>): Promise<T>;
+  /** how values were read where the delivery's writing asked for it (decimal commas, words as 0/1) */
+  reading?: ValueReading;
   /** rejected lines of the latest full read */
   rejects(): Promise<RejectedLine[]>;
   /** read these columns as text from now on (a value in them was not a number) */
@@ -96,4 +114,6 @@ export interface OpenOptions {
   sheet?: string;
   /** what the report calls the input (default the path) */
   displayPath?: string;
+  /** CSV/TSV: read numbers with a decimal comma (default: when the first records leave no doubt) */
+  decimalComma?: boolean;
 }

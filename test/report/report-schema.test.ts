@@ -35,6 +35,15 @@ describe("the report's JSON Schema", () => {
     expect(json.outcomes.mathach.n).toBe(7185);
   });
 
+  it('accepts a report that states how values were read (decimal commas, words as 0/1, the word named as 1)', () => {
+    const report = demoReport() as unknown as { input: Record<string, unknown>; roles: Record<string, unknown> };
+    report.input.reading = { decimalComma: true, binary: { fixed: { one: 'no', zero: 'yes', written: { one: 'No', zero: 'Yes' } } } };
+    report.roles.binaryOne = { fixed: 'No' };
+    expect(check(report)).toEqual([]);
+    report.input.reading = { binary: { fixed: { one: 'no' } } };
+    expect(check(report)).toEqual(["/input/reading/binary/fixed must have required property 'zero'"]);
+  });
+
   it('rejects a finding without its messageId', () => {
     const report = demoReport() as unknown as { findings: Record<string, unknown>[] };
     delete report.findings[0].messageId;

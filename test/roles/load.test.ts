@@ -200,6 +200,22 @@ describe('parseRoles: invalid maps point at the offending key', () => {
     expectErrorAt(text, line, col, pattern);
   });
 
+  it('a binary variable written in words may name the word read as 1 (types stay column → type)', () => {
+    const r = parse(
+      'group: g\noutcome: y\ntypes:\n  y: { binary: { one: "No" } }\n  z: categorical\n  t: { binary: { one: true } }\n',
+    ).roles;
+    expect(r.types).toEqual({ y: 'binary', z: 'categorical', t: 'binary' });
+    expect(r.binaryOne).toEqual({ y: 'No', t: 'true' });
+    expect(parse('group: g\ntypes: { y: binary }\n').roles).not.toHaveProperty('binaryOne');
+  });
+
+  it('a bad word read as 1 points at it', () => {
+    expectErrorAt('group: g\ntypes:\n  y: { binary: { one: 3 } }\n', 3, 18, /types\.y\.binary\.one must be/);
+    expectErrorAt('group: g\ntypes:\n  y: { binary: { one: "" } }\n', 3, 18, /types\.y\.binary\.one/);
+    expectErrorAt('group: g\ntypes:\n  y: { binary: {} }\n', 3, 8, /types\.y\.binary must have required property 'one'/);
+    expectErrorAt('group: g\ntypes:\n  y: binry\n', 3, 3, /types\.y must be one of "numeric", "categorical", "binary"/);
+  });
+
   it('outcome and outcomes together', () => {
     expectErrorAt('group: g\noutcome: y\noutcomes: [y]\n', 2, 1, /either outcome or outcomes, not both/);
   });

@@ -1,8 +1,11 @@
 import { closeSync, openSync, readSync } from 'node:fs';
+import { InputError } from '../../errors.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
 import type { CsvOptions } from '../engines/duckdb/read-csv.js';
 import { readCsv, typedColumns } from '../engines/duckdb/read-csv.js';
+import type { Storage } from '../sql.js';
 import type { RejectedLine, SourceFormat } from '../types.js';
+import { decimalCommaColumns } from './decimal-comma.js';
 import type { ReadContext } from './registry.js';
 
 /**
@@ -16,6 +19,7 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     ...(delim !== undefined && { delim }),
     ...(ctx.options.encoding === 'latin1' ? { encoding: 'latin-1' as const } : {}),
     ...(ctx.gzip && !/\.gz$/i.test(file) ? { compression: 'gzip' as const } : {}),
+    ...(ctx.options.decimalComma && { decimalSeparator: ',' as const }),
   };
   const { all, con } = engine;
   // one sniff: the dialect and the columns with DuckDB's type guesses (from a sample: hints only)
@@ -46,6 +50,19 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     sniffed = sniffed.map((d) => ({ ...d, column_name: unquote(d.column_name) }));
   }
   options = { ...options, dialect };
+  if (options.decimalSeparator && dialect.delim === ',') {
+    throw new InputError(`${display}: numbers with a decimal comma need fields separated by something else than a comma`);
+  }
+  if (!options.decimalSeparator) {
+    // decimal commas in a file separated by semicolons (or tabs): read when the first records
+    // leave no doubt, so that the numbers are numbers (the report says they were read so)
+    const text = new Map<string, Storage>(sniffed.map((d) => [d.column_name, 'text']));
+    const found = await decimalCommaColumns(all, readCsv(file, missing, text, options, true), dialect.delim, sniffed, roles);
+    if (found.length) {
+      options = { ...options, decimalSeparator: ',' };
+      sniffed = sniffed.map((d) => (found.includes(d.column_name) ? { ...d, column_type: 'DOUBLE' } : d));
+    }
+  }
   const header = sniffed.map((d) => d.column_name);
   const storage = typedColumns(header, roles, sniffed);
   return {
@@ -55,6 +72,7 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     storage,
     numbering: 'window',
     typedReader: true,
+    ...(options.decimalSeparator && { reading: { decimalComma: true } }),
     relation: (s) => readCsv(file, missing, s, options),
     sample: () => readCsv(file, missing, storage, options, true),
     async rejects(): Promise<RejectedLine[]> {

@@ -2,6 +2,8 @@ import type { Roles } from '../../roles/types.js';
 import type { Dialect } from '../dialect.js';
 import type { Storage } from '../sql.js';
 import { ident, literal } from '../sql.js';
+import type { BinaryWords } from '../types.js';
+import { wordsAsDigits } from './binary-words.js';
 import { numericTokens } from './sample-hints.js';
 
 /**
@@ -32,7 +34,7 @@ export function readingStorage(columns: readonly SourceColumn[], roles: Roles): 
  * The select list: each column as text or double per `storage`, missing tokens as NULL (text
  * compared as written, numbers as numbers: "-999" matches -999.0). `blankGroup`: the group
  * column read as text with blank-looking IDs as NULL, for engines that cannot replace it in the
- * view afterwards.
+ * view afterwards. `words`: columns whose two words are read as "1" and "0" (wordsAsDigits).
  */
 export function readingList(
   columns: readonly SourceColumn[],
@@ -40,6 +42,7 @@ export function readingList(
   missing: readonly string[],
   d: Dialect,
   blankGroup?: string,
+  words: ReadonlyMap<string, BinaryWords> = new Map(),
 ): string {
   const tokens = missing.map(literal).join(', ');
   const nums = numericTokens(missing);
@@ -56,7 +59,8 @@ export function readingList(
       } else {
         const t = text ? c : d.text(c);
         const nulled = tokens ? `CASE WHEN ${t} IN (${tokens}) THEN NULL ELSE ${t} END` : t;
-        expr = storage.get(name) === 'double' ? d.numeric(nulled) : nulled;
+        const w = words.get(name);
+        expr = w ? wordsAsDigits(nulled, w) : storage.get(name) === 'double' ? d.numeric(nulled) : nulled;
       }
       return `${expr} AS ${c}`;
     })

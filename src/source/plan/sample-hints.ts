@@ -1,6 +1,9 @@
 import type { Roles } from '../../roles/types.js';
+import type { Dialect } from '../dialect.js';
 import type { Storage } from '../sql.js';
 import { ident } from '../sql.js';
+import type { BinaryWords } from '../types.js';
+import { binaryWords, wordAggregates, wordCandidates } from './binary-words.js';
 
 /** Rows sampled to tell text columns that hold numbers from those that hold none. */
 export const SAMPLE_ROWS = 20480;
@@ -9,7 +12,8 @@ export const SAMPLE_ROWS = 20480;
  * Read the first rows once: a text column whose sampled values are all numbers is probed (the
  * profile decides whether it is numeric throughout); one whose sampled values hold no number
  * (and whose type the role map leaves open) gets no numeric reading — converting every value of
- * a text column such as "18-29" only to fail is the dearest thing a pass can do.
+ * a text column such as "18-29" only to fail is the dearest thing a pass can do. A variable
+ * written in two words (yes/no) is read as 0/1 (`binaryWords`; see plan/binary-words.ts).
  */
 export async function sampleHints(
   all: <T>(sql: string) => Promise<T[]>,
@@ -19,8 +23,9 @@ export async function sampleHints(
   roles: Roles,
   ids: Set<string | undefined>,
   probing: boolean,
-  numeric: (expr: string) => string,
-): Promise<{ probe: Set<string>; textOnly: Set<string>; sampledGroups: number }> {
+  d: Pick<Dialect, 'numeric' | 'ordered'>,
+): Promise<{ probe: Set<string>; textOnly: Set<string>; sampledGroups: number; binaryWords: Map<string, BinaryWords> }> {
+  const { numeric } = d;
   const probe = new Set<string>();
   const textOnly = new Set<string>();
   const candidates = header.filter((c) => storage.get(c) === 'text' && !ids.has(c) && roles.types[c] !== 'categorical');
@@ -28,16 +33,22 @@ export async function sampleHints(
     `count(DISTINCT ${ident(roles.group)}) AS sampled_groups`,
     ...candidates.map((c, i) => `count(${ident(c)}) AS n${i}, count(${numeric(ident(c))}) AS k${i}`),
   ];
+  const worded = wordCandidates(header, storage, roles);
+  aggs.push(...wordAggregates(worded, d));
   const [row] = await all<Record<string, unknown>>(
     `SELECT ${aggs.join(', ')} FROM (SELECT * FROM ${view} LIMIT ${SAMPLE_ROWS}) AS nr_sample`,
   );
+  const words = binaryWords(row, worded, roles);
   candidates.forEach((c, i) => {
     const n = Number(row[`n${i}`]);
     const k = Number(row[`k${i}`]);
+    // a column of words read as 0/1 is read as text with digits in it (never probed, never text only)
+    if (words.has(c)) return;
     if (probing && n > 0 && k === n) probe.add(c);
-    else if (n > 0 && k === 0 && roles.types[c] === undefined) textOnly.add(c);
+    // an outcome is always read for numbers: if it holds none, the finding that says so counts them
+    else if (n > 0 && k === 0 && roles.types[c] === undefined && !roles.outcomes.includes(c)) textOnly.add(c);
   });
-  return { probe, textOnly, sampledGroups: Number(row.sampled_groups) };
+  return { probe, textOnly, sampledGroups: Number(row.sampled_groups), binaryWords: words };
 }
 
 /** Missing tokens that are numbers, compared as numbers in numeric columns ("-999" ↔ -999.0). */

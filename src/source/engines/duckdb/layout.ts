@@ -1,5 +1,5 @@
 import type { Storage } from '../../sql.js';
-import type { RejectedLine, SourceFormat } from '../../types.js';
+import type { RejectedLine, SourceFormat, ValueReading } from '../../types.js';
 
 /** How a DuckDB-read delivery is laid out before the shared views are put on it. */
 export interface DuckLayout {
@@ -17,6 +17,8 @@ export interface DuckLayout {
   sample?(): string;
   /** a typed reader (CSV) converts while reading and rejects lines; other sources are probed */
   typedReader: boolean;
+  /** how the reader read values where the file's writing asked for it (decimal commas) */
+  reading?: ValueReading;
   rejects(): Promise<RejectedLine[]>;
   /** before the views are redefined with columns read as text (CSV: start the rejects log afresh) */
   beforeRetype?(): Promise<void>;

@@ -26,6 +26,8 @@ export interface CsvOptions {
    * would otherwise sniff the file again, a tenth of a second each).
    */
   dialect?: CsvDialect;
+  /** ',' for numbers written with a decimal comma (the fields then separated by something else) */
+  decimalSeparator?: ',';
 }
 
 function csvOptions(o: CsvOptions): string {
@@ -37,6 +39,7 @@ function csvOptions(o: CsvOptions): string {
   } else if (o.delim !== undefined) parts.push(`delim = ${literal(o.delim)}`);
   if (o.encoding && o.encoding !== 'utf-8') parts.push(`encoding = ${literal(o.encoding)}`);
   if (o.compression) parts.push(`compression = ${literal(o.compression)}`);
+  if (o.decimalSeparator) parts.push(`decimal_separator = ${literal(o.decimalSeparator)}`);
   return parts.map((p) => `, ${p}`).join('');
 }
 
@@ -78,7 +81,7 @@ export const CSV_BUFFER_BYTES = 4 * 2 ** 20;
 export const NUMERIC_TYPES = /^(TINYINT|SMALLINT|INTEGER|BIGINT|HUGEINT|UTINYINT|USMALLINT|UINTEGER|UBIGINT|FLOAT|DOUBLE|DECIMAL)/;
 
 /**
- * Read a column as DOUBLE when the role map or the sniffer says it is numeric; IDs and
+ * Read a column as DOUBLE when the role map says it is numeric or the sniffer saw numbers; IDs and
  * categorical columns always as text (an ID "007" must not become 7). A value that then
  * fails to convert rejects its line, and the profile re-reads that column as text.
  */
@@ -92,7 +95,9 @@ export function typedColumns(
   const storage = new Map<string, Storage>();
   for (const c of header) {
     const declared = roles.types[c];
-    const isNumber = declared === 'numeric' || declared === 'binary' || (declared === undefined && sniffedNumeric.has(c));
+    // a binary column the sniffer saw as text is written in words (yes/no): read as text, for the
+    // reading plan to read its two words as 0/1 (plan/binary-words.ts)
+    const isNumber = declared === 'numeric' || (declared !== 'categorical' && sniffedNumeric.has(c));
     storage.set(c, !ids.has(c) && isNumber ? 'double' : 'text');
   }
   return storage;

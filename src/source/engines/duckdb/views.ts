@@ -1,8 +1,9 @@
 import type { Roles } from '../../../roles/types.js';
 import { duckdb } from '../../dialect.js';
+import { wordsAsDigits } from '../../plan/binary-words.js';
 import { sampleHints } from '../../plan/sample-hints.js';
 import { blankAsNull, ident } from '../../sql.js';
-import type { Source } from '../../types.js';
+import type { BinaryWords, Source } from '../../types.js';
 import type { DuckEngine } from './engine.js';
 import type { DuckLayout } from './layout.js';
 import { manyGroups, raiseMemory, withMemory } from './memory.js';
@@ -12,7 +13,13 @@ import { readAll, readColumns } from './stream.js';
 export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: Roles, missing: readonly string[]): Promise<Source> {
   const { con, all } = engine;
   const { header, storage } = layout;
-  const group = header.includes(roles.group) ? ` REPLACE (${blankAsNull(roles.group, missing)} AS ${ident(roles.group)})` : '';
+  // a blank-looking group ID is missing; a variable's two words are read as 0/1 (plan/binary-words.ts)
+  let words = new Map<string, BinaryWords>();
+  const replace = () => {
+    const items = header.includes(roles.group) ? [`${blankAsNull(roles.group, missing)} AS ${ident(roles.group)}`] : [];
+    for (const [c, w] of words) items.push(`${wordsAsDigits(ident(c), w)} AS ${ident(c)}`);
+    return items.length ? ` REPLACE (${items.join(', ')})` : '';
+  };
   // DuckDB 1.5's CSV reader fails (and invalidates the database) when a line with invalid UTF-8
   // is met by a scan that reads only some of the columns; once such a line is known, the views
   // read every column (a filter that uses them all and is always true)
@@ -22,6 +29,7 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
   const define = async () => {
     viewVersion++;
     const rel = layout.relation(storage) + (guarded ? ` WHERE ${everyColumn}` : '');
+    const group = replace();
     if (layout.numbering === 'rowid') {
       await con.run(`CREATE OR REPLACE VIEW nr_numbered AS SELECT *${group} FROM ${rel}`);
       await con.run('CREATE OR REPLACE VIEW nr_delivery AS SELECT * EXCLUDE (__rec) FROM nr_numbered');
@@ -36,17 +44,14 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
 
   const ids = new Set([roles.group, roles.unit, roles.parent]);
   const sampled = layout.sample ? `(SELECT * FROM ${layout.sample()} WHERE ${everyColumn})` : 'nr_delivery';
-  const { probe, textOnly, sampledGroups } = await sampleHints(
-    all,
-    sampled,
-    header,
-    storage,
-    roles,
-    ids,
-    !layout.typedReader,
-    duckdb.numeric,
-  );
+  const hints = await sampleHints(all, sampled, header, storage, roles, ids, !layout.typedReader, duckdb);
+  const { probe, textOnly, sampledGroups } = hints;
   if (manyGroups(sampledGroups)) await raiseMemory(engine);
+  if (hints.binaryWords.size) {
+    words = hints.binaryWords;
+    await define();
+  }
+  const reading = { ...layout.reading, ...(words.size && { binary: Object.fromEntries(words) }) };
 
   return {
     path: layout.path,
@@ -56,6 +61,7 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
     storage,
     probe,
     textOnly,
+    ...(Object.keys(reading).length && { reading }),
     view: 'nr_delivery',
     numbered: 'nr_numbered',
     get viewVersion() {

@@ -5,7 +5,7 @@ import { postgres } from '../../dialect.js';
 import { readingList, readingStorage } from '../../plan/reading.js';
 import { sampleHints } from '../../plan/sample-hints.js';
 import { ident, literal } from '../../sql.js';
-import type { OpenOptions, RejectedLine, Source } from '../../types.js';
+import type { BinaryWords, OpenOptions, RejectedLine, Source } from '../../types.js';
 import type { PostgresInput } from './input.js';
 import { redactUrl } from './input.js';
 
@@ -71,7 +71,8 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
     const storage = readingStorage(fields, roles);
     const missing = [...new Set(['', ...options.missing])];
     // no `* REPLACE` in PostgreSQL: the group ID's blank-looking values are made NULL in the list itself
-    const select = () => readingList(fields, storage, missing, postgres, roles.group);
+    let words = new Map<string, BinaryWords>();
+    const select = () => readingList(fields, storage, missing, postgres, roles.group, words);
     let viewVersion = 0;
     const define = async () => {
       viewVersion++;
@@ -84,7 +85,11 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
       );
     };
     await define();
-    const hints = await sampleHints(all, 'nr_delivery', header, storage, roles, ids, true, postgres.numeric);
+    const hints = await sampleHints(all, 'nr_delivery', header, storage, roles, ids, true, postgres);
+    if (hints.binaryWords.size) {
+      words = hints.binaryWords;
+      await define();
+    }
 
     return {
       path: display,
@@ -94,6 +99,7 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
       storage,
       probe: hints.probe,
       textOnly: hints.textOnly,
+      ...(words.size && { reading: { binary: Object.fromEntries(words) } }),
       view: 'nr_delivery',
       numbered: 'nr_numbered',
       get viewVersion() {
