@@ -9,6 +9,7 @@ import type { ChartSvgs } from './html/statistics.js';
 import { statisticsHtml } from './html/statistics.js';
 import { STYLES } from './html/styles.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, VERDICT_ADVICE, VERDICT_HEADLINE } from './labels.js';
+import { readingLines } from './reading.js';
 import type { Report } from './types.js';
 
 /** Nothing in the page may load or run: no scripts, no network, only the inline styles. */
@@ -52,6 +53,9 @@ export async function renderHtml(report: Report): Promise<string> {
 <p class="eyebrow">nestready audit of a two-level delivery</p>
 <h1>${e(report.input.path)}</h1>
 <p class="source">${e(summaryLine(report))}</p>
+${readingLines(report.input.reading)
+  .map((r) => `<p class="source">${e(r)}</p>`)
+  .join('\n')}
 </div></header>
 <main class="wrap">
 ${verdictHtml(report)}

@@ -19,6 +19,14 @@ function attributes(tag: string): string[][] {
 }
 
 describe('renderHtml', () => {
+  it('says in its head how values were read (decimal commas, the word read as 1), escaped', async () => {
+    const report = demoReport();
+    report.input.reading = { decimalComma: true, binary: { fixed: { one: '<Yes>', zero: 'No' } } };
+    const html = await renderHtml(report);
+    expect(html).toContain('<p class="source">read: numbers with a decimal comma (12,5 as 12.5); fixed: &quot;&lt;Yes&gt;&quot; as 1');
+    expect(await renderHtml(demoReport())).not.toContain('read: ');
+  });
+
   it('puts the verdict first as a sentence, grade and score beneath it, then findings by severity, then statistics', async () => {
     const report = demoReport();
     const html = await renderHtml(report);
