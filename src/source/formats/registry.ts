@@ -111,7 +111,7 @@ const FORMAT_LIST = [
     gzip: false,
     options: [],
     readBy: 'apache-arrow, batch by batch into DuckDB',
-    notes: 'file or stream format',
+    notes: 'file or stream format (Feather v2 is the file format); LZ4-frame or zstd compressed bodies too',
     read: async (ctx: ReadContext): Promise<DuckLayout> => (await import('./arrow.js')).arrowLayout(ctx),
   },
   {

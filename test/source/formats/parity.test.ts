@@ -20,6 +20,8 @@ const cases: [string, string, AuditOptions?][] = [
   ['Parquet', 'repairs.parquet'],
   ['Arrow IPC file', 'repairs.arrow'],
   ['Arrow IPC stream', 'repairs.arrows'],
+  ['Feather (Arrow IPC file), LZ4-frame compressed', 'repairs-lz4.feather'],
+  ['Arrow IPC stream, zstd compressed', 'repairs-zstd.arrows'],
   ['JSON array', 'repairs.json'],
   ['NDJSON', 'repairs.ndjson'],
   ['Excel (first sheet)', 'repairs.xlsx'],
