@@ -86,6 +86,33 @@ const accented = lines
 writeFileSync(join(out, 'accents.csv'), `${accented.join('\n')}\n`);
 writeFileSync(join(out, 'accents.latin1.csv'), Buffer.from(`${accented.join('\n')}\n`, 'latin1'));
 
+// an export from a Windows spreadsheet: windows-1252 with CRLF line ends, and the same in UTF-8;
+// ’ € – are bytes 0x80-0x9F there, which Latin-1 leaves as control characters
+/** @type {Record<string, string>} */
+const win = { amber: 'ámber’s', birch: 'birch – north', dune: 'düne €', fern: 'fougère' };
+/** @type {Record<string, string>} */
+const winKinds = { clothing: 'children’s clothing', lamp: 'lamp – desk', other: 'other (€ 5 flat)' };
+const winLines = lines
+  .slice(0, 1201)
+  .map((l, i) =>
+    i === 0
+      ? l
+      : l.replace(/,(amber|birch|dune|fern),/, (_, n) => `,${win[n]},`).replace(/,(clothing|lamp|other),/, (_, k) => `,${winKinds[k]},`),
+  );
+/** @type {Record<string, number>} the windows-1252 bytes of the characters above that Latin-1 lacks */
+const cp1252 = { '€': 0x80, '’': 0x92, '–': 0x96 };
+/** @param {string} text */
+const toCp1252 = (text) =>
+  Buffer.from(
+    [...text].map((c) => {
+      const code = cp1252[c] ?? c.charCodeAt(0);
+      if (code > 0xff) throw new Error(`no windows-1252 byte for ${c}`);
+      return code;
+    }),
+  );
+writeFileSync(join(out, 'windows.csv'), `${winLines.join('\r\n')}\r\n`);
+writeFileSync(join(out, 'windows.cp1252.csv'), toCp1252(`${winLines.join('\r\n')}\r\n`));
+
 // unreadable lines: 60 records (one of them with a quoted field) with broken lines between them
 const quoted = lines.find((l) => l.includes('"W-014 "'));
 const records = [quoted, ...lines.slice(1, 60)];

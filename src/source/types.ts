@@ -20,7 +20,8 @@ export const STDIN = '-';
 /** Delivery formats read from files (or stdin, see formats/registry.ts); `postgres` is a table or query in a database. */
 export type SourceFormat = InputFormat | 'postgres';
 
-export const ENCODINGS = ['utf-8', 'latin1'] as const;
+/** Text encodings of a CSV/TSV delivery; cp1252 is another name of windows-1252, which latin1 is read as too. */
+export const ENCODINGS = ['utf-8', 'latin1', 'windows-1252', 'cp1252'] as const;
 export type Encoding = (typeof ENCODINGS)[number];
 
 /**
@@ -90,7 +91,7 @@ export interface OpenOptions {
   threads?: number;
   /** the format, when not detected from the name and content */
   format?: InputFormat;
-  /** text encoding of CSV/TSV (default UTF-8, with or without a byte-order mark) */
+  /** text encoding of CSV/TSV (default UTF-8, with or without a byte-order mark; see ENCODINGS) */
   encoding?: Encoding;
   /** Excel: the worksheet to read (default the first) */
   sheet?: string;

@@ -73,7 +73,9 @@ const FORMAT_LIST = [
     options: ['encoding'],
     hints: (head: Buffer) => ({ delimiter: delimiterHint(head.toString('latin1')) }),
     readBy: "DuckDB's CSV reader",
-    notes: 'delimiter and quoting sniffed; UTF-8 with or without a byte-order mark, or Latin-1 with `--encoding latin1`',
+    notes:
+      'delimiter and quoting sniffed; UTF-8 with or without a byte-order mark, or windows-1252 with `--encoding windows-1252` ' +
+      '(alias `cp1252`; `latin1` is read as windows-1252, its superset)',
     read: async (ctx: ReadContext): Promise<DuckLayout> => (await import('./csv.js')).csvLayout(ctx, 'csv', ctx.delimiter),
   },
   {
