@@ -103,7 +103,13 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
     return {
       schema: REPORT_SCHEMA,
       tool: TOOL,
-      input: { path, rows: profile.rows, rowsRejected: profile.rejected.length, columns: profile.header },
+      input: {
+        path,
+        rows: profile.rows,
+        rowsRejected: profile.rejected.length,
+        columns: profile.header,
+        ...(source.notes?.length && { notes: [...source.notes] }),
+      },
       roles,
       groups: groupSummary(profile),
       outcomes,

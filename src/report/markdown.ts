@@ -20,6 +20,7 @@ export function renderMarkdown(report: Report): string {
       (report.input.rowsRejected ? `, ${report.input.rowsRejected} unreadable lines` : '') +
       ` (group ID: ${m(report.roles.group)})`,
     '',
+    ...inputNotes(report),
   );
   out.push(
     `| ${SEVERITIES.map((s) => SEVERITY_WORD[s].many).join(' | ')} |`,
@@ -78,4 +79,9 @@ function table(t: StatTable): string[] {
     ...t.rows.map((r) => `| ${r.map(m).join(' | ')} |`),
     '',
   ];
+}
+
+/** The input section's notes (which Excel sheet was read, …), one paragraph each. */
+function inputNotes(report: Report): string[] {
+  return (report.input.notes ?? []).flatMap((note) => [`Note: ${m(note)}`, '']);
 }

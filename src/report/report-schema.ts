@@ -32,7 +32,7 @@ export const reportSchema = {
       type: 'object',
       additionalProperties: false,
       required: ['path', 'rows', 'rowsRejected', 'columns'],
-      properties: { path: text, rows: count, rowsRejected: count, columns: texts },
+      properties: { path: text, rows: count, rowsRejected: count, columns: texts, notes: texts },
     },
     roles: {
       description: 'the normalised role map',

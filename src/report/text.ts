@@ -37,6 +37,7 @@ export function renderText(report: Report, options: TextOptions): string {
         ` (group ID: ${report.roles.group})`,
     ),
   );
+  for (const note of report.input.notes ?? []) out.push(tone.warning(`note: ${note}`));
   out.push('');
   let number = 0;
   for (const severity of SEVERITIES) {

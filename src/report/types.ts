@@ -10,7 +10,8 @@ export const REPORT_SCHEMA = 'nestready/report@1';
 export interface Report {
   schema: typeof REPORT_SCHEMA;
   tool: { name: string; version: string };
-  input: { path: string; rows: number; rowsRejected: number; columns: string[] };
+  /** `notes`: what the reading of the delivery needs said (which Excel sheet was read, other sheets with its header) */
+  input: { path: string; rows: number; rowsRejected: number; columns: string[]; notes?: string[] };
   roles: Roles;
   groups: { count: number; singletons: number; sizes: { min: number; median: number; mean: number; max: number } };
   outcomes: Record<string, OutcomeStats>;

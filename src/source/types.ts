@@ -32,6 +32,8 @@ export interface Source {
   /** what the report names as the input (a file path, "-" for stdin, or a database relation) */
   path: string;
   format: SourceFormat;
+  /** what the report's input section says about the reading (e.g. which Excel sheet was read) */
+  notes?: readonly string[];
   dialect: Dialect;
   header: string[];
   /** how each column is read: text, or double where every value is a number */

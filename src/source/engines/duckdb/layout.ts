@@ -18,6 +18,8 @@ export interface DuckLayout {
   /** a typed reader (CSV) converts while reading and rejects lines; other sources are probed */
   typedReader: boolean;
   rejects(): Promise<RejectedLine[]>;
+  /** what the report's input section should say about the reading (which Excel sheet was read, …) */
+  notes?: string[];
   /** before the views are redefined with columns read as text (CSV: start the rejects log afresh) */
   beforeRetype?(): Promise<void>;
 }
