@@ -122,7 +122,7 @@ export function buildProgram(): Command {
     )
     .addOption(new Option('--input-format <format>', 'the delivery format (default: from the name and content)').choices(INPUT_FORMATS))
     .addOption(new Option('--encoding <encoding>', 'text encoding of a CSV/TSV delivery').choices(ENCODINGS).default('utf-8'))
-    .option('--sheet <name>', 'Excel: the worksheet to read (default the first)')
+    .option('--sheet <name>', "Excel: the worksheet to read (default: the first whose header holds the role map's columns)")
     .option('--source <url>', 'audit a table or query in PostgreSQL where it lives (postgres://user@host:port/db)')
     .option('--table <name>', 'with --source: the table or view')
     .option('--query <sql>', 'with --source: a query whose rows are the delivery')

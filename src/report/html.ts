@@ -49,7 +49,7 @@ export async function renderHtml(report: Report): Promise<string> {
 <header class="top"><div class="wrap">
 <p class="eyebrow">nestready audit of a two-level delivery</p>
 <h1>${e(report.input.path)}</h1>
-<p class="source">${e(summaryLine(report))}</p>
+<p class="source">${e(summaryLine(report))}</p>${(report.input.notes ?? []).map((note) => `\n<p class="source">Note: ${e(note)}</p>`).join('')}
 </div></header>
 <main class="wrap">
 ${verdictHtml(report)}

@@ -146,7 +146,9 @@ const FORMAT_LIST = [
     gzip: false,
     options: ['sheet'],
     readBy: 'exceljs, streamed row by row into DuckDB',
-    notes: 'the first sheet, or `--sheet NAME`; row 1 is the header; empty rows are not records',
+    notes:
+      "the sheet `--sheet NAME`, else the first whose header holds the role map's columns (named as the workbook names it); " +
+      'its first row is the header; empty rows are not records',
     read: async (ctx: ReadContext): Promise<DuckLayout> => (await import('./xlsx.js')).xlsxLayout(ctx),
   },
 ] as const satisfies readonly FormatSpec[];
@@ -159,7 +161,9 @@ export const FORMATS: readonly (FormatSpec & { name: InputFormat })[] = FORMAT_L
 export const INPUT_FORMATS: readonly InputFormat[] = FORMATS.map((f) => f.name);
 
 export function formatSpec(name: InputFormat): FormatSpec {
-  return FORMATS.find((f) => f.name === name)!;
+  const spec = FORMATS.find((f) => f.name === name);
+  if (!spec) throw new Error(`unknown input format ${name}`);
+  return spec;
 }
 
 /** The CLI's words for the delivery argument: the formats it reads and which may be compressed. */

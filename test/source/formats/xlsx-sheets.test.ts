@@ -5,6 +5,7 @@ import ExcelJS from 'exceljs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { catalogue } from '../../../rules/index.js';
 import { audit } from '../../../src/audit.js';
+import { renderReport } from '../../../src/report/render.js';
 import type { Report } from '../../../src/report/types.js';
 import { parseRoles } from '../../../src/roles/load.js';
 import { workbookSheets } from '../../../src/source/formats/xlsx-sheets.js';
@@ -84,6 +85,11 @@ describe('Excel sheets', () => {
     const got = await audit(path, roles);
     expectSameAudit(got, csv);
     expect(got.input.notes).toEqual([`sheet "pupils" read: the first whose header holds the role map's columns (sheets: readme, pupils)`]);
+    // every report prints the note beside the input line
+    for (const format of ['text', 'md', 'html'] as const) {
+      const out = await renderReport(got, format, { color: 0, failOn: 'blocker', withPlotData: false });
+      expect(out).toMatch(/sheet (&quot;|&#34;|\\?")pupils\1 read/);
+    }
   });
 
   it("no sheet holds the columns: the header check lists the nearest sheet's header, no internal error", async () => {
