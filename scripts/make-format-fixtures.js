@@ -15,8 +15,21 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { gzipSync } from 'node:zlib';
 import { DuckDBInstance } from '@duckdb/node-api';
-import { Float64, Table, tableToIPC, Utf8, vectorFromArray } from 'apache-arrow';
+import {
+  CompressionType,
+  compressionRegistry,
+  Float64,
+  RecordBatchFileWriter,
+  RecordBatchStreamWriter,
+  Table,
+  tableFromIPC,
+  tableToIPC,
+  Utf8,
+  vectorFromArray,
+} from 'apache-arrow';
 import ExcelJS from 'exceljs';
+import { decompress as zstdDecompress } from 'fzstd';
+import lz4 from 'lz4js';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const demo = join(root, 'fixtures/demo/repairs-delivery.csv');
@@ -72,6 +85,33 @@ const accented = lines
   .map((l, i) => (i === 0 ? l : l.replace(/,(amber|birch|cobalt|dune|ember|fern),/, (_, n) => `,${accents[n]},`)));
 writeFileSync(join(out, 'accents.csv'), `${accented.join('\n')}\n`);
 writeFileSync(join(out, 'accents.latin1.csv'), Buffer.from(`${accented.join('\n')}\n`, 'latin1'));
+
+// an export from a Windows spreadsheet: windows-1252 with CRLF line ends, and the same in UTF-8;
+// ’ € – are bytes 0x80-0x9F there, which Latin-1 leaves as control characters
+/** @type {Record<string, string>} */
+const win = { amber: 'ámber’s', birch: 'birch – north', dune: 'düne €', fern: 'fougère' };
+/** @type {Record<string, string>} */
+const winKinds = { clothing: 'children’s clothing', lamp: 'lamp – desk', other: 'other (€ 5 flat)' };
+const winLines = lines
+  .slice(0, 1201)
+  .map((l, i) =>
+    i === 0
+      ? l
+      : l.replace(/,(amber|birch|dune|fern),/, (_, n) => `,${win[n]},`).replace(/,(clothing|lamp|other),/, (_, k) => `,${winKinds[k]},`),
+  );
+/** @type {Record<string, number>} the windows-1252 bytes of the characters above that Latin-1 lacks */
+const cp1252 = { '€': 0x80, '’': 0x92, '–': 0x96 };
+/** @param {string} text */
+const toCp1252 = (text) =>
+  Buffer.from(
+    [...text].map((c) => {
+      const code = cp1252[c] ?? c.charCodeAt(0);
+      if (code > 0xff) throw new Error(`no windows-1252 byte for ${c}`);
+      return code;
+    }),
+  );
+writeFileSync(join(out, 'windows.csv'), `${winLines.join('\r\n')}\r\n`);
+writeFileSync(join(out, 'windows.cp1252.csv'), toCp1252(`${winLines.join('\r\n')}\r\n`));
 
 // unreadable lines: 60 records (one of them with a quoted field) with broken lines between them
 const quoted = lines.find((l) => l.includes('"W-014 "'));
@@ -131,6 +171,65 @@ for (const { column_name: name, column_type: type } of types) {
 }
 writeFileSync(join(out, 'repairs.arrow'), tableToIPC(new Table(vectors), 'file'));
 writeFileSync(join(out, 'repairs.arrows'), tableToIPC(new Table(vectors), 'stream'));
+
+// ---- compressed Arrow: LZ4 frame (the Feather writers' default) and zstd ----------------------
+/**
+ * A zstd frame (RFC 8878) of raw and RLE blocks only: fzstd decompresses but cannot compress,
+ * and Node 20's zlib has no zstd. Runs of 8 or more equal bytes become RLE blocks, so validity
+ * bitmaps and repeated values shrink and the writer keeps the compressed buffer; other bytes
+ * are stored in raw blocks. A valid frame any zstd decoder reads, though not what zstd writes.
+ * @param {Uint8Array} data
+ */
+function zstdRawFrame(data) {
+  /** @type {number[]} */
+  const bytes = [0x28, 0xb5, 0x2f, 0xfd, 0xa0]; // magic; single segment, 4-byte content size
+  for (let k = 0; k < 4; k++) bytes.push((data.length >>> (8 * k)) & 0xff);
+  /** @type {[number, number, number][]} block type (0 raw, 1 RLE), start, length */
+  const blocks = [];
+  const MAX = 1 << 17; // a block holds at most 128 KiB
+  let raw = 0;
+  let i = 0;
+  while (i < data.length) {
+    let j = i;
+    while (j < data.length && data[j] === data[i] && j - i < MAX) j++;
+    if (j - i >= 8) {
+      for (let r = raw; r < i; r += MAX) blocks.push([0, r, Math.min(MAX, i - r)]);
+      blocks.push([1, i, j - i]);
+      raw = j;
+    }
+    i = j;
+  }
+  for (let r = raw; r < data.length; r += MAX) blocks.push([0, r, Math.min(MAX, data.length - r)]);
+  if (!blocks.length) blocks.push([0, 0, 0]);
+  blocks.forEach(([type, start, length], b) => {
+    const header = (length << 3) | (type << 1) | (b === blocks.length - 1 ? 1 : 0);
+    bytes.push(header & 0xff, (header >>> 8) & 0xff, (header >>> 16) & 0xff);
+    if (type === 1) bytes.push(data[start]);
+    else for (let k = start; k < start + length; k++) bytes.push(data[k]);
+  });
+  return Uint8Array.from(bytes);
+}
+// decoded buffers copied to offset 0, as src/source/formats/arrow-codecs.ts does (8-byte alignment)
+compressionRegistry.set(CompressionType.LZ4_FRAME, { encode: (d) => lz4.compress(d), decode: (d) => lz4.decompress(d).slice() });
+compressionRegistry.set(CompressionType.ZSTD, { encode: zstdRawFrame, decode: (d) => zstdDecompress(d).slice() });
+const plain = new Table(vectors);
+// three record batches, so that more than one compressed body is read
+const batched = new Table([plain.slice(0, 400), plain.slice(400, 800), plain.slice(800)].flatMap((t) => t.batches));
+/** @type {[string, 'file' | 'stream', CompressionType][]} */
+const compressed = [
+  ['repairs-lz4.feather', 'file', CompressionType.LZ4_FRAME],
+  ['repairs-zstd.arrows', 'stream', CompressionType.ZSTD],
+];
+for (const [name, kind, compressionType] of compressed) {
+  const Writer = kind === 'file' ? RecordBatchFileWriter : RecordBatchStreamWriter;
+  const bytes = new Writer({ compressionType }).writeAll(batched).toUint8Array(true);
+  // read back with the decoders: the same values as the plain table
+  const back = tableFromIPC(bytes);
+  if (back.numRows !== plain.numRows || JSON.stringify(back.toArray()) !== JSON.stringify(plain.toArray())) {
+    throw new Error(`${name}: does not read back as written`);
+  }
+  writeFileSync(join(out, name), bytes);
+}
 con.closeSync();
 inst.closeSync();
 

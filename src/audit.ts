@@ -89,6 +89,7 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
     const prefetch =
       unit && wantsUnitIds(catalogue, roles) ? () => void early.push(lookup.unitIds(unit).catch(() => undefined)) : undefined;
     const profile = await buildProfile(source, roles, { onScanned: prefetch });
+    if (profile.rows === 0) throw noRecords(path, profile.rejected);
     if (options.strict && profile.rejected.length) {
       const first = profile.rejected[0];
       throw new InputError(
@@ -115,6 +116,7 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
         rowsRejected: profile.rejected.length,
         columns: profile.header,
         ...(source.reading && { reading: options.includeValues === false ? withheldWords(source.reading) : source.reading }),
+        ...(source.notes?.length && { notes: [...source.notes] }),
       },
       roles,
       groups: groupSummary(profile),
@@ -164,4 +166,16 @@ function groupSummary(profile: Profile): Report['groups'] {
       ? { min: sorted[0], median: median(sorted), mean: sizes.reduce((a, b) => a + b, 0) / count, max: sorted[count - 1] }
       : { min: 0, median: 0, mean: 0, max: 0 },
   };
+}
+
+/**
+ * A delivery without a record has nothing to audit: an input error (exit 2) rather than findings
+ * about zero groups, so that the sender learns the file is empty of records, or unreadable.
+ */
+function noRecords(path: string, rejected: readonly { line: number; reason: string }[]): InputError {
+  if (!rejected.length) return new InputError(`${path}: no records (a header and nothing under it)`);
+  const first = rejected[0];
+  return new InputError(
+    `${path}: no records: none of its ${rejected.length} line(s) under the header could be read (first: line ${first.line}, ${first.reason})`,
+  );
 }

@@ -123,7 +123,7 @@ export function buildProgram(): Command {
     )
     .addOption(new Option('--input-format <format>', 'the delivery format (default: from the name and content)').choices(INPUT_FORMATS))
     .addOption(new Option('--encoding <encoding>', 'text encoding of a CSV/TSV delivery').choices(ENCODINGS).default('utf-8'))
-    .option('--sheet <name>', 'Excel: the worksheet to read (default the first)')
+    .option('--sheet <name>', "Excel: the worksheet to read (default: the first whose header holds the role map's columns)")
     .option(
       '--decimal-comma',
       'CSV/TSV: numbers are written with a decimal comma (12,5); by default read so when the fields are not separated by commas ' +

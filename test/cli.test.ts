@@ -101,17 +101,13 @@ describe.concurrent('nestready audit: exit codes', () => {
     expect(never.code).toBe(0);
   });
 
-  it('a header-only CSV (no records, no groups) does not crash: few-groups blocker, exit 1', async ({ expect }) => {
+  it('a header-only CSV (no records) is an input error saying so: exit 2, one line naming the file', async ({ expect }) => {
     const csv = file('header-only.csv', 'g,y\n');
     const roles = file('header-only.yaml', 'group: g\noutcome: y\n');
     const run = await nestready('audit', csv, '-r', roles, '--format', 'json');
-    expect(run.code, run.stderr).toBe(1);
-    expect(run.stderr).toBe('');
-    const report = JSON.parse(run.stdout) as Report;
-    expect(report.input).toMatchObject({ rows: 0, rowsRejected: 0, columns: ['g', 'y'] });
-    expect(report.groups).toEqual({ count: 0, singletons: 0, sizes: { min: 0, median: 0, mean: 0, max: 0 } });
-    expect(report.findings.map((f) => [f.rule, f.severity, f.count])).toEqual([['few-groups', 'blocker', 0]]);
-    expect(report.verdict).toBe('not-ready');
+    expect(run.code, run.stderr).toBe(2);
+    expect(run.stdout).toBe('');
+    expect(run.stderr).toBe(`nestready: ${csv}: no records (a header and nothing under it)\n`);
   });
 });
 

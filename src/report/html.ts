@@ -55,7 +55,7 @@ export async function renderHtml(report: Report): Promise<string> {
 <p class="source">${e(summaryLine(report))}</p>
 ${readingLines(report.input.reading)
   .map((r) => `<p class="source">${e(r)}</p>`)
-  .join('\n')}
+  .join('\n')}${(report.input.notes ?? []).map((note) => `\n<p class="source">Note: ${e(note)}</p>`).join('')}
 </div></header>
 <main class="wrap">
 ${verdictHtml(report)}

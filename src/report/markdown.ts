@@ -21,6 +21,7 @@ export function renderMarkdown(report: Report): string {
       (report.input.rowsRejected ? `, ${report.input.rowsRejected} unreadable lines` : '') +
       ` (group ID: ${m(report.roles.group)})`,
     '',
+    ...inputNotes(report),
   );
   out.push(...readingLines(report.input.reading).flatMap((r) => [m(r), '']));
   out.push(
@@ -80,4 +81,9 @@ function table(t: StatTable): string[] {
     ...t.rows.map((r) => `| ${r.map(m).join(' | ')} |`),
     '',
   ];
+}
+
+/** The input section's notes (which Excel sheet was read, …), one paragraph each. */
+function inputNotes(report: Report): string[] {
+  return (report.input.notes ?? []).flatMap((note) => [`Note: ${m(note)}`, '']);
 }

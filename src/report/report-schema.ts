@@ -37,6 +37,7 @@ export const reportSchema = {
         rows: count,
         rowsRejected: count,
         columns: texts,
+        notes: texts,
         reading: {
           description: "how values were read where the delivery's writing asked for it; absent when plainly",
           type: 'object',

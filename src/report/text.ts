@@ -39,6 +39,7 @@ export function renderText(report: Report, options: TextOptions): string {
     ),
   );
   out.push(...readingLines(report.input.reading).map((r) => tone.dim(r)));
+  for (const note of report.input.notes ?? []) out.push(tone.warning(`note: ${note}`));
   out.push('');
   let number = 0;
   for (const severity of SEVERITIES) {

@@ -11,8 +11,11 @@ export const REPORT_SCHEMA = 'nestready/report@1';
 export interface Report {
   schema: typeof REPORT_SCHEMA;
   tool: { name: string; version: string };
-  /** `reading`: how values were read where the delivery's writing asked for it (absent when plainly) */
-  input: { path: string; rows: number; rowsRejected: number; columns: string[]; reading?: ValueReading };
+  /**
+   * `reading`: how values were read where the delivery's writing asked for it (absent when plainly);
+   * `notes`: what the reading of the delivery needs said (which Excel sheet was read, other sheets with its header)
+   */
+  input: { path: string; rows: number; rowsRejected: number; columns: string[]; reading?: ValueReading; notes?: string[] };
   roles: Roles;
   groups: { count: number; singletons: number; sizes: { min: number; median: number; mean: number; max: number } };
   outcomes: Record<string, OutcomeStats>;

@@ -20,7 +20,8 @@ export const STDIN = '-';
 /** Delivery formats read from files (or stdin, see formats/registry.ts); `postgres` is a table or query in a database. */
 export type SourceFormat = InputFormat | 'postgres';
 
-export const ENCODINGS = ['utf-8', 'latin1'] as const;
+/** Text encodings of a CSV/TSV delivery; cp1252 is another name of windows-1252, which latin1 is read as too. */
+export const ENCODINGS = ['utf-8', 'latin1', 'windows-1252', 'cp1252'] as const;
 
 /** Two words of a binary variable read as 1 and 0, as compared (lower case, trimmed), and as written. */
 export interface BinaryWords {
@@ -47,6 +48,8 @@ export interface Source {
   /** what the report names as the input (a file path, "-" for stdin, or a database relation) */
   path: string;
   format: SourceFormat;
+  /** what the report's input section says about the reading (e.g. which Excel sheet was read) */
+  notes?: readonly string[];
   dialect: Dialect;
   header: string[];
   /** how each column is read: text, or double where every value is a number */
@@ -108,7 +111,7 @@ export interface OpenOptions {
   threads?: number;
   /** the format, when not detected from the name and content */
   format?: InputFormat;
-  /** text encoding of CSV/TSV (default UTF-8, with or without a byte-order mark) */
+  /** text encoding of CSV/TSV (default UTF-8, with or without a byte-order mark; see ENCODINGS) */
   encoding?: Encoding;
   /** Excel: the worksheet to read (default the first) */
   sheet?: string;

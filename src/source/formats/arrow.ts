@@ -3,6 +3,7 @@ import type { Field } from 'apache-arrow';
 import { DataType, RecordBatchReader } from 'apache-arrow';
 import { InputError } from '../../errors.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
+import { registerArrowCodecs } from './arrow-codecs.js';
 import type { ReadContext } from './registry.js';
 import type { StagedColumn, StagedValue } from './staged.js';
 import { Stager, stagedLayout } from './staged.js';
@@ -26,8 +27,10 @@ function toValue(v: unknown, type: StagedColumn['type'], temporal: boolean): Sta
 /**
  * Arrow IPC (file or stream format): DuckDB has no Arrow reader built in here, so record
  * batches are read one at a time with apache-arrow and appended to a staged DuckDB table.
+ * Compressed bodies (LZ4 frame, zstd) are decoded by the codecs of arrow-codecs.ts.
  */
 export async function arrowLayout({ engine, file, display, roles, missing }: ReadContext): Promise<DuckLayout> {
+  registerArrowCodecs();
   const handle = await open(file, 'r');
   try {
     let reader;

@@ -7,18 +7,41 @@ import type { Storage } from '../sql.js';
 import type { RejectedLine, SourceFormat } from '../types.js';
 import { decimalCommaColumns } from './decimal-comma.js';
 import type { ReadContext } from './registry.js';
+import type { Utf8Check } from './utf8-check.js';
+import { checkUtf8, encodingAdvice, mostlyNotUtf8 } from './utf8-check.js';
+import { transcodeToUtf8 } from './windows-1252.js';
 
 /**
  * CSV/TSV: one sniff (DESCRIBE) gives the header and DuckDB's type guesses; the delivery is then
  * read with a type per column (text, or DOUBLE where the sniffer saw numbers) and missing tokens
  * as NULL (nullstr). Lines that cannot be read go to DuckDB's rejects table, with line numbers.
+ * A Latin-1 or windows-1252 delivery is read from a UTF-8 copy (windows-1252.ts); a UTF-8 one
+ * whose start is mostly not UTF-8 is an input error naming the likely encoding (utf8-check.ts).
  */
 export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: string | undefined): Promise<DuckLayout> {
-  const { engine, file, display, roles, missing } = ctx;
+  const { engine, display, roles, missing } = ctx;
+  let { file, gzip } = ctx;
+  const encoding = ctx.options.encoding ?? 'utf-8';
+  let utf8: Utf8Check | null = null;
+  if (encoding === 'utf-8') {
+    utf8 = checkUtf8(file, gzip);
+    if (mostlyNotUtf8(utf8)) {
+      throw new InputError(
+        `${display}: not UTF-8 text: ${utf8.invalid} of the ${utf8.nonAscii} lines with non-ASCII bytes in its first megabyte ` +
+          `are invalid UTF-8; ${encodingAdvice(utf8)}`,
+      );
+    }
+  } else {
+    // Latin-1 is read as windows-1252, its superset in practice (WHATWG Encoding Standard): a
+    // byte 0x80-0x9F in a file called Latin-1 is a ’ € –, never a control character
+    const utf8File = await transcodeToUtf8(file, gzip);
+    engine.cleanup.push(utf8File.dir);
+    file = utf8File.file;
+    gzip = false;
+  }
   let options: CsvOptions = {
     ...(delim !== undefined && { delim }),
-    ...(ctx.options.encoding === 'latin1' ? { encoding: 'latin-1' as const } : {}),
-    ...(ctx.gzip && !/\.gz$/i.test(file) ? { compression: 'gzip' as const } : {}),
+    ...(gzip && !/\.gz$/i.test(file) ? { compression: 'gzip' as const } : {}),
     ...(ctx.options.decimalComma && { decimalSeparator: ',' as const }),
   };
   const { all, con } = engine;
@@ -32,7 +55,10 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     Columns: { name: string; type: string }[];
   }>(
     `SELECT Delimiter, Quote, Escape, NewLineDelimiter, SkipRows, Columns FROM ${readCsv(file, missing, 'sniff', options).replace(/^read_csv\(/, 'sniff_csv(')}`,
-  );
+  ).catch((e: Error) => {
+    if (utf8?.invalid) throw new InputError(`${display}: cannot read as ${format.toUpperCase()}: not UTF-8 text; ${encodingAdvice(utf8)}`);
+    throw e;
+  });
   const none = (v: string) => (v === '(empty)' ? '' : v);
   let sniffed = found.Columns.map((c) => ({ column_name: c.name, column_type: c.type }));
   const dialect = {
@@ -91,11 +117,13 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
         seen.add(id);
         // an unterminated quote runs on over the lines after it: they are part of this record
         const spans = Number(r.lines ?? 1) > 1 ? ` (it runs on to line ${Number(r.line) + Number(r.lines) - 1})` : '';
+        // a line that is not UTF-8: say which encoding the file may be in, and the option
+        const advice = utf8 && /not utf-8 encoded/i.test(r.error_message) ? `; ${encodingAdvice(utf8)}` : '';
         out.push({
           line: Number(r.line),
-          reason: r.error_message.split('\n')[0] + spans,
+          reason: r.error_message.split('\n')[0] + spans + advice,
           kind: r.error_type,
-          ...(cast ? { column: r.column_name! } : {}),
+          ...(cast ? { column: cast } : {}),
         });
       }
       return out;

@@ -34,9 +34,20 @@ export function parquetLayout(ctx: ReadContext): Promise<DuckLayout> {
   return typedFileLayout(ctx, `read_parquet(${literal(ctx.file)})`, 'parquet');
 }
 
-/** JSON: an array of objects (or one object per line for NDJSON), gzip allowed. */
-export function jsonLayout(ctx: ReadContext, format: 'json' | 'ndjson'): Promise<DuckLayout> {
+/** A JSON column DuckDB cannot give one scalar type: mixed values (`7` and `"7"`), objects, arrays. */
+const NOT_SCALAR = /^(JSON|STRUCT|MAP|UNION)\b|\[\d*\]$/;
+
+/**
+ * JSON: an array of objects (or one object per line for NDJSON), gzip allowed. A column that
+ * mixes numbers and strings (or holds objects or arrays) is typed JSON by the reader, whose text
+ * keeps the quotes of a string (`"7"` beside `7`): such columns are read as VARCHAR, which gives
+ * a string's content and a number's text, as a CSV of the same records holds them.
+ */
+export async function jsonLayout(ctx: ReadContext, format: 'json' | 'ndjson'): Promise<DuckLayout> {
   const f = format === 'ndjson' ? 'newline_delimited' : 'auto';
-  const reader = `read_json(${literal(ctx.file)}, format = '${f}', records = true${ctx.gzip ? ", compression = 'gzip'" : ''})`;
-  return typedFileLayout(ctx, reader, format);
+  const args = `${literal(ctx.file)}, format = '${f}', records = true${ctx.gzip ? ", compression = 'gzip'" : ''}`;
+  const described = await ctx.engine.all<{ column_name: string; column_type: string }>(`DESCRIBE SELECT * FROM read_json(${args})`);
+  if (!described.some((d) => NOT_SCALAR.test(d.column_type))) return typedFileLayout(ctx, `read_json(${args})`, format);
+  const columns = described.map((d) => `${literal(d.column_name)}: ${literal(NOT_SCALAR.test(d.column_type) ? 'VARCHAR' : d.column_type)}`);
+  return typedFileLayout(ctx, `read_json(${args}, columns = {${columns.join(', ')}})`, format);
 }

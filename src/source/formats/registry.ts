@@ -73,7 +73,9 @@ const FORMAT_LIST = [
     options: ['encoding'],
     hints: (head: Buffer) => ({ delimiter: delimiterHint(head.toString('latin1')) }),
     readBy: "DuckDB's CSV reader",
-    notes: 'delimiter and quoting sniffed; UTF-8 with or without a byte-order mark, or Latin-1 with `--encoding latin1`',
+    notes:
+      'delimiter and quoting sniffed; UTF-8 with or without a byte-order mark, or windows-1252 with `--encoding windows-1252` ' +
+      '(alias `cp1252`; `latin1` is read as windows-1252, its superset)',
     read: async (ctx: ReadContext): Promise<DuckLayout> => (await import('./csv.js')).csvLayout(ctx, 'csv', ctx.delimiter),
   },
   {
@@ -111,7 +113,7 @@ const FORMAT_LIST = [
     gzip: false,
     options: [],
     readBy: 'apache-arrow, batch by batch into DuckDB',
-    notes: 'file or stream format',
+    notes: 'file or stream format (Feather v2 is the file format); LZ4-frame or zstd compressed bodies too',
     read: async (ctx: ReadContext): Promise<DuckLayout> => (await import('./arrow.js')).arrowLayout(ctx),
   },
   {
@@ -144,7 +146,9 @@ const FORMAT_LIST = [
     gzip: false,
     options: ['sheet'],
     readBy: 'exceljs, streamed row by row into DuckDB',
-    notes: 'the first sheet, or `--sheet NAME`; row 1 is the header; empty rows are not records',
+    notes:
+      "the sheet `--sheet NAME`, else the first whose header holds the role map's columns (named as the workbook names it); " +
+      'its first row is the header; empty rows are not records',
     read: async (ctx: ReadContext): Promise<DuckLayout> => (await import('./xlsx.js')).xlsxLayout(ctx),
   },
 ] as const satisfies readonly FormatSpec[];
@@ -157,7 +161,9 @@ export const FORMATS: readonly (FormatSpec & { name: InputFormat })[] = FORMAT_L
 export const INPUT_FORMATS: readonly InputFormat[] = FORMATS.map((f) => f.name);
 
 export function formatSpec(name: InputFormat): FormatSpec {
-  return FORMATS.find((f) => f.name === name)!;
+  const spec = FORMATS.find((f) => f.name === name);
+  if (!spec) throw new Error(`unknown input format ${name}`);
+  return spec;
 }
 
 /** The CLI's words for the delivery argument: the formats it reads and which may be compressed. */

@@ -5,6 +5,8 @@ import type { RejectedLine } from '../types.js';
 import type { ReadContext } from './registry.js';
 import type { StagedColumn, StagedValue } from './staged.js';
 import { Stager, stagedLayout } from './staged.js';
+import type { SheetEntry } from './xlsx-sheets.js';
+import { roleColumns, workbookSheets } from './xlsx-sheets.js';
 
 /** A cell's value as the text a CSV export of the sheet would hold (numbers stay numbers). */
 export function cellText(v: unknown): string | number | null {
@@ -26,66 +28,160 @@ export function cellText(v: unknown): string | number | null {
   return String(v);
 }
 
+/** One worksheet as the streaming reader met it: its name and header, and whether it was staged. */
+interface SheetSeen {
+  name: string;
+  header: string[] | null;
+}
+
+/** The header of a sheet: its first non-empty row, blank cells named by position. */
+function headerOf(values: (string | number | null)[]): string[] {
+  return values.map((v, i) => (v === null || v === '' ? `column${i}` : String(v)));
+}
+
 /**
- * Excel .xlsx: the first worksheet (or the one named), streamed row by row with exceljs and
- * appended to a staged DuckDB table as text; the first row is the header. A row with values
- * beyond the header's last column is rejected (with its row number, the header being row 1);
- * empty rows are not records.
+ * Excel .xlsx: one worksheet, streamed row by row with exceljs and appended to a staged DuckDB
+ * table as text; its first non-empty row is the header. The sheet is the one named (`--sheet`),
+ * else the first whose header holds every column the role map names (a read-me sheet before the
+ * data is passed over), else the sheet whose header holds most of them, so that the check of the
+ * header against the role map lists a data sheet's header. Sheet names are the workbook's own
+ * (xlsx-sheets.ts). The report's input notes say which sheet was read when it is not the
+ * first, and which other sheets have the same header (data possibly split over sheets). A row
+ * with values beyond the header's last column is rejected (with its row number, the header being
+ * row 1); empty rows are not records.
  */
-export async function xlsxLayout({ engine, file, display, roles, missing, options }: ReadContext): Promise<DuckLayout> {
-  const { sheet } = options;
+export async function xlsxLayout(ctx: ReadContext): Promise<DuckLayout> {
+  const { display, roles, options } = ctx;
+  const named = workbookSheets(ctx.file);
+  const wanted = roleColumns(roles);
+  const holds = (header: readonly string[]) => wanted.filter((c) => header.includes(c)).length;
+  let pick: (name: string, header: string[]) => boolean =
+    options.sheet !== undefined ? (name) => name === options.sheet : (_, header) => holds(header) === wanted.length;
+  let read = await readSheet(ctx, named, pick);
+  const order = named.length ? named.map((s) => s.name) : read.seen.map((s) => s.name);
+  if (options.sheet !== undefined && !read.chosen) {
+    throw new InputError(`${display}: no worksheet named "${options.sheet}" (sheets: ${order.join(', ') || 'none'})`);
+  }
+  if (!read.chosen) {
+    // no sheet holds the role map's columns: the one nearest to it, for the header check's message
+    const candidates = read.seen.filter((s) => s.header);
+    if (!candidates.length) throw new InputError(`${display}: the workbook's sheets are empty (no header, no records)`);
+    const rank = (s: SheetSeen) => order.indexOf(s.name);
+    const nearest = candidates.reduce((a, b) =>
+      holds(b.header ?? []) > holds(a.header ?? []) || (holds(b.header ?? []) === holds(a.header ?? []) && rank(b) < rank(a)) ? b : a,
+    );
+    pick = (name) => name === nearest.name;
+    read = await readSheet(ctx, named, pick);
+  }
+  const chosen = read.chosen as SheetSeen & { header: string[] };
+  const notes: string[] = [];
+  if (options.sheet === undefined && order.length > 1 && chosen.name !== order[0]) {
+    notes.push(`sheet "${chosen.name}" read: the first whose header holds the role map's columns (sheets: ${order.join(', ')})`);
+  }
+  const same = read.seen.filter((s) => s !== chosen && s.header && s.header.join('\u0000') === chosen.header.join('\u0000'));
+  if (same.length) {
+    notes.push(
+      `sheet(s) ${same.map((s) => `"${s.name}"`).join(', ')} have the same header as "${chosen.name}": the data may be split ` +
+        `over sheets, and only "${chosen.name}" was read (--sheet NAME reads another)`,
+    );
+  }
+  if (!read.columns) throw new InputError(`${display}: the worksheet "${chosen.name}" is empty (no header, no records)`);
+  const layout = stagedLayout(display, 'xlsx', read.columns, roles, ctx.missing, read.rejected);
+  return notes.length ? { ...layout, notes } : layout;
+}
+
+/**
+ * Stream every sheet of the workbook (to its end, so that exceljs deletes the temp files it
+ * spools sheets to) and stage the first one `pick` takes, from its header on.
+ */
+async function readSheet(
+  { engine, file, display }: ReadContext,
+  named: readonly SheetEntry[],
+  pick: (name: string, header: string[]) => boolean,
+): Promise<{ seen: SheetSeen[]; chosen: SheetSeen | null; columns: StagedColumn[] | null; rejected: RejectedLine[] }> {
   const workbook = new ExcelJS.stream.xlsx.WorkbookReader(file, {
     worksheets: 'emit',
     sharedStrings: 'cache',
     styles: 'cache',
     hyperlinks: 'ignore',
-    entries: 'ignore',
+    entries: 'emit',
   });
-  const seen: string[] = [];
-  let columns: StagedColumn[] | null = null;
-  let stager: Stager | null = null;
-  const rejected: RejectedLine[] = [];
+  // the zip entry of the sheet being emitted: exceljs announces it just before the sheet
+  let entry = '';
+  (workbook as unknown as NodeJS.EventEmitter).on('entry', (e: { type: string; id: string }) => {
+    if (e.type === 'worksheet') entry = `xl/worksheets/sheet${e.id}.xml`;
+  });
+  const seen: SheetSeen[] = [];
+  let chosen: SheetSeen | null = null;
+  let target: SheetTable | null = null;
   try {
     for await (const ws of workbook) {
-      const name = (ws as unknown as { name: string }).name;
-      seen.push(name);
-      const wanted = sheet === undefined || name === sheet;
+      const sheet: SheetSeen = {
+        name: named.find((s) => s.path === entry)?.name ?? (ws as unknown as { name: string }).name,
+        header: null,
+      };
+      seen.push(sheet);
       for await (const row of ws) {
-        if (!wanted) continue; // drain a sheet that is not read
-        const values = (row.values as unknown[]).slice(1).map(cellText);
-        while (values.length && (values[values.length - 1] === null || values[values.length - 1] === '')) values.pop();
+        if (sheet.header && sheet !== chosen) continue; // drain a sheet that is not read
+        const values = rowValues(row.values as unknown[]);
         if (!values.length) continue;
-        if (!columns) {
-          columns = values.map((v, i) => ({ name: v === null || v === '' ? `column${i}` : String(v), type: 'VARCHAR' as const }));
-          stager = new Stager(engine, columns);
-          await stager.open();
-          continue;
+        if (sheet.header) target?.add(values, row.number);
+        else {
+          sheet.header = headerOf(values);
+          if (chosen || !pick(sheet.name, sheet.header)) continue;
+          chosen = sheet;
+          target = new SheetTable(engine, sheet.header);
+          await target.stager.open();
         }
-        if (values.length > columns.length) {
-          rejected.push({
-            line: row.number,
-            kind: 'TOO MANY COLUMNS',
-            reason: `Expected Number of Columns: ${columns.length} Found: ${values.length}`,
-          });
-          continue;
-        }
-        const out: StagedValue[] = columns.map((_, i) => {
-          const v = values[i];
-          return v === undefined || v === null ? null : typeof v === 'number' ? String(v) : v;
-        });
-        stager!.append(out);
       }
-      if (wanted) break;
     }
   } catch (e) {
-    stager?.close();
+    target?.stager.close();
     if (e instanceof InputError) throw e;
     throw new InputError(`${display}: cannot read as Excel .xlsx (${(e as Error).message.split('\n')[0]})`);
   }
-  stager?.close();
-  if (sheet !== undefined && !seen.includes(sheet)) {
-    throw new InputError(`${display}: no worksheet named "${sheet}" (sheets: ${seen.join(', ') || 'none'})`);
+  target?.stager.close();
+  return { seen, chosen, columns: target?.columns ?? null, rejected: target?.rejected ?? [] };
+}
+
+/** A row's cells as text or numbers, without the empty cells after its last value. */
+function rowValues(cells: unknown[]): (string | number | null)[] {
+  const values = cells.slice(1).map(cellText);
+  while (values.length && (values[values.length - 1] === null || values[values.length - 1] === '')) values.pop();
+  return values;
+}
+
+/** The staged table of the sheet read: its columns, and the rows that have more cells than the header. */
+class SheetTable {
+  readonly columns: StagedColumn[];
+  readonly stager: Stager;
+  readonly rejected: RejectedLine[] = [];
+  constructor(engine: ReadContext['engine'], header: readonly string[]) {
+    this.columns = uniqueNames(header).map((name) => ({ name, type: 'VARCHAR' as const }));
+    this.stager = new Stager(engine, this.columns);
   }
-  if (!columns) throw new InputError(`${display}: the worksheet "${seen[0] ?? sheet ?? ''}" is empty (no header, no records)`);
-  return stagedLayout(display, 'xlsx', columns, roles, missing, rejected);
+
+  add(values: readonly (string | number | null)[], line: number): void {
+    const n = this.columns.length;
+    if (values.length > n) {
+      this.rejected.push({ line, kind: 'TOO MANY COLUMNS', reason: `Expected Number of Columns: ${n} Found: ${values.length}` });
+      return;
+    }
+    const out: StagedValue[] = this.columns.map((_, i) => {
+      const v = values[i];
+      return v === undefined || v === null ? null : typeof v === 'number' ? String(v) : v;
+    });
+    this.stager.append(out);
+  }
+}
+
+/** Header names made unique (a second "note" becomes "note_2"), as a table needs them. */
+function uniqueNames(header: readonly string[]): string[] {
+  const used = new Set<string>();
+  return header.map((h) => {
+    let name = h;
+    for (let k = 2; used.has(name.toLowerCase()); k++) name = `${h}_${k}`;
+    used.add(name.toLowerCase());
+    return name;
+  });
 }

@@ -20,6 +20,8 @@ export interface DuckLayout {
   /** how the reader read values where the file's writing asked for it (decimal commas) */
   reading?: ValueReading;
   rejects(): Promise<RejectedLine[]>;
+  /** what the report's input section should say about the reading (which Excel sheet was read, …) */
+  notes?: string[];
   /** before the views are redefined with columns read as text (CSV: start the rejects log afresh) */
   beforeRetype?(): Promise<void>;
 }

@@ -56,6 +56,7 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
   return {
     path: layout.path,
     format: layout.format,
+    ...(layout.notes?.length && { notes: layout.notes }),
     dialect: duckdb,
     header,
     storage,
