@@ -4,6 +4,7 @@ import { catalogue } from '../rules/index.js';
 import { InputError } from './errors.js';
 import { exitCode } from './grade.js';
 import type { FailOn } from './grade.js';
+import { memorySize, sheetNote } from './cli-options.js';
 import { planOutputs, writeOutput } from './cli-output.js';
 import { startProgress } from './cli-progress.js';
 import { problemsCsv } from './problems/csv.js';
@@ -97,7 +98,7 @@ function buildProgram(): Command {
     .option('--no-values', 'leave raw data values out of the report (IDs and record numbers stay)')
     .option('--color', 'force colour')
     .option('--no-color', 'no colour')
-    .option('--memory-limit <size>', 'DuckDB memory before it spills to disk', '100MB')
+    .option('--memory-limit <size>', 'DuckDB memory before it spills to disk', memorySize, '100MB')
     .addOption(new Option('--input-format <format>', 'the delivery format (default: from the name and content)').choices(INPUT_FORMATS))
     .addOption(new Option('--encoding <encoding>', 'text encoding of a CSV/TSV delivery').choices(ENCODINGS).default('utf-8'))
     .option('--sheet <name>', 'Excel: the worksheet to read (default the first)')
@@ -109,6 +110,8 @@ function buildProgram(): Command {
       const roles = loadRoles(flags.roles, catalogue, { preset: flags.preset });
       const resolved = await deliveryInput(deliveryArg, flags);
       const delivery = typeof resolved.input === 'string' ? resolved.input : resolved.label;
+      const note = typeof resolved.input === 'string' ? sheetNote(resolved.input, resolved.label, flags.sheet, flags.inputFormat) : null;
+      if (note && !flags.quiet) process.stderr.write(`nestready: ${note}\n`);
       try {
         const stop = startProgress(resolved.label, 'auditing', { quiet: flags.quiet === true });
         // the engine (DuckDB, arquero, stats) loads only for an audit: `rules` and `schema` start fast
