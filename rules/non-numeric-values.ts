@@ -8,6 +8,9 @@ interface Params {
 }
 
 const KINDS: [string, RegExp][] = [
+  // read by some parsers, but no statistic can use them: not numbers here
+  ['non-finite value', /^[-+]?(inf|infinity|nan)$/i],
+  ['out-of-range value', /^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i],
   ['missing code', /^(n\/?a|na|nan|null|none|missing|unknown|unk|-+|\?+|\.|x|\*|not applicable|refused|dk)$/i],
   ['censored value', /^[<>]=?\s*[-+]?\d/],
   ['thousands separator', /^[-+]?\d{1,3}(,\d{3})+(\.\d+)?$/],
@@ -55,7 +58,8 @@ export default defineRule<Params>({
     const findings: FindingDraft[] = [];
     for (const column of profile.header) {
       const col = profile.column(column);
-      if (!col.numericProfiled || col.type === 'categorical' || col.storage !== 'text') continue;
+      // a DOUBLE column holds no text, but may hold ±inf, NaN or overflowing values (not numbers)
+      if (!col.numericProfiled || col.type === 'categorical') continue;
       const count = col.nonMissing - col.numeric;
       if (count <= 0) continue;
       const tokens = await lookup.nonNumericTokens(column);

@@ -47,7 +47,10 @@ export function columnProfile(
   // a declared variable with a few stray tokens ("n/a", "<5") is still numeric; the tokens are
   // reported by their own rule rather than turning the whole column into text
   const isVariable = role === 'outcome' || role === 'level1' || role === 'level2';
-  const mostlyNumeric = numeric > 0 && (numeric === nonMissing || (isVariable && numeric >= 0.95 * nonMissing));
+  // a column read as DOUBLE holds numbers only: ±inf, NaN or an overflowing value in it is listed as
+  // not a number, and does not make the column text (it has no text statistics to read)
+  const mostlyNumeric =
+    (!text && nonMissing > 0) || (numeric > 0 && (numeric === nonMissing || (isVariable && numeric >= 0.95 * nonMissing)));
   const inferred: ValueType = mostlyNumeric ? (zeroOne ? 'binary' : 'numeric') : 'categorical';
   const type = roles.types[name] ?? inferred;
   const asText = (x: number | null) => (x === null ? null : String(x));

@@ -28,9 +28,17 @@ export function numeric(column: string): string {
   return numericExpr(ident(column));
 }
 
-/** The numeric reading of any expression. */
+/**
+ * Beyond this magnitude a value is not read as a number: sums of squares over any delivery must
+ * stay finite (1e308 twice overflows a mean; squares of 1e200 overflow a variance). `inf`, `-inf`
+ * and `nan` are never numbers either: they are listed like other tokens that are not numbers.
+ */
+export const MAX_MAGNITUDE = '1e100';
+
+/** The numeric reading of any expression: NULL unless a finite number within ±MAX_MAGNITUDE. */
 export function numericExpr(expr: string): string {
-  return `TRY_CAST(${expr} AS DOUBLE)`;
+  // NaN compares above every number in DuckDB, so `abs(x) < bound` is false for it as for ±inf
+  return `(CASE WHEN abs(TRY_CAST(${expr} AS DOUBLE)) < ${MAX_MAGNITUDE} THEN TRY_CAST(${expr} AS DOUBLE) END)`;
 }
 
 /** The dialect the sniffer found, passed back so that no later read sniffs again. */
