@@ -12,7 +12,7 @@ import type { Report } from './report/types.js';
 import type { AnyRule } from './rules/define.js';
 import { runRules } from './rules/engine.js';
 import { createLookup } from './rules/lookup.js';
-import { InputError } from './errors.js';
+import { InputError, readError } from './errors.js';
 import { openDelivery } from './source/open.js';
 import type { Encoding, InputFormat, Source } from './source/open.js';
 import type { PostgresInput } from './source/postgres.js';
@@ -109,6 +109,8 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
       ...(plots && { plots }),
       rulesRun: rulesRun(catalogue, roles),
     };
+  } catch (e) {
+    throw readError(e, path);
   } finally {
     // look-ups started early are let finish (an error is the rules' to report, if they ask)
     await Promise.all(early);
