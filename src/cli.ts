@@ -1,9 +1,10 @@
 import { rmSync } from 'node:fs';
-import { Command, CommanderError, InvalidArgumentError, Option } from 'commander';
+import { Command, InvalidArgumentError, Option } from 'commander';
 import { catalogue } from '../rules/index.js';
 import { InputError } from './errors.js';
 import { exitCode } from './grade.js';
 import type { FailOn } from './grade.js';
+import { endingFor } from './cli-exit.js';
 import { memorySize, sheetNote } from './cli-options.js';
 import { planOutputs, writeOutput } from './cli-output.js';
 import { startProgress } from './cli-progress.js';
@@ -177,24 +178,8 @@ export async function main(argv: string[]): Promise<void> {
   try {
     await buildProgram().parseAsync(argv);
   } catch (e) {
-    if (e instanceof CommanderError) {
-      // help and version are not errors; commander has already printed its message
-      process.exitCode = e.exitCode === 0 ? 0 : 2;
-      return;
-    }
-    if (e instanceof InputError) {
-      process.stderr.write(`nestready: ${e.message}\n`);
-      process.exitCode = 2;
-      return;
-    }
-    const first = String((e as Error).message ?? e).split('\n')[0];
-    if (/Out of Memory Error/i.test(first)) {
-      // a resource limit the user sets, not a bug: say which option to change
-      process.stderr.write(`nestready: out of memory within --memory-limit (${first}); raise --memory-limit\n`);
-      process.exitCode = 2;
-      return;
-    }
-    process.stderr.write(`nestready: internal error: ${first}\n`);
-    process.exitCode = 3;
+    const ending = endingFor(e);
+    if (ending.line !== null) process.stderr.write(`${ending.line}\n`);
+    process.exitCode = ending.code;
   }
 }
