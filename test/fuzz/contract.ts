@@ -9,6 +9,9 @@ import { audit, exitCode, loadRoles, problemRows, problemsCsv, renderHtml, rende
 import { FORMULA_LEAD, MARKUP } from './gen/cells.js';
 import type { Written } from './write-case.js';
 
+/** The CLI's default --memory-limit: the in-process runs use it too (the library's own default is larger). */
+const CLI_MEMORY_LIMIT = '100MB';
+
 /** What one run of a case gave: its exit code, its error line, its outputs by name. */
 export interface RunResult {
   code: number | null;
@@ -33,13 +36,13 @@ export async function runInProcess(w: Written, wants: Wants): Promise<RunResult>
   const outputs: Record<string, string> = {};
   try {
     const roles = loadRoles(w.roles, catalogue);
-    const report = await audit(w.delivery, roles, { threads: 1, plotData: wants.html && wants.plots });
+    const report = await audit(w.delivery, roles, { threads: 1, memoryLimit: CLI_MEMORY_LIMIT, plotData: wants.html && wants.plots });
     outputs.json = renderJson(report);
     outputs.text = renderText(report, { color: 0 });
     outputs.md = renderMarkdown(report);
     outputs.junit = renderJunit(report, { failOn: 'blocker' });
     if (wants.html) outputs.html = await renderHtml(report);
-    if (wants.problems) outputs.problems = problemsCsv(await problemRows(w.delivery, roles.roles, report.findings, {}));
+    if (wants.problems) outputs.problems = problemsCsv(await problemRows(w.delivery, roles.roles, report.findings, { memoryLimit: CLI_MEMORY_LIMIT }));
     return { code: exitCode(report.findings, 'blocker'), error: null, outputs, rows: { rows: report.input.rows, rejected: report.input.rowsRejected } };
   } catch (e) {
     const ending = endingFor(e);
@@ -103,6 +106,7 @@ export function breaches(run: RunResult, w: Written, records: number | null): st
     if (!text) continue;
     for (const m of MARKUP) if (text.includes(m)) out.push(`raw markup in ${where}: ${m}`);
     if (/(href|src)\s*=\s*["']?\s*javascript:/i.test(text)) out.push(`javascript: URL in a ${where} attribute`);
+    if (where === 'md' && /\]\(\s*javascript:/i.test(text)) out.push('javascript: URL as a Markdown link');
   }
   if (run.outputs.problems) {
     const rows = parse(run.outputs.problems.replace(/^#.*\r?\n?/m, ''), { relax_column_count: true }) as string[][];

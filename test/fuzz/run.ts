@@ -34,6 +34,8 @@ export interface FuzzSummary {
   /** cases whose delivery the test's own writer could not produce (not the tool's failure) */
   unwritable: number;
   byClass: Record<string, number>;
+  /** cases by exit code */
+  byExit: Record<string, number>;
   failures: Failure[];
   /** milliseconds spent writing cases, running them, and running a share a second time */
   timing?: { write: number; run: number; second: number };
@@ -65,7 +67,7 @@ export async function fuzz(options: FuzzOptions): Promise<FuzzSummary> {
   const savedTmp = process.env.TMPDIR;
   // os.tmpdir() reads TMPDIR on every call: the engine's spill directories land in `tmp`
   process.env.TMPDIR = tmp;
-  const summary: FuzzSummary = { cases: 0, viaCli: 0, unwritable: 0, byClass: {}, failures: [] };
+  const summary: FuzzSummary = { cases: 0, viaCli: 0, unwritable: 0, byClass: {}, byExit: {}, failures: [] };
   let seenXlsx = false;
   const waivedXlsx = PENDING_CHECKS.some((p) => p.class === 'xlsx' && p.breach === 'temp files left');
   const timing = { write: 0, run: 0, second: 0 };
@@ -92,12 +94,13 @@ export async function fuzz(options: FuzzOptions): Promise<FuzzSummary> {
       const viaCli = i % options.cliEvery === options.cliEvery - 1;
       // the costly parts on a share of the cases, and always where their check has something to find
       const wants = {
-        html: classes.includes('markup') || i % 10 === 0,
-        plots: i % 20 === 0,
-        problems: classes.includes('formula') || i % 6 === 0,
+        html: classes.includes('markup') || i % 20 === 0,
+        plots: i % 40 === 0,
+        problems: classes.includes('formula') || i % 10 === 0,
       };
-      const run = viaCli ? await runCli(written, dir, tmp) : await runInProcess(written, wants);
+      const run: RunResult = viaCli ? await runCli(written, dir, tmp) : await runInProcess(written, wants);
       if (viaCli) summary.viaCli++;
+      summary.byExit[String(run.code)] = (summary.byExit[String(run.code)] ?? 0) + 1;
       timing.run += performance.now() - t0;
       t0 = performance.now();
       const records = (c.format === 'csv' || c.format === 'tsv') && !c.empty ? c.table.rows.length : null;
@@ -108,7 +111,7 @@ export async function fuzz(options: FuzzOptions): Promise<FuzzSummary> {
       seenXlsx ||= c.format === 'xlsx' && waivedXlsx;
       const left = leftovers(tmp).filter((f) => !(seenXlsx && f.startsWith('tmp-')));
       if (left.length) found.push(`temp files left: ${left.join(', ')}`);
-      if (!viaCli && i % 8 === 0 && run.code !== 3) found.push(...sameOutputs(run, await runInProcess(written, wants)));
+      if (!viaCli && i % 16 === 0 && run.code !== 3) found.push(...sameOutputs(run, await runInProcess(written, wants)));
       timing.second += performance.now() - t0;
       const waived = PENDING_CHECKS.filter((p) => classes.includes(p.class)).map((p) => p.breach);
       found = found.filter((b) => !waived.some((w) => b.startsWith(w)));
