@@ -1,9 +1,16 @@
 /**
  * Classes of generated input that still fail the contract, switched off until their fix lands,
- * each with the reason. The suite prints this list on every run: a class here is not generated,
+ * each with the reason; `a+b` names the cases of both classes. The suite prints this list on every run: a class here is not generated,
  * and says so, rather than being skipped in silence. Empty it as the fixes come in.
  */
-export const PENDING: Record<string, string> = {};
+export const PENDING: Record<string, string> = {
+  'mixed-line-ends':
+    'a CSV/TSV whose lines end in both LF and CRLF is refused: "cannot read as CSV (Invalid Input Error: Error when ' +
+    'sniffing file)" (src/source: DuckDB\'s sniffer; e.g. "g,y\\n1,2\\r\\n1,3\\n2,4\\n2,5\\n")',
+  'ndjson+problem-rows':
+    'problemRows() runs out of memory on NDJSON of a few dozen records at the CLI\'s 100MB (issue 11 item 4, src/source ' +
+    'and src/problems), and its error does not name the file (problemRows does not pass errors through readError)',
+};
 
 /**
  * Checks not applied to one class of case, with the reason: the class is still generated and

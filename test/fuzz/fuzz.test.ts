@@ -23,7 +23,7 @@ it(`keeps the contract on ${runs} generated deliveries and role maps (seed ${see
   console.log(
     `fuzz: ${summary.cases} cases (${summary.viaCli} through the CLI, ${summary.unwritable} not writable by the generator) in ` +
       `${((Date.now() - started) / 1000).toFixed(1)} s, ${summary.failures.length} failing\n` +
-      `  exit codes: ${JSON.stringify(summary.byExit)}\n  classes: ${JSON.stringify(summary.byClass)}\n  ms: ${JSON.stringify(summary.timing, (_, v) => (typeof v === 'number' ? Math.round(v) : v))}` +
+      `  exit codes: ${JSON.stringify(summary.byExit)}\n  input errors: ${JSON.stringify(summary.inputErrors, null, 1)}\n  classes: ${JSON.stringify(summary.byClass)}\n  ms: ${JSON.stringify(summary.timing, (_, v) => (typeof v === 'number' ? Math.round(v) : v))}` +
       (summary.failures.length ? `\n  failures by breach: ${JSON.stringify(byBreach)}\n  failures by class: ${JSON.stringify(byClass)}` : ''),
   );
   expect(summary.failures.slice(0, 20)).toEqual([]);

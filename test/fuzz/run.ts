@@ -36,13 +36,28 @@ export interface FuzzSummary {
   byClass: Record<string, number>;
   /** cases by exit code */
   byExit: Record<string, number>;
+  /** input errors (exit 2) by kind */
+  inputErrors: Record<string, number>;
   failures: Failure[];
   /** milliseconds spent writing cases, running them, and running a share a second time */
   timing?: { write: number; run: number; second: number };
 }
 
+/** Damage that entitles the tool to refuse a delivery (exit 2); without any, it must read it. */
+const REFUSABLE = ['empty-file', 'header-only', 'ragged-rows', 'nul-byte', 'invalid-utf8', 'json-duplicate-key', 'duplicate-header'];
+
+/** A case the tool must audit: a valid role map and none of the damage above (hostile values are data). */
+function wellFormed(classes: readonly string[]): boolean {
+  return !classes.some((k) => REFUSABLE.includes(k) || k.startsWith('roles:'));
+}
+
+/** Whether a case is of a pending class: `a+b` in PENDING names the cases of both classes a and b. */
+function isPending(classes: readonly string[]): boolean {
+  return Object.keys(PENDING).some((key) => key.split('+').every((k) => classes.includes(k)));
+}
+
 /** A case of an enabled class: a pending class is not generated. */
-const enabled = fuzzCase.filter((c) => !classesOf(c).some((k) => k in PENDING));
+const enabled = fuzzCase.filter((c) => !isPending(classesOf(c)));
 
 /** The case of a seed and index: the same on every machine, so a failure can be rerun alone. */
 export function caseAt(seed: number, index: number): FuzzCase {
@@ -67,7 +82,7 @@ export async function fuzz(options: FuzzOptions): Promise<FuzzSummary> {
   const savedTmp = process.env.TMPDIR;
   // os.tmpdir() reads TMPDIR on every call: the engine's spill directories land in `tmp`
   process.env.TMPDIR = tmp;
-  const summary: FuzzSummary = { cases: 0, viaCli: 0, unwritable: 0, byClass: {}, byExit: {}, failures: [] };
+  const summary: FuzzSummary = { cases: 0, viaCli: 0, unwritable: 0, byClass: {}, byExit: {}, inputErrors: {}, failures: [] };
   let seenXlsx = false;
   const waivedXlsx = PENDING_CHECKS.some((p) => p.class === 'xlsx' && p.breach === 'temp files left');
   const timing = { write: 0, run: 0, second: 0 };
@@ -96,15 +111,22 @@ export async function fuzz(options: FuzzOptions): Promise<FuzzSummary> {
       const wants = {
         html: classes.includes('markup') || i % 20 === 0,
         plots: i % 40 === 0,
-        problems: classes.includes('formula') || i % 10 === 0,
+        problems: classes.includes('problem-rows'),
       };
       const run: RunResult = viaCli ? await runCli(written, dir, tmp) : await runInProcess(written, wants);
       if (viaCli) summary.viaCli++;
       summary.byExit[String(run.code)] = (summary.byExit[String(run.code)] ?? 0) + 1;
+      if (run.code === 2 && run.error) {
+        // the kind of input error: the line without the case's paths, positions and details
+        const kind = run.error.replace(/^nestready: /, '').replace(/\S*(delivery\.[a-z.]+|roles\.yaml)(:\d+:\d+)?/g, '$1').replace(/\s*\(.*$|".*$/, '').slice(0, 70);
+        summary.inputErrors[kind] = (summary.inputErrors[kind] ?? 0) + 1;
+        if (process.env.FUZZ_VERBOSE) console.log(`fuzz: case ${i} [${classes.join(' ')}]: ${run.error.slice(0, 300)}`);
+      }
       timing.run += performance.now() - t0;
       t0 = performance.now();
       const records = (c.format === 'csv' || c.format === 'tsv') && !c.empty ? c.table.rows.length : null;
       let found = breaches(run, written, records);
+      if (run.code === 2 && wellFormed(classes)) found.push(`a well-formed delivery refused: ${run.error}`);
       if (digests(written).join() !== before.join()) found.push('an input file changed');
       // exceljs's spooled worksheets (tmp-*) may appear after the read returned, during a later case:
       // waived for all cases once an xlsx case ran (PENDING_CHECKS); the engine's own files are not

@@ -18,6 +18,8 @@ export interface FuzzCase {
   json?: JsonDamage;
   /** the delivery is an empty file (0 bytes) */
   empty: boolean;
+  /** collect the problem rows too (always for a case with formula-leading cells) */
+  problems: boolean;
   roles: { fault: RoleFault; yaml: string };
 }
 
@@ -41,11 +43,13 @@ export function classesOf(c: FuzzCase): string[] {
   if (new Set(c.table.header).size < c.table.header.length) out.push('duplicate-header');
   if (c.table.header.some((h) => !/^[a-z]$/.test(h))) out.push('odd-column-name');
   if (cells.some((v) => (NON_FINITE as readonly string[]).includes(v))) out.push('non-finite');
-  if (cells.some((v) => MARKUP.some((m) => v === m) || v.startsWith('javascript:'))) out.push('markup');
+  const names = [...cells, ...c.table.header];
+  if (names.some((v) => MARKUP.some((m) => v === m) || v.startsWith('javascript:'))) out.push('markup');
   // a negative number is no formula (the problem rows still quote it: that check reads FORMULA_LEAD)
   if (cells.some((v) => FORMULA_LEAD.test(v) && !/^-[\d.]/.test(v))) out.push('formula');
   if (cells.some((v) => v.length >= 500)) out.push('long-field');
   if (c.roles.fault !== 'valid') out.push(`roles:${c.roles.fault}`);
+  if (c.problems || out.includes('formula')) out.push('problem-rows');
   return out;
 }
 
@@ -56,15 +60,17 @@ export const fuzzCase: fc.Arbitrary<FuzzCase> = fc
     kind: fc.constantFrom(...HOSTILE_KINDS),
     oddNames: fc.oneof({ weight: 4, arbitrary: fc.constant(false) }, { weight: 1, arbitrary: fc.constant(true) }),
     empty: fc.oneof({ weight: 40, arbitrary: fc.constant(false) }, { weight: 1, arbitrary: fc.constant(true) }),
+    problems: fc.oneof({ weight: 9, arbitrary: fc.constant(false) }, { weight: 1, arbitrary: fc.constant(true) }),
     text: textDamage,
     json: jsonDamage,
   })
-  .chain(({ format, kind, oddNames, empty, text, json }) =>
+  .chain(({ format, kind, oddNames, empty, problems, text, json }) =>
     table(kind, oddNames).chain((t) =>
       roleMap(t).map((roles) => ({
         format,
         table: t,
         empty,
+        problems,
         roles,
         ...(format === 'csv' || format === 'tsv' ? { text: { ...text, ...(format === 'tsv' && { delim: '\t' as const }) } } : {}),
         ...(format === 'json' || format === 'ndjson' ? { json } : {}),
