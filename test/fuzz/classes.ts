@@ -1,7 +1,8 @@
 /**
  * Classes of generated input that still fail the contract, switched off until their fix lands,
- * each with the reason; `a+b` names the cases of both classes. The suite prints this list on every run: a class here is not generated,
- * and says so, rather than being skipped in silence. Empty it as the fixes come in.
+ * each with the reason; `a+b` names the cases of both classes. The suite prints this list on
+ * every run: a class here is not generated, and says so, rather than being skipped in silence.
+ * Empty it as the fixes come in.
  */
 export const PENDING: Record<string, string> = {
   'mixed-line-ends':
