@@ -1,3 +1,4 @@
+import { readError } from '../errors.js';
 import { catalogue } from '../../rules/index.js';
 import type { Roles } from '../roles/types.js';
 import { resolveParams } from '../rules/engine.js';
@@ -39,7 +40,9 @@ export async function problemRows(path: string, roles: Roles, findings: readonly
   const maxRows = options.maxRows ?? DEFAULT_MAX_ROWS;
   const includeValues = options.includeValues ?? true;
   if (!findings.length) return { rows: [], total: 0, omitted: 0, maxRows };
-  const { source, rejected } = await openSettled(path, roles, options);
+  const { source, rejected } = await openSettled(path, roles, options).catch((e: unknown) => {
+    throw readError(e, path);
+  });
   try {
     const rows: ProblemRow[] = [];
     let total = 0;
@@ -59,6 +62,8 @@ export async function problemRows(path: string, roles: Roles, findings: readonly
       for (const r of found) rows.push(problemRow(f, r, roles, includeValues));
     }
     return { rows, total, omitted: total - rows.length, maxRows };
+  } catch (e) {
+    throw readError(e, path);
   } finally {
     source.close();
   }

@@ -10,7 +10,7 @@ export const PENDING: Record<string, string> = {
     'sniffing file)" (src/source: DuckDB\'s sniffer; e.g. "g,y\\n1,2\\r\\n1,3\\n2,4\\n2,5\\n")',
   'ndjson+problem-rows':
     'problemRows() runs out of memory on NDJSON of a few dozen records at the CLI\'s 100MB (issue 11 item 4, src/source ' +
-    'and src/problems), and its error does not name the file (problemRows does not pass errors through readError)',
+    'and src/problems); since problemRows passes errors through readError, the error at least names the file',
 };
 
 /**

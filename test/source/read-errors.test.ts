@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { InputError, readError } from '../../src/errors.js';
 import { catalogue } from '../../rules/index.js';
 import { audit } from '../../src/audit.js';
+import { problemRows } from '../../src/problems/collect.js';
+import type { Finding } from '../../src/rules/types.js';
 import { parseRoles } from '../../src/roles/load.js';
 import { writeDelivery } from '../helpers/delivery.js';
 
@@ -24,6 +26,20 @@ describe('an error while reading a delivery that opened is an input error naming
     const message = (error as Error).message;
     expect(message).toMatch(new RegExp(`^\\S*${name.replace('.', '\\.')}: cannot read the delivery \\(.*duplicate key "y"\\)$`));
     expect(message).not.toContain('\n');
+  });
+
+  it('the problem-rows read of such a delivery fails alike', async () => {
+    const d = writeDelivery(`${[...records, '{"g":1,"y":2,"y":3}'].join('\n')}\n`, roles, 'd.ndjson');
+    const finding = { rule: 'few-groups', severity: 'warning', message: 'm', rows: [41] } as unknown as Finding;
+    const roleMap = parseRoles('group: g\noutcome: y\n', d.roles, catalogue).roles;
+    const error = await problemRows(d.csv, roleMap, [finding], { threads: 1 })
+      .then(
+        () => null,
+        (e: unknown) => e,
+      )
+      .finally(d.remove);
+    expect(error).toBeInstanceOf(InputError);
+    expect((error as Error).message.startsWith(`${d.csv}: `)).toBe(true);
   });
 
   it('readError passes on what is not the delivery\'s fault', () => {
