@@ -12,6 +12,9 @@ import { writeCase } from './write-case.js';
 export interface FuzzOptions {
   runs: number;
   seed: number;
+  /** run the cases i with i % parts === part only (the suite is split over test files that run in parallel) */
+  part?: number;
+  parts?: number;
   /** every n-th case runs through the CLI process, the rest in-process */
   cliEvery: number;
   /** called after each case (progress) */
@@ -88,7 +91,8 @@ export async function fuzz(options: FuzzOptions): Promise<FuzzSummary> {
   const timing = { write: 0, run: 0, second: 0 };
   const only = process.env.FUZZ_ONLY === undefined ? null : Number(process.env.FUZZ_ONLY);
   try {
-    for (let i = only ?? 0; i < (only === null ? options.runs : only + 1); i++) {
+    const [part, parts] = only === null ? [options.part ?? 0, options.parts ?? 1] : [only, 1];
+    for (let i = part; i < (only === null ? options.runs : only + 1); i += parts) {
       const c = caseAt(options.seed, i);
       const classes = classesOf(c);
       const dir = mkdtempSync(join(root, `case-${i}-`));
