@@ -8,6 +8,7 @@ import type { RunResult } from './contract.js';
 import { classesOf, fuzzCase } from './gen/case.js';
 import type { FuzzCase } from './gen/case.js';
 import { writeCase } from './write-case.js';
+import type { Written } from './write-case.js';
 
 export interface FuzzOptions {
   runs: number;
@@ -96,7 +97,7 @@ export async function fuzz(options: FuzzOptions): Promise<FuzzSummary> {
       const c = caseAt(options.seed, i);
       const classes = classesOf(c);
       const dir = mkdtempSync(join(root, `case-${i}-`));
-      let written;
+      let written: Written;
       let t0 = performance.now();
       try {
         written = await writeCase(c, dir, options.seed + i);
