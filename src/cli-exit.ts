@@ -17,6 +17,8 @@ export function endingFor(e: unknown): Ending {
   if (e instanceof InputError) return { code: 2, line: `nestready: ${e.message}` };
   const first = String((e as Error)?.message ?? e).split('\n')[0];
   // a resource limit the user sets, not a bug: say which option to change
-  if (/Out of Memory Error/i.test(first)) return { code: 2, line: `nestready: out of memory within --memory-limit (${first}); raise --memory-limit` };
+  if (/Out of Memory Error/i.test(first)) {
+    return { code: 2, line: `nestready: out of memory within --memory-limit (${first}); raise --memory-limit` };
+  }
   return { code: 3, line: `nestready: internal error: ${first}` };
 }

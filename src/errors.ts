@@ -36,6 +36,8 @@ export function readError(e: unknown, file: string): unknown {
   if (e instanceof InputError || !(e instanceof Error)) return e;
   const first = e.message.split('\n')[0];
   if (/^Invalid Input Error: /.test(first)) return new InputError(`${file}: cannot read the delivery (${first.slice(21)})`);
-  if (/Out of Memory Error/i.test(first)) return new InputError(`${file}: out of memory within --memory-limit (${first}); raise --memory-limit`);
+  if (/Out of Memory Error/i.test(first)) {
+    return new InputError(`${file}: out of memory within --memory-limit (${first}); raise --memory-limit`);
+  }
   return e;
 }

@@ -32,7 +32,8 @@ describe('--memory-limit', () => {
 
 describe('--sheet on a delivery that is no workbook', () => {
   it('is named in a note, not silently ignored', () => {
-    expect(sheetNote(csv, 'd.csv', 'pupils', undefined)).toBe('d.csv: --sheet "pupils" ignored: the delivery is CSV, not an Excel workbook');
+    const note = 'd.csv: --sheet "pupils" ignored: the delivery is CSV, not an Excel workbook';
+    expect(sheetNote(csv, 'd.csv', 'pupils', undefined)).toBe(note);
     expect(sheetNote(csv, 'd.csv', undefined, undefined)).toBeNull();
     expect(sheetNote(join(dir, 'absent.csv'), 'absent.csv', 'x', undefined)).toBeNull();
   });

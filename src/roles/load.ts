@@ -128,7 +128,8 @@ function validateRuleSettings(
     const { severity, ...params } = setting;
     ajv ??= createAjv();
     const validate = ajv.compile(rule.meta.params);
-    if (!validate(params)) throw schemaError(validate.errors ?? [], locate, ['rules', id], Object.keys((rule.meta.params.properties ?? {}) as object));
+    const names = Object.keys((rule.meta.params.properties ?? {}) as object);
+    if (!validate(params)) throw schemaError(validate.errors ?? [], locate, ['rules', id], names);
     out[id] = { ...(severity && { severity }), ...params };
   }
   return out;

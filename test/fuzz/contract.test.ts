@@ -27,7 +27,8 @@ describe('the fuzz contract flags what it promises to', () => {
     expect(breaches({ ...ok, outputs: { html: '<td>&lt;script&gt;nrFuzz()&lt;/script&gt;</td>' } }, w, null)).toEqual([]);
     expect(breaches({ ...ok, outputs: { md: '[x](javascript:nrFuzz())' } }, w, null)).toEqual(['javascript: URL as a Markdown link']);
     expect(breaches({ ...ok, outputs: { md: 'value javascript:nrFuzz() as text' } }, w, null)).toEqual([]);
-    expect(breaches({ ...ok, outputs: { html: '<a href="javascript:nrFuzz()">x</a>' } }, w, null)).toEqual(['javascript: URL in a html attribute']);
+    const link = '<a href="javascript:nrFuzz()">x</a>';
+    expect(breaches({ ...ok, outputs: { html: link } }, w, null)).toEqual(['javascript: URL in a html attribute']);
   });
 
   it('a formula-leading cell in the problem rows', () => {

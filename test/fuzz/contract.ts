@@ -5,7 +5,18 @@ import { join } from 'node:path';
 import { parse } from 'csv-parse/sync';
 import { catalogue } from '../../rules/index.js';
 import { endingFor } from '../../src/cli-exit.js';
-import { audit, exitCode, loadRoles, problemRows, problemsCsv, renderHtml, renderJson, renderJunit, renderMarkdown, renderText } from '../../src/index.js';
+import {
+  audit,
+  exitCode,
+  loadRoles,
+  problemRows,
+  problemsCsv,
+  renderHtml,
+  renderJson,
+  renderJunit,
+  renderMarkdown,
+  renderText,
+} from '../../src/index.js';
 import { FORMULA_LEAD, MARKUP } from './gen/cells.js';
 import type { Written } from './write-case.js';
 
@@ -42,8 +53,11 @@ export async function runInProcess(w: Written, wants: Wants): Promise<RunResult>
     outputs.md = renderMarkdown(report);
     outputs.junit = renderJunit(report, { failOn: 'blocker' });
     if (wants.html) outputs.html = await renderHtml(report);
-    if (wants.problems) outputs.problems = problemsCsv(await problemRows(w.delivery, roles.roles, report.findings, { memoryLimit: CLI_MEMORY_LIMIT }));
-    return { code: exitCode(report.findings, 'blocker'), error: null, outputs, rows: { rows: report.input.rows, rejected: report.input.rowsRejected } };
+    if (wants.problems) {
+      outputs.problems = problemsCsv(await problemRows(w.delivery, roles.roles, report.findings, { memoryLimit: CLI_MEMORY_LIMIT }));
+    }
+    const rows = { rows: report.input.rows, rejected: report.input.rowsRejected };
+    return { code: exitCode(report.findings, 'blocker'), error: null, outputs, rows };
   } catch (e) {
     const ending = endingFor(e);
     const stack = e instanceof Error && ending.code === 3 ? ` [${e.stack?.split('\n').slice(1, 4).join(' | ')}]` : '';
@@ -54,8 +68,8 @@ export async function runInProcess(w: Written, wants: Wants): Promise<RunResult>
 /** Run a case through the built CLI (bin/nestready.js), every output to a file in `dir`. */
 export function runCli(w: Written, dir: string, tmp: string): Promise<RunResult> {
   const out = (name: string) => join(dir, name);
-  const args = ['bin/nestready.js', 'audit', w.delivery, '-r', w.roles, '-q', '--out', out('r.json'), '--out', out('r.html'), '--out', out('r.md')];
-  args.push('--problems', out('problems.csv'));
+  const args = ['bin/nestready.js', 'audit', w.delivery, '-r', w.roles, '-q'];
+  args.push('--out', out('r.json'), '--out', out('r.html'), '--out', out('r.md'), '--problems', out('problems.csv'));
   return new Promise((resolve, reject) => {
     const child = spawn(process.execPath, args, { env: { ...process.env, TMPDIR: tmp, NO_COLOR: '1' }, stdio: ['ignore', 'pipe', 'pipe'] });
     let stderr = '';
@@ -110,7 +124,9 @@ export function breaches(run: RunResult, w: Written, records: number | null): st
   }
   if (run.outputs.problems) {
     const rows = parse(run.outputs.problems.replace(/^#.*\r?\n?/m, ''), { relax_column_count: true }) as string[][];
-    for (const cell of rows.flat()) if (FORMULA_LEAD.test(cell)) out.push(`formula-leading cell in the problem rows: ${JSON.stringify(cell.slice(0, 40))}`);
+    for (const cell of rows.flat()) {
+      if (FORMULA_LEAD.test(cell)) out.push(`formula-leading cell in the problem rows: ${JSON.stringify(cell.slice(0, 40))}`);
+    }
   }
   if (records !== null && run.rows && run.rows.rows + run.rows.rejected !== records) {
     out.push(`lines not counted: ${records} records written, report has rows ${run.rows.rows} + rejected ${run.rows.rejected}`);

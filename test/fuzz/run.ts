@@ -123,7 +123,11 @@ export async function fuzz(options: FuzzOptions): Promise<FuzzSummary> {
       summary.byExit[String(run.code)] = (summary.byExit[String(run.code)] ?? 0) + 1;
       if (run.code === 2 && run.error) {
         // the kind of input error: the line without the case's paths, positions and details
-        const kind = run.error.replace(/^nestready: /, '').replace(/\S*(delivery\.[a-z.]+|roles\.yaml)(:\d+:\d+)?/g, '$1').replace(/\s*\(.*$|".*$/, '').slice(0, 70);
+        const kind = run.error
+          .replace(/^nestready: /, '')
+          .replace(/\S*(delivery\.[a-z.]+|roles\.yaml)(:\d+:\d+)?/g, '$1')
+          .replace(/\s*\(.*$|".*$/, '')
+          .slice(0, 70);
         summary.inputErrors[kind] = (summary.inputErrors[kind] ?? 0) + 1;
         if (process.env.FUZZ_VERBOSE) console.log(`fuzz: case ${i} [${classes.join(' ')}]: ${run.error.slice(0, 300)}`);
       }

@@ -9,7 +9,8 @@ const seed = Number(process.env.FUZZ_SEED ?? 20261202);
 
 function printPending(): void {
   const pending = Object.entries(PENDING);
-  if (pending.length) console.log(`fuzz: ${pending.length} class(es) not generated until fixed:\n${pending.map(([k, why]) => `  ${k}: ${why}`).join('\n')}`);
+  const list = pending.map(([k, why]) => `  ${k}: ${why}`).join('\n');
+  if (pending.length) console.log(`fuzz: ${pending.length} class(es) not generated until fixed:\n${list}`);
   for (const p of PENDING_CHECKS) console.log(`fuzz: check "${p.breach}" waived for class ${p.class}: ${p.reason}`);
 }
 
@@ -24,7 +25,9 @@ function printSummary(label: string, summary: FuzzSummary, seconds: number): voi
       `  input errors: ${JSON.stringify(summary.inputErrors, null, 1)}`,
       `  classes: ${JSON.stringify(summary.byClass)}`,
       `  ms: ${ms}`,
-      ...(summary.failures.length ? [`  failures by breach: ${JSON.stringify(byBreach)}`, `  failures by class: ${JSON.stringify(byClass)}`] : []),
+      ...(summary.failures.length
+        ? [`  failures by breach: ${JSON.stringify(byBreach)}`, `  failures by class: ${JSON.stringify(byClass)}`]
+        : []),
     ].join('\n'),
   );
 }

@@ -65,7 +65,8 @@ describe('did you mean', () => {
   });
 
   it('a misspelt rule param names the param', () => {
-    expect(messageOf('group: g\nrules:\n  few-groups: { warn_blow: 5 }\n')).toMatch(/unknown key "warn_blow" \(did you mean "warn_below"\?\)$/);
+    const message = messageOf('group: g\nrules:\n  few-groups: { warn_blow: 5 }\n');
+    expect(message).toMatch(/unknown key "warn_blow" \(did you mean "warn_below"\?\)$/);
   });
 
   it('a key like no known one gets no guess', () => {

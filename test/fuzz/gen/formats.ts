@@ -21,7 +21,10 @@ export const textDamage: fc.Arbitrary<TextDamage> = fc.record({
   lineEnds: fc.constantFrom('lf', 'crlf', 'mixed'),
   bom: fc.boolean(),
   gzip: fc.boolean(),
-  ragged: fc.oneof({ weight: 3, arbitrary: fc.constant<number[]>([]) }, { weight: 1, arbitrary: fc.array(fc.integer({ min: -5, max: 5 }), { maxLength: 3 }) }),
+  ragged: fc.oneof(
+    { weight: 3, arbitrary: fc.constant<number[]>([]) },
+    { weight: 1, arbitrary: fc.array(fc.integer({ min: -5, max: 5 }), { maxLength: 3 }) },
+  ),
   nul: fc.oneof({ weight: 8, arbitrary: fc.constant(false) }, { weight: 1, arbitrary: fc.constant(true) }),
   invalidUtf8: fc.oneof({ weight: 8, arbitrary: fc.constant(false) }, { weight: 1, arbitrary: fc.constant(true) }),
 });
@@ -112,7 +115,8 @@ export async function writeArrow(t: Table, path: string): Promise<void> {
 /** Write a table as Parquet: its CSV read by DuckDB (all text, header kept) and COPY'd out. */
 export async function writeParquet(t: Table, dir: string, path: string): Promise<void> {
   const csv = join(dir, 'parquet-source.csv');
-  writeFileSync(csv, delimited(t, { delim: ',', lineEnds: 'lf', bom: false, gzip: false, ragged: [], nul: false, invalidUtf8: false }, () => 0));
+  const plain: TextDamage = { delim: ',', lineEnds: 'lf', bom: false, gzip: false, ragged: [], nul: false, invalidUtf8: false };
+  writeFileSync(csv, delimited(t, plain, () => 0));
   const { DuckDBInstance } = await import('@duckdb/node-api');
   const db = await DuckDBInstance.create(':memory:', { threads: '1' });
   const con = await db.connect();

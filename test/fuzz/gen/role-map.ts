@@ -35,6 +35,8 @@ const outOfRange = fc.constantFrom<Record<string, unknown>>(
   { [MARKUP[0]]: 'off' },
 );
 
+const WRONG_TYPES: Record<string, unknown>[] = [{ group: 5 }, { level1: { a: 1 } }, { missing: 'NA' }, { types: { y: 'integer' } }];
+
 const ALIAS_BOMB = [
   'a: &a [x, x, x, x, x, x, x, x, x, x]',
   ...['b', 'c', 'd'].map((n, i) => `${n}: &${n} [${Array(10).fill(`*${'abc'[i]}`).join(', ')}]`),
@@ -47,7 +49,10 @@ export function roleMap(t: Table): fc.Arbitrary<{ fault: RoleFault; yaml: string
     .record({
       fault: fc.oneof(
         { weight: 12, arbitrary: fc.constant<RoleFault>('valid') },
-        { weight: 1, arbitrary: fc.constantFrom<RoleFault>('misspelt-key', 'wrong-type', 'yaml-syntax', 'alias-bomb', 'odd-name', 'rule-range') },
+        {
+          weight: 1,
+          arbitrary: fc.constantFrom<RoleFault>('misspelt-key', 'wrong-type', 'yaml-syntax', 'alias-bomb', 'odd-name', 'rule-range'),
+        },
       ),
       withUnit: fc.boolean(),
       withLevel1: fc.boolean(),
@@ -63,7 +68,7 @@ export function roleMap(t: Table): fc.Arbitrary<{ fault: RoleFault; yaml: string
           return { fault, yaml: stringify({ ...rest, [['outcom', 'levl1', 'Outcome', 'group_'][k % 4]]: outcome }) };
         }
         case 'wrong-type':
-          return { fault, yaml: stringify({ ...map, ...[{ group: 5 }, { level1: { a: 1 } }, { missing: 'NA' }, { types: { y: 'integer' } }][k % 4] }) };
+          return { fault, yaml: stringify({ ...map, ...WRONG_TYPES[k % WRONG_TYPES.length] }) };
         case 'yaml-syntax':
           return { fault, yaml: ['group: [g\n', 'group: g\n\toutcome: y\n', 'group: "g\n', 'group: g\ngroup: h\n', ': x\n'][k % 5] };
         case 'alias-bomb':
