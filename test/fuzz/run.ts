@@ -1,4 +1,4 @@
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import fc from 'fast-check';
@@ -142,6 +142,8 @@ export async function fuzz(options: FuzzOptions): Promise<FuzzSummary> {
       seenXlsx ||= c.format === 'xlsx' && waivedXlsx;
       const left = leftovers(tmp).filter((f) => !(seenXlsx && f.startsWith('tmp-')));
       if (left.length) found.push(`temp files left: ${left.join(', ')}`);
+      // DuckDB's default spill directory, had the engine not been given one of its own
+      if (existsSync('.tmp')) found.push('temp files left: .tmp in the working directory');
       if (!viaCli && i % 16 === 0 && run.code !== 3) found.push(...sameOutputs(run, await runInProcess(written, wants)));
       timing.second += performance.now() - t0;
       const waived = PENDING_CHECKS.filter((p) => classes.includes(p.class)).map((p) => p.breach);
