@@ -42,6 +42,7 @@ export function classesOf(c: FuzzCase): string[] {
   if (c.json?.numbers === 'mixed') out.push('json-mixed-types');
   if (new Set(c.table.header).size < c.table.header.length) out.push('duplicate-header');
   if (c.table.header.some((h) => !/^[a-z]$/.test(h))) out.push('odd-column-name');
+  if (c.table.header.some((h) => h.trim() !== h)) out.push('padded-column-name');
   if (cells.some((v) => (NON_FINITE as readonly string[]).includes(v))) out.push('non-finite');
   const names = [...cells, ...c.table.header];
   if (names.some((v) => MARKUP.some((m) => v === m) || v.startsWith('javascript:'))) out.push('markup');

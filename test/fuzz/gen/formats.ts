@@ -68,7 +68,8 @@ export const jsonDamage: fc.Arbitrary<JsonDamage> = fc.record({
 });
 
 function jsonValue(cell: string, numbers: JsonDamage['numbers'], k: number): string {
-  const isNumber = /^-?\d+(\.\d+)?(e[-+]?\d+)?$/i.test(cell) && Number.isFinite(Number(cell));
+  // JSON's number grammar: no leading zeros ("007" stays a string)
+  const isNumber = /^-?(0|[1-9]\d*)(\.\d+)?(e[-+]?\d+)?$/i.test(cell) && Number.isFinite(Number(cell));
   if (isNumber && (numbers === 'typed' || (numbers === 'mixed' && k % 2 === 0))) return cell;
   return JSON.stringify(cell);
 }
