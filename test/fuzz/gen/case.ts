@@ -43,6 +43,7 @@ export function classesOf(c: FuzzCase): string[] {
   if (new Set(c.table.header).size < c.table.header.length) out.push('duplicate-header');
   if (c.table.header.some((h) => !/^[a-z]$/.test(h))) out.push('odd-column-name');
   if (c.table.header.some((h) => h.trim() !== h)) out.push('padded-column-name');
+  if (c.table.header.some((h) => h.includes('"'))) out.push('quote-in-column-name');
   if (cells.some((v) => (NON_FINITE as readonly string[]).includes(v))) out.push('non-finite');
   const names = [...cells, ...c.table.header];
   if (names.some((v) => MARKUP.some((m) => v === m) || v.startsWith('javascript:'))) out.push('markup');
