@@ -49,7 +49,8 @@ export default defineRule<Params>({
     const findings: FindingDraft[] = [];
     for (const column of profile.header) {
       const col = profile.column(column);
-      if (!readsAsNumbers(col) || col.storage !== 'text') continue;
+      // a DOUBLE column holds no text, but may hold ±inf, NaN or overflowing values (not numbers)
+      if (!readsAsNumbers(col)) continue;
       const count = col.nonMissing - col.numericCount;
       if (count <= 0) continue;
       const tokens = await lookup.nonNumericTokens(column);

@@ -2,7 +2,7 @@ import { catalogue as builtIn } from '../rules/index.js';
 import { buildPlotData } from './analysis/plot-data.js';
 import { plotThresholds } from './analysis/plot-thresholds.js';
 import { rulesRun } from './analysis/rules-run.js';
-import { InputError } from './errors.js';
+import { InputError, readError } from './errors.js';
 import { grade } from './grade.js';
 import { buildProfile, loadArquero } from './profile/build.js';
 import { groupSizes } from './profile/group-stats.js';
@@ -126,6 +126,8 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
       ...(plots && { plots }),
       rulesRun: rulesRun(catalogue, roles),
     };
+  } catch (e) {
+    throw readError(e, path);
   } finally {
     // look-ups started early are let finish (an error is the rules' to report, if they ask)
     await Promise.all(early);

@@ -1,6 +1,8 @@
 import { rmSync } from 'node:fs';
-import { Command, CommanderError, InvalidArgumentError, Option } from 'commander';
+import { Command, InvalidArgumentError, Option } from 'commander';
 import { catalogue } from '../rules/index.js';
+import { endingFor } from './cli-exit.js';
+import { memorySize, sheetNote } from './cli-options.js';
 import { planOutputs, protectInputs, writeOutput } from './cli-output.js';
 import { startProgress } from './cli-progress.js';
 import { InputError } from './errors.js';
@@ -119,6 +121,7 @@ export function buildProgram(): Command {
     .option(
       '--memory-limit <size>',
       'DuckDB memory before it spills to disk (an aggregate that cannot run within it is run again with four times the limit, up to 4 GiB)',
+      memorySize,
       '100MB',
     )
     .addOption(new Option('--input-format <format>', 'the delivery format (default: from the name and content)').choices(INPUT_FORMATS))
@@ -138,6 +141,8 @@ export function buildProgram(): Command {
       const roles = loadRoles(flags.roles, catalogue, { preset: flags.preset });
       const resolved = await deliveryInput(deliveryArg, flags);
       const delivery = isFileInput(resolved.input) ? resolved.input : resolved.label;
+      const note = isFileInput(resolved.input) ? sheetNote(resolved.input, resolved.label, flags.sheet, flags.inputFormat) : null;
+      if (note && !flags.quiet) process.stderr.write(`nestready: ${note}\n`);
       try {
         const stop = startProgress(resolved.label, 'auditing', { quiet: flags.quiet === true });
         // the engine (DuckDB, arquero, stats) loads only for an audit: `rules` and `schema` start fast
@@ -208,24 +213,8 @@ export async function main(argv: string[]): Promise<void> {
   try {
     await buildProgram().parseAsync(argv);
   } catch (e) {
-    if (e instanceof CommanderError) {
-      // help and version are not errors; commander has already printed its message
-      process.exitCode = e.exitCode === 0 ? 0 : 2;
-      return;
-    }
-    if (e instanceof InputError) {
-      process.stderr.write(`nestready: ${e.message}\n`);
-      process.exitCode = 2;
-      return;
-    }
-    const first = String((e as Error).message ?? e).split('\n')[0];
-    if (/Out of Memory Error/i.test(first)) {
-      // a resource limit the user sets, not a bug: say which option to change
-      process.stderr.write(`nestready: out of memory within --memory-limit (${first}); raise --memory-limit\n`);
-      process.exitCode = 2;
-      return;
-    }
-    process.stderr.write(`nestready: internal error: ${first}\n`);
-    process.exitCode = 3;
+    const ending = endingFor(e);
+    if (ending.line !== null) process.stderr.write(`${ending.line}\n`);
+    process.exitCode = ending.code;
   }
 }

@@ -13,3 +13,31 @@ export class InputError extends Error {
 export function inputError(file: string, message: string): never {
   throw new InputError(`${file}: ${message}`);
 }
+
+/**
+ * A name from the user's files (a column, a role-map key, a rule id) as it goes into an error:
+ * JSON-quoted, so that a newline or a quote in it cannot break the one-line message.
+ */
+export function quoteName(name: string): string {
+  return JSON.stringify(name);
+}
+
+/** Names listed in an error (a header): plain where plain, quoted where a name would blur the list. */
+export function nameList(names: readonly string[]): string {
+  // biome-ignore lint/suspicious/noControlCharactersInRegex: control characters are what must be quoted
+  return names.map((n) => (/^[^\u0000-\u001f\u007f",]*$/.test(n) && n.trim() === n && n !== '' ? n : quoteName(n))).join(', ');
+}
+
+/**
+ * An engine's error while it reads a delivery that opened (a JSON record with a duplicate key, a
+ * bad value deep in the file, memory): an input error naming the file. Anything else is passed on.
+ */
+export function readError(e: unknown, file: string): unknown {
+  if (e instanceof InputError || !(e instanceof Error)) return e;
+  const first = e.message.split('\n')[0];
+  if (/^Invalid Input Error: /.test(first)) return new InputError(`${file}: cannot read the delivery (${first.slice(21)})`);
+  if (/Out of Memory Error/i.test(first)) {
+    return new InputError(`${file}: out of memory within --memory-limit (${first}); raise --memory-limit`);
+  }
+  return e;
+}

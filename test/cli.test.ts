@@ -150,7 +150,7 @@ describe.concurrent('nestready audit: usage and input errors exit 2 with one lin
   it('an invalid role map (unknown key) points at the key', async ({ expect }) => {
     const roles = file('unknown-key.yaml', 'group: workshop\nlevel3: [x]\n');
     const line = expectUsageError(await nestready('audit', `${DEMO}/repairs-clean.csv`, '-r', roles));
-    expect(line).toBe(`nestready: ${roles}:2:1: the role map: unknown key "level3"`);
+    expect(line).toBe(`nestready: ${roles}:2:1: the role map: unknown key "level3" (did you mean "level1"?)`);
   });
 
   it('an unknown column: where it is named, and the header', async ({ expect }) => {

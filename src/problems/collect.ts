@@ -1,3 +1,4 @@
+import { readError } from '../errors.js';
 import type { Roles } from '../roles/types.js';
 import type { AnyRule } from '../rules/define.js';
 import { resolveParams } from '../rules/engine.js';
@@ -6,6 +7,7 @@ import type { Finding } from '../rules/types.js';
 import type { FoundRecord, RecordQueries } from '../source/lookups/records.js';
 import { countRecordsSql, recordQueries, selectRecordsSql } from '../source/lookups/records.js';
 import type { DeliveryInput } from '../source/open.js';
+import { inputLabel } from '../source/open.js';
 import { openSettled } from '../source/plan/open-settled.js';
 import type { RejectedLine } from '../source/types.js';
 import type { ProblemOptions, ProblemRow, ProblemRows } from './types.js';
@@ -34,7 +36,10 @@ export async function collectProblemRows(
 ): Promise<ProblemRows> {
   const { maxRows = DEFAULT_MAX_ROWS, includeValues = true, ...open } = options;
   if (!findings.length) return { rows: [], total: 0, omitted: 0, maxRows };
-  const { source, rejected } = await openSettled(input, roles, open);
+  const label = open.displayPath ?? inputLabel(input);
+  const { source, rejected } = await openSettled(input, roles, open).catch((e: unknown) => {
+    throw readError(e, label);
+  });
   try {
     const records = recordQueries(source, roles.group);
     const rows: ProblemRow[] = [];
@@ -56,6 +61,8 @@ export async function collectProblemRows(
       for (const r of found) rows.push(recordRow(f, r, part.reason(r)));
     }
     return { rows, total, omitted: total - rows.length, maxRows };
+  } catch (e) {
+    throw readError(e, label);
   } finally {
     await source.close();
   }

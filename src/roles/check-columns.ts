@@ -1,4 +1,4 @@
-import { InputError } from '../errors.js';
+import { InputError, nameList, quoteName } from '../errors.js';
 import type { Roles } from './types.js';
 
 type Locate = (path: (string | number)[]) => string;
@@ -18,7 +18,9 @@ export function checkColumns(roles: Roles, header: readonly string[], locate: Lo
   for (const [column, path] of named) {
     if (have.has(column)) continue;
     const near = header.find((h) => h.trim().toLowerCase() === column.trim().toLowerCase());
-    const hint = near ? ` (did you mean "${near}"?)` : '';
-    throw new InputError(`${locate(path)}: column "${column}" is not in ${deliveryPath}${hint}; its header is: ${header.join(', ')}`);
+    const hint = near ? ` (did you mean ${quoteName(near)}?)` : '';
+    throw new InputError(
+      `${locate(path)}: column ${quoteName(column)} is not in ${deliveryPath}${hint}; its header is: ${nameList(header)}`,
+    );
   }
 }

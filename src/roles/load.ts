@@ -2,13 +2,14 @@ import { readFileSync } from 'node:fs';
 import type { ErrorObject } from 'ajv';
 import type { Document } from 'yaml';
 import { isNode, LineCounter, parseDocument } from 'yaml';
-import { InputError } from '../errors.js';
+import { InputError, quoteName } from '../errors.js';
 import type { PresetName } from '../presets/index.js';
 import { mergeRuleSettings, PRESETS } from '../presets/index.js';
 import type { AnyRule } from '../rules/define.js';
 import { createAjv, describeAjvError, pointerToPath } from '../util/ajv.js';
+import { closestName } from './did-you-mean.js';
 import { validate as untypedValidate } from './role-map-validator.generated.js';
-import { DEFAULT_MISSING } from './schema.js';
+import { DEFAULT_MISSING, roleMapSchema } from './schema.js';
 import type { Roles, RuleSetting, ValueType } from './types.js';
 
 const validateRoleMap = untypedValidate as ((data: unknown) => boolean) & { errors?: ErrorObject[] | null };
@@ -55,11 +56,19 @@ export function parseRoles(text: string, file: string, catalogue: readonly AnyRu
     const detail = yamlError.message.split('\n')[0].replace(/ at line \d+, column \d+:?$/, '');
     throw new InputError(`${at(yamlError.pos[0])}: invalid YAML: ${detail}`);
   }
-  const raw = doc.toJS() as unknown;
+  let raw: unknown;
+  try {
+    raw = doc.toJS();
+  } catch (e) {
+    // the yaml package refuses an alias bomb (aliases that expand exponentially) while building
+    // the value: that is bad input, not a bug
+    const detail = String((e as Error).message ?? e).split('\n')[0];
+    throw new InputError(`${file}: invalid YAML: ${detail.charAt(0).toLowerCase()}${detail.slice(1)}`);
+  }
   if (raw === null || raw === undefined) throw new InputError(`${file}: the role map is empty`);
 
   // compiled ahead of time from roleMapSchema (src/roles/validator-source.ts)
-  if (!validateRoleMap(raw)) throw schemaError(validateRoleMap.errors ?? [], locate, []);
+  if (!validateRoleMap(raw)) throw schemaError(validateRoleMap.errors ?? [], locate, [], Object.keys(roleMapSchema.properties));
 
   const map = raw as unknown as Record<string, unknown>;
   if (map.outcome !== undefined && map.outcomes !== undefined) {
@@ -120,8 +129,10 @@ function validateRuleSettings(
   for (const [id, setting] of Object.entries(settings)) {
     const rule = catalogue.find((r) => r.meta.id === id);
     if (!rule) {
-      const known = catalogue.map((r) => r.meta.id).join(', ');
-      throw new InputError(`${locate(['rules', id])}: unknown rule "${id}" (known: ${known})`);
+      const ids = catalogue.map((r) => r.meta.id);
+      const near = closestName(id, ids);
+      const hint = near ? `; did you mean ${quoteName(near)}?` : '';
+      throw new InputError(`${locate(['rules', id])}: unknown rule ${quoteName(id)}${hint} (known: ${ids.join(', ')})`);
     }
     if (setting === 'off') {
       out[id] = 'off';
@@ -130,24 +141,32 @@ function validateRuleSettings(
     const { severity, ...params } = setting;
     ajv ??= createAjv();
     const validate = ajv.compile(rule.meta.params);
-    if (!validate(params)) throw schemaError(validate.errors ?? [], locate, ['rules', id]);
+    const names = Object.keys((rule.meta.params.properties ?? {}) as object);
+    if (!validate(params)) throw schemaError(validate.errors ?? [], locate, ['rules', id], names);
     out[id] = { ...(severity && { severity }), ...params };
   }
   return out;
 }
 
-function schemaError(errors: ErrorObject[], locate: LoadedRoles['locate'], prefix: string[]): InputError {
+function schemaError(errors: ErrorObject[], locate: LoadedRoles['locate'], prefix: string[], keys: readonly string[]): InputError {
   // the most specific error first: the deepest instance path (e.g. a bad `severity` inside a rule
   // setting, not the `off` branch of its anyOf); at equal depth a failed constraint (`uniqueItems`
-  // on a list) before a type mismatch with another anyOf branch (`must be string`)
-  const rank = (e: ErrorObject) => 2 * pointerToPath(e.instancePath).length + (e.keyword === 'type' ? 0 : 1);
+  // on a list) before a type mismatch with another anyOf branch (`must be string`); an unknown key
+  // before a missing required one (`gruop: g` is the misspelt `group`)
+  const rank = (e: ErrorObject) =>
+    2 * pointerToPath(e.instancePath).length + (e.keyword === 'type' ? 0 : 1) + (e.keyword === 'additionalProperties' ? 0.5 : 0);
   const specific = errors.filter((e) => e.keyword !== 'anyOf');
   const first = specific.reduce<ErrorObject | undefined>((best, e) => (!best || rank(e) > rank(best) ? e : best), undefined) ?? errors[0];
   const path = [...prefix, ...pointerToPath(first.instancePath)];
+  let hint = '';
   if (first.keyword === 'additionalProperties') {
-    path.push((first.params as { additionalProperty: string }).additionalProperty);
+    const extra = (first.params as { additionalProperty: string }).additionalProperty;
+    path.push(extra);
+    // a misspelt key of the role map or of a rule's params (not a column under `types`)
+    const near = path.length === prefix.length + 1 ? closestName(extra, keys) : undefined;
+    if (near) hint = ` (did you mean ${quoteName(near)}?)`;
   }
-  return new InputError(`${locate(path)}: ${describeAjvError(first, prefix)}`);
+  return new InputError(`${locate(path)}: ${describeAjvError(first, prefix)}${hint}`);
 }
 
 /** A column may play one role only: a level-2 variable that is also level-1 is a contradiction. */
@@ -166,7 +185,7 @@ function checkRoleOverlap(roles: Roles, locate: LoadedRoles['locate'], singleOut
   const claim = (role: string, column: string, path: (string | number)[]) => {
     const before = seen.get(column);
     if (before) {
-      throw new InputError(`${locate(path)}: column "${column}" is both ${before} and ${role}`);
+      throw new InputError(`${locate(path)}: column ${quoteName(column)} is both ${before} and ${role}`);
     }
     seen.set(column, role);
   };

@@ -1,4 +1,7 @@
 const KINDS: [string, RegExp][] = [
+  // read by some parsers, but no statistic can use them: not numbers here
+  ['non-finite value', /^[-+]?(inf|infinity|nan)$/i],
+  ['out-of-range value', /^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i],
   ['missing code', /^(n\/?a|na|nan|null|none|missing|unknown|unk|-+|\?+|\.|x|\*|not applicable|refused|dk)$/i],
   ['censored value', /^[<>]=?\s*[-+]?\d/],
   ['thousands separator', /^[-+]?\d{1,3}(,\d{3})+(\.\d+)?$/],

@@ -1,3 +1,5 @@
+import { MAX_MAGNITUDE, numericExpr } from './sql.js';
+
 /**
  * The SQL dialect layer: the profiling query and the bounded look-ups are written once, and
  * the few constructs that differ between engines go through a Dialect. DuckDB is the default
@@ -34,7 +36,7 @@ export const duckdb: Dialect = {
   name: 'duckdb',
   double: (e) => `${e}::DOUBLE`,
   text: (e) => `CAST(${e} AS VARCHAR)`,
-  numeric: (e) => `TRY_CAST(${e} AS DOUBLE)`,
+  numeric: (e) => numericExpr(e),
   ordered: (e) => e,
   firstValues: (e, order, limit) => `list(${e} ORDER BY ${order})[1:${limit}]`,
   rowHash: (exprs) => `hash(${exprs.join(', ')})`,
@@ -48,7 +50,7 @@ export const postgres: Dialect = {
   // PostgreSQL has no TRY_CAST before version 16's pg_input_is_valid: a regular expression
   // guards the cast. Its bounds keep every accepted value inside double precision's range.
   numeric: (e) =>
-    `(CASE WHEN ${e} ~ '${NUMBER_RE}' THEN CASE WHEN abs(CAST(${e} AS numeric)) < 1e308 ` +
+    `(CASE WHEN ${e} ~ '${NUMBER_RE}' THEN CASE WHEN abs(CAST(${e} AS numeric)) < ${MAX_MAGNITUDE} ` +
     `AND (CAST(${e} AS numeric) = 0 OR abs(CAST(${e} AS numeric)) > 1e-307) THEN CAST(${e} AS double precision) END END)`,
   // min/max of text follow the database collation in PostgreSQL; "C" is byte order, as DuckDB
   ordered: (e) => `(${e} COLLATE "C")`,

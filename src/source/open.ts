@@ -2,7 +2,7 @@
 // problem rows read it through Source, whatever the engine.
 
 export { openDelivery } from './engines/duckdb/open.js';
-export { databaseInput, inputKind, isFileInput } from './engines/kinds.js';
+export { databaseInput, inputKind, inputLabel, isFileInput } from './engines/kinds.js';
 export type { PostgresInput } from './engines/postgres/input.js';
 export { openSource } from './engines/registry.js';
 export type { DeliveryInput, Engine, InputKind } from './engines/types.js';

@@ -1,5 +1,6 @@
 import { createRequire } from 'node:module';
 import type { Ajv, ErrorObject } from 'ajv';
+import { quoteName } from '../errors.js';
 
 /**
  * The one Ajv factory: all errors, defaults filled in, unknown keywords tolerated in docs. The
@@ -16,10 +17,11 @@ export function createAjv(options: { checkSchemas?: boolean } = {}): Ajv {
 /** One readable fragment for an ajv error, e.g. `rules.few-groups.warn_below must be >= 1`. */
 export function describeAjvError(error: ErrorObject, prefix: string[] = []): string {
   const path = [...prefix, ...pointerToPath(error.instancePath)];
-  const where = path.length ? path.join('.') : 'the role map';
+  // a key that is not a plain name (a column with a newline or a dot) is quoted: one line, unambiguous
+  const where = path.length ? path.map((p) => (/^[\w-]+$/.test(p) ? p : quoteName(p))).join('.') : 'the role map';
   if (error.keyword === 'additionalProperties') {
     const extra = (error.params as { additionalProperty: string }).additionalProperty;
-    return `${where}: unknown key "${extra}"`;
+    return `${where}: unknown key ${quoteName(extra)}`;
   }
   if (error.keyword === 'enum') {
     const allowed = (error.params as { allowedValues: unknown[] }).allowedValues;

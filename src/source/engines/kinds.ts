@@ -1,7 +1,7 @@
 import { InputError } from '../../errors.js';
 import { STDIN } from '../types.js';
 import type { PostgresInput } from './postgres/input.js';
-import { isPostgresInput, isPostgresUrl } from './postgres/input.js';
+import { isPostgresInput, isPostgresUrl, postgresLabel } from './postgres/input.js';
 import type { DeliveryInput, InputKind } from './types.js';
 
 // Telling inputs apart needs no engine: the CLI asks here before any engine is loaded.
@@ -11,6 +11,11 @@ export function inputKind(input: DeliveryInput): InputKind {
   if (isPostgresInput(input)) return 'database';
   if (input === STDIN) return 'stdin';
   return isPostgresUrl(input) ? 'url' : 'file';
+}
+
+/** What messages call an input before it is opened: the path ("-" for stdin), or the database relation. */
+export function inputLabel(input: DeliveryInput): string {
+  return isPostgresInput(input) ? postgresLabel(input) : input;
 }
 
 /** Whether the input is read from a file (or stdin) rather than from where it lives in a database. */

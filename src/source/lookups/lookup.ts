@@ -81,7 +81,7 @@ export function createLookup(source: Source, group: string): Lookup {
       const c = ident(column);
       const d = source.dialect;
       const rows = await source.all<{ token: string; k: bigint; recs: (bigint | number)[] }>(
-        `SELECT ${c} AS token, count(*) AS k, ${d.firstValues('__rec', '__rec', EXAMPLE_LIMIT)} AS recs FROM ${source.numbered} AS d ` +
+        `SELECT ${d.text(c)} AS token, count(*) AS k, ${d.firstValues('__rec', '__rec', EXAMPLE_LIMIT)} AS recs FROM ${source.numbered} AS d ` +
           `WHERE ${c} IS NOT NULL AND ${d.numeric(c)} IS NULL GROUP BY ${c} ORDER BY 2 DESC, 1 LIMIT ${limit}`,
       );
       return rows.map((r) => ({ token: String(r.token), count: Number(r.k), rows: r.recs.map(Number) }));

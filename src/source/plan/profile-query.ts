@@ -38,9 +38,10 @@ export function profileQuery(view: string, group: string, plan: readonly Profile
     if (col.storage === 'text' && col.textRange !== false)
       aggs.push(`min(${d.ordered(`t${i}`)}) AS ${as('min')}`, `max(${d.ordered(`t${i}`)}) AS ${as('max')}`);
     if (!col.numeric) return;
-    // a text column's numeric reading is cast once here, not once per aggregate
-    const x = col.storage === 'double' ? `t${i}` : `x${i}`;
-    if (col.storage === 'text') inner.push(`${d.numeric(c)} AS x${i}`);
+    // the numeric reading is taken once here, not once per aggregate; a DOUBLE column goes
+    // through it too, so that ±inf, NaN and overflowing values are not numbers in any column
+    const x = `x${i}`;
+    inner.push(`${d.numeric(c)} AS x${i}`);
     aggs.push(
       `${d.double(`count(${x})`)} AS ${as('num')}`,
       `min(${x}) AS ${as('nmin')}`,

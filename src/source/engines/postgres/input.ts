@@ -19,6 +19,12 @@ export function redactUrl(url: string): string {
   }
 }
 
+/** What reports and messages call a database input: the URL without its password, and the relation. */
+export function postgresLabel(input: PostgresInput): string {
+  const where = redactUrl(input.url);
+  return input.table ? `${where}#table=${input.table}` : `${where}#query`;
+}
+
 /** Whether a text names a PostgreSQL database (a libpq-style URL). */
 export function isPostgresUrl(text: string): boolean {
   return /^postgres(ql)?:\/\//.test(text);

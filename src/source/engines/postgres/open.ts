@@ -7,7 +7,7 @@ import { sampleHints } from '../../plan/sample-hints.js';
 import { ident, literal } from '../../sql.js';
 import type { BinaryWords, OpenOptions, RejectedLine, Source } from '../../types.js';
 import type { PostgresInput } from './input.js';
-import { redactUrl } from './input.js';
+import { postgresLabel, redactUrl } from './input.js';
 
 /** float4/8, int2/4/8, numeric: read as double precision */
 const NUMERIC_OIDS = new Set([20, 21, 23, 700, 701, 1700]);
@@ -30,13 +30,12 @@ function qualified(name: string): string {
  */
 export async function openPostgres(input: PostgresInput, roles: Roles, options: OpenOptions): Promise<Source> {
   if (!input.table === !input.query) throw new InputError('--source postgres: give exactly one of --table or --query');
-  const where = redactUrl(input.url);
-  const display = input.table ? `${where}#table=${input.table}` : `${where}#query`;
+  const display = postgresLabel(input);
   const client = new pg.Client({ connectionString: input.url, application_name: 'nestready' });
   try {
     await client.connect();
   } catch (e) {
-    throw new InputError(`${where}: cannot connect (${(e as Error).message.split('\n')[0]})`);
+    throw new InputError(`${redactUrl(input.url)}: cannot connect (${(e as Error).message.split('\n')[0]})`);
   }
   let closed = false;
   const close = async () => {

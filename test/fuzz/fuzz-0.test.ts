@@ -1,0 +1,3 @@
+import { fuzzTest } from './suite.js';
+
+fuzzTest(0, 2);
