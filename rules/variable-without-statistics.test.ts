@@ -45,7 +45,7 @@ describe('variable-without-statistics', () => {
   it('is silent when every declared variable yields statistics', async () => {
     const rows = groupedRows(5, 8, (j, i) => ({ y: `${10 + i}.${j}`, x: i }));
     expect(findingsOf(await auditRows(rows, { group: 'g', outcome: 'y', level1: 'x' }), RULE)).toEqual([]);
-    // a delivery without records: no variable is singled out
-    expect(findingsOf(await auditRows('g,y\n', { group: 'g', outcome: 'y' }), RULE)).toEqual([]);
+    // a delivery without records is an input error before any rule runs
+    await expect(auditRows('g,y\n', { group: 'g', outcome: 'y' })).rejects.toThrow(/no records/);
   });
 });

@@ -34,6 +34,12 @@ export function numeric(column: string): string {
  */
 export const MAX_MAGNITUDE = '1e100';
 
+/** A column already read as double, with ±inf, NaN and values beyond ±MAX_MAGNITUDE as NULL (any engine). */
+export function finiteDouble(expr: string): string {
+  // NaN compares above every number in DuckDB and PostgreSQL alike, so the range test is false for it
+  return `(CASE WHEN ${expr} BETWEEN -${MAX_MAGNITUDE} AND ${MAX_MAGNITUDE} THEN ${expr} END)`;
+}
+
 /** The numeric reading of any expression: NULL unless a finite number within ±MAX_MAGNITUDE. */
 export function numericExpr(expr: string): string {
   // NaN compares above every number in DuckDB, so the range test is false for it as for ±inf;

@@ -109,6 +109,7 @@ export function leftovers(tmp: string): string[] {
  * The contract every run must keep; returns what it broke (empty: kept). `records` is the number
  * of data records written, when the format lets it be counted.
  */
+// biome-ignore lint/complexity/noExcessiveCognitiveComplexity: one flat list of the contract's clauses, each a line, read top to bottom
 export function breaches(run: RunResult, w: Written, records: number | null): string[] {
   const out: string[] = [];
   if (run.code === null || ![0, 1, 2].includes(run.code)) out.push(`exit ${run.code}: ${run.error}`);

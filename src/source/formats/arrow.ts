@@ -33,7 +33,7 @@ export async function arrowLayout({ engine, file, display, roles, missing }: Rea
   registerArrowCodecs();
   const handle = await open(file, 'r');
   try {
-    let reader;
+    let reader: Awaited<ReturnType<typeof RecordBatchReader.from>>;
     try {
       reader = await RecordBatchReader.from(handle);
       await reader.open();

@@ -34,7 +34,8 @@ export class Stager {
 
   /** append one record (values in column order; a value of the wrong kind is appended as text or NULL) */
   append(values: readonly StagedValue[]): void {
-    const a = this.appender!;
+    const a = this.appender;
+    if (!a) throw new Error('staged table: append before begin');
     this.columns.forEach((c, i) => {
       const v = values[i];
       if (v === null || v === undefined) a.appendNull();

@@ -22,7 +22,9 @@ export async function openSettled(
       // full read (columns), on the connection whose rejects log rejects() reads
       await source.columns(`SELECT ${source.header.map((c) => `count(${ident(c)})`).join(', ')} FROM ${source.view}`);
       const rejected = await source.rejects();
-      const retype = [...new Set(rejected.filter((r) => r.column && source.storage.get(r.column) === 'double').map((r) => r.column!))];
+      const retype = [
+        ...new Set(rejected.flatMap((r) => (r.column !== undefined && source.storage.get(r.column) === 'double' ? [r.column] : []))),
+      ];
       if (retype.length === 0) {
         await settleProbed(source);
         return { source, rejected };

@@ -1,7 +1,7 @@
 import type { Dialect } from '../dialect.js';
 import { duckdb } from '../dialect.js';
 import type { Storage } from '../sql.js';
-import { ident } from '../sql.js';
+import { finiteDouble, ident } from '../sql.js';
 
 export interface ProfileColumnPlan {
   name: string;
@@ -41,7 +41,7 @@ export function profileQuery(view: string, group: string, plan: readonly Profile
     // the numeric reading is taken once here, not once per aggregate; a DOUBLE column goes
     // through it too, so that ±inf, NaN and overflowing values are not numbers in any column
     const x = `x${i}`;
-    inner.push(`${d.numeric(c)} AS x${i}`);
+    inner.push(`${col.storage === 'double' ? finiteDouble(c) : d.numeric(c)} AS x${i}`);
     aggs.push(
       `${d.double(`count(${x})`)} AS ${as('num')}`,
       `min(${x}) AS ${as('nmin')}`,

@@ -29,7 +29,7 @@ export async function openDelivery(path: string, roles: Roles, options: OpenOpti
     if (spooled) rmSync(spooled, { recursive: true, force: true });
     throw e;
   }
-  let engine;
+  let engine: Awaited<ReturnType<typeof createEngine>>;
   try {
     engine = await createEngine(options);
   } catch (e) {
