@@ -44,13 +44,18 @@ export default defineRule<Params>({
     messages: {
       fit: {
         message:
-          '{column} is 0/1 ({share} are 1; {extremes} of {groups} groups all 0 or all 1): latent-scale ICC {icc} (logistic random intercept, ML, τ² = {tau2}), median odds ratio {mor}; linear ICC of the 0/1 values {linear}',
+          '{column} is 0/1 ({share} are 1; {extremes} of {groups} groups all 0 or all 1): latent-scale ICC {icc} (logistic random ' +
+          'intercept, ML, τ² = {tau2}), median odds ratio {mor}; linear ICC of the 0/1 values {linear}',
         fix: 'No change to the delivery; model {column} with a logistic (or probit) random intercept rather than a linear one',
       },
       small: {
         message:
-          '{column} is 0/1 ({share} are 1) with {groups} groups of {size} records on average, below the {minGroups} groups of {minSize} recommended for a multilevel logistic model; latent-scale ICC {icc} (τ² = {tau2}), median odds ratio {mor}; linear ICC {linear}',
-        fix: 'Expect the between-group variance of {column} to be biased with this many groups; ask whether more groups can be delivered, or report the fixed effects only',
+          '{column} is 0/1 ({share} are 1) with {groups} groups of {size} records on average, below the {minGroups} groups of ' +
+          '{minSize} recommended for a multilevel logistic model; latent-scale ICC {icc} (τ² = {tau2}), median odds ratio {mor}; ' +
+          'linear ICC {linear}',
+        fix:
+          'Expect the between-group variance of {column} to be biased with this many groups; ask whether more groups can be ' +
+          'delivered, or report the fixed effects only',
       },
       degenerate: {
         message: '{column} is 0/1 but every record is {value}: no model of {column} can be fitted',
@@ -62,10 +67,13 @@ export default defineRule<Params>({
       },
     },
     sources: [
-      'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.), chapter on discrete dependent variables: latent-scale ICC with level-1 variance π²/3',
+      'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.), chapter on discrete dependent variables: ' +
+        'latent-scale ICC with level-1 variance π²/3',
       'Larsen, K., & Merlo, J. (2005). American Journal of Epidemiology, 161(1), 81–88: median odds ratio',
-      'Pinheiro, J. C., & Bates, D. M. (1995). Journal of Computational and Graphical Statistics, 4(1), 12–35: adaptive Gauss–Hermite quadrature',
-      'Moineddin, R., Matheson, F. I., & Glazier, R. H. (2007). A simulation study of sample size for multilevel logistic regression models. BMC Medical Research Methodology, 7, 34: at least 50 groups of 50',
+      'Pinheiro, J. C., & Bates, D. M. (1995). Journal of Computational and Graphical Statistics, 4(1), 12–35: adaptive Gauss–Hermite ' +
+        'quadrature',
+      'Moineddin, R., Matheson, F. I., & Glazier, R. H. (2007). A simulation study of sample size for multilevel logistic regression ' +
+        'models. BMC Medical Research Methodology, 7, 34: at least 50 groups of 50',
     ],
   },
   check({ profile, roles, outcomes, params }) {

@@ -45,12 +45,17 @@ export default defineRule<Params>({
       floor: {
         message:
           'only {count} groups (fewer than {limit}): the level-2 variance may be estimated as 0 and its standard error is unreliable',
-        fix: 'Ask whether more groups can be delivered or deliveries pooled; otherwise plan a fixed-effects or cluster-robust analysis instead of a random intercept',
+        fix:
+          'Ask whether more groups can be delivered or deliveries pooled; otherwise plan a fixed-effects or cluster-robust ' +
+          'analysis instead of a random intercept',
       },
       usual: {
         message:
-          '{count} groups, fewer than the usual recommendation of {limit}: fixed effects are fine but level-2 variance estimates and their standard errors are fragile (guidance, not law)',
-        fix: 'Check the study analysis plan; if it relies on level-2 variance estimates, use REML with a small-sample correction (Kenward–Roger) or add groups',
+          '{count} groups, fewer than the usual recommendation of {limit}: fixed effects are fine but level-2 variance estimates and ' +
+          'their standard errors are fragile (guidance, not law)',
+        fix:
+          'Check the study analysis plan; if it relies on level-2 variance estimates, use REML with a small-sample correction ' +
+          '(Kenward–Roger) or add groups',
       },
       strict: {
         message: '{count} groups, at or below {limit}: standard errors of level-2 variances tend to be too small (guidance, not law)',
@@ -58,9 +63,11 @@ export default defineRule<Params>({
       },
     },
     sources: [
-      'Centre for Multilevel Modelling, University of Bristol, "Sample sizes for multilevel models": with about 10 groups the level-2 variance may be estimated as 0',
+      'Centre for Multilevel Modelling, University of Bristol, "Sample sizes for multilevel models": with about 10 groups the level-2 ' +
+        'variance may be estimated as 0',
       'Kreft, I. G. G. (1996), as cited in Hox, J. J. (2010), Multilevel Analysis (2nd ed.): at least 30 groups',
-      'Maas, C. J. M., & Hox, J. J. (2005). Sufficient sample sizes for multilevel modeling. Methodology, 1(3), 86–92: 50 or fewer groups bias level-2 standard errors',
+      'Maas, C. J. M., & Hox, J. J. (2005). Sufficient sample sizes for multilevel modeling. Methodology, 1(3), 86–92: 50 or fewer ' +
+        'groups bias level-2 standard errors',
       'McNeish, D. (2017). Multivariate Behavioral Research, 52(5), 661–670: REML with the Kenward–Roger correction for few clusters',
     ],
   },

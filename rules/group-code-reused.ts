@@ -34,12 +34,16 @@ export default defineRule<Params>({
     messages: {
       reused: {
         message:
-          '{count} {group} value(s) are used by more than one {parent} for different groups ({column} differs between them): {splits}; values: {values}',
-        fix: 'Key the groups by {parent} and {group} together (a composite ID such as "{parent}/{group}" as the group column), or ask the sender for group IDs that are unique across {parent}',
+          '{count} {group} value(s) are used by more than one {parent} for different groups ({column} differs between them): ' +
+          '{splits}; values: {values}',
+        fix:
+          'Key the groups by {parent} and {group} together (a composite ID such as "{parent}/{group}" as the group column), or ask ' +
+          'the sender for group IDs that are unique across {parent}',
       },
     },
     sources: [
-      'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.): a level-2 variable has one value per group, so different values mean different groups (definition)',
+      'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.): a level-2 variable has one value per group, so ' +
+        'different values mean different groups (definition)',
       'reused code inferred from level-2 values that differ between parent subsets: heuristic',
     ],
   },

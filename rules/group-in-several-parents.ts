@@ -38,7 +38,8 @@ export default defineRule<Params>({
       },
     },
     sources: [
-      'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.): in a nested design each group belongs to one higher-level unit (definition)',
+      'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.): in a nested design each group belongs to one ' +
+        'higher-level unit (definition)',
       'split vs reused code told apart by the level-2 values of the parent subsets: heuristic',
     ],
   },

@@ -32,18 +32,22 @@ export default defineRule<Params>({
     messages: {
       none: {
         message:
-          '{groups} groups for {q} level-2 variable(s): the level-2 effects have J − q − 1 = {df} degrees of freedom, so they cannot all be estimated',
+          '{groups} groups for {q} level-2 variable(s): the level-2 effects have J − q − 1 = {df} degrees of freedom, so they cannot ' +
+          'all be estimated',
         fix: 'Ask whether more groups can be delivered, or enter fewer level-2 variables in the model',
       },
       few: {
         message:
-          '{groups} groups for {q} level-2 variable(s) ({ratio} per variable, below the heuristic {limit}): level-2 effects are tested on {df} degrees of freedom',
+          '{groups} groups for {q} level-2 variable(s) ({ratio} per variable, below the heuristic {limit}): level-2 effects are ' +
+          'tested on {df} degrees of freedom',
         fix: 'No change to the delivery; enter fewer level-2 variables at once, or treat their tests as exploratory',
       },
     },
     sources: [
-      'Raudenbush, S. W., & Bryk, A. S. (2002). Hierarchical Linear Models (2nd ed.), ch. 3: t-tests of level-2 coefficients on J − q − 1 df',
-      'Peduzzi, P., et al. (1996). A simulation study of the number of events per variable in logistic regression analysis. Journal of Clinical Epidemiology, 49(12), 1373–1379 (the analogy; heuristic by analogy, no multilevel source)',
+      'Raudenbush, S. W., & Bryk, A. S. (2002). Hierarchical Linear Models (2nd ed.), ch. 3: t-tests of level-2 coefficients on J − q ' +
+        '− 1 df',
+      'Peduzzi, P., et al. (1996). A simulation study of the number of events per variable in logistic regression analysis. Journal ' +
+        'of Clinical Epidemiology, 49(12), 1373–1379 (the analogy; heuristic by analogy, no multilevel source)',
     ],
   },
   check({ profile, roles, params }) {

@@ -35,16 +35,22 @@ export default defineRule<Params>({
     },
     messages: {
       groups: {
-        message: `{count} {column} value(s) are one ID written in more than one way (${HOW}), which splits each into several groups: {sets}`,
-        fix: 'Ask the sender to write each {column} one way (the most common spelling is listed first) and to correct the listed records, or to confirm in writing that the spellings are different groups',
+        message:
+          `{count} {column} value(s) are one ID written in more than one way (${HOW}), ` + 'which splits each into several groups: {sets}',
+        fix:
+          'Ask the sender to write each {column} one way (the most common spelling is listed first) and to correct the listed ' +
+          'records, or to confirm in writing that the spellings are different groups',
       },
       units: {
         message: `{count} {column} value(s) are one ID written in more than one way (${HOW}): {sets}`,
-        fix: 'Ask the sender to write each {column} one way and to correct the listed records; until then each spelling counts as a different unit',
+        fix:
+          'Ask the sender to write each {column} one way and to correct the listed records; until then each spelling counts as a ' +
+          'different unit',
       },
     },
     sources: [
-      'Group and unit IDs must identify their group or unit; the spellings folded together are common data-entry and export variants (common practice)',
+      'Group and unit IDs must identify their group or unit; the spellings folded together are common data-entry and export variants ' +
+        '(common practice)',
     ],
     prefetch: ['unit-ids'],
   },

@@ -34,8 +34,11 @@ export default defineRule<Params>({
     messages: {
       between: {
         message:
-          '{column} is declared level-1 but takes one value within each of the {groups} groups where it has 2+ values (it differs between groups): it is a property of the group',
-        fix: 'If {column} describes the group, declare it under level2 in the role map; otherwise ask the sender whether a merge copied a group value onto every record',
+          '{column} is declared level-1 but takes one value within each of the {groups} groups where it has 2+ values (it differs ' +
+          'between groups): it is a property of the group',
+        fix:
+          'If {column} describes the group, declare it under level2 in the role map; otherwise ask the sender whether a merge ' +
+          'copied a group value onto every record',
       },
       constant: {
         message:
@@ -44,7 +47,8 @@ export default defineRule<Params>({
       },
     },
     sources: [
-      'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.), §3.6 and §4.6: within- and between-group relations; a variable without within-group variation has only a between-group part',
+      'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.), §3.6 and §4.6: within- and between-group relations; ' +
+        'a variable without within-group variation has only a between-group part',
       'min_groups 2: common practice',
     ],
   },

@@ -20,12 +20,16 @@ export default defineRule<Record<string, never>>({
     messages: {
       partly: {
         message:
-          '{column} (level-2) is missing on {missing} record(s) in {count} group(s) that have it on other records; the present values agree in {agree} of them: {values}',
-        fix: "Ask the sender to fill {column} on the listed records with their group's value (listed where the group agrees), or to confirm the group's value; until then a model drops those records",
+          '{column} (level-2) is missing on {missing} record(s) in {count} group(s) that have it on other records; the present values ' +
+          'agree in {agree} of them: {values}',
+        fix:
+          "Ask the sender to fill {column} on the listed records with their group's value (listed where the group agrees), or to " +
+          "confirm the group's value; until then a model drops those records",
       },
     },
     sources: [
-      'van Buuren, S. (2018). Flexible Imputation of Missing Data (2nd ed.), §7.3: records with a missing level-2 predictor are deleted by default analyses',
+      'van Buuren, S. (2018). Flexible Imputation of Missing Data (2nd ed.), §7.3: records with a missing level-2 predictor are ' +
+        'deleted by default analyses',
     ],
   },
   async check({ profile, roles, lookup }) {

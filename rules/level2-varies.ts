@@ -38,7 +38,8 @@ export default defineRule<Params>({
       },
     },
     sources: [
-      'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.), ch. 2–3: a level-2 variable has one value per group (definition)',
+      'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.), ch. 2–3: a level-2 variable has one value per group ' +
+        '(definition)',
       'Raudenbush, S. W., & Bryk, A. S. (2002). Hierarchical Linear Models (2nd ed.), ch. 2',
     ],
   },

@@ -37,15 +37,20 @@ export default defineRule<Params>({
     messages: {
       low: {
         message:
-          '{column}: the group means have mean reliability {reliability} (ICC(2) {icc2}), below {limit}, with {size} records per group on average',
-        fix: 'No change to the delivery; if group means of {column} enter the model as contextual variables, use a latent-covariate model rather than the observed means, or interpret them with care',
+          '{column}: the group means have mean reliability {reliability} (ICC(2) {icc2}), below {limit}, with {size} records per ' +
+          'group on average',
+        fix:
+          'No change to the delivery; if group means of {column} enter the model as contextual variables, use a latent-covariate ' +
+          'model rather than the observed means, or interpret them with care',
       },
     },
     sources: [
       'Raudenbush, S. W., & Bryk, A. S. (2002). Hierarchical Linear Models (2nd ed.), eq. 3.58: reliability of the group means',
       'Bliese, P. D. (2000), in Klein & Kozlowski (eds.), Multilevel Theory, Research, and Methods in Organizations, pp. 349–381: ICC(2)',
-      'Lüdtke, O., et al. (2008). The multilevel latent covariate model. Psychological Methods, 13(3), 203–229: unreliable observed group means bias contextual effects',
-      '.70 cutoff as commonly attributed (unverified); Fleiss, J. L. (1986). The Design and Analysis of Clinical Experiments: reliability > .75 excellent',
+      'Lüdtke, O., et al. (2008). The multilevel latent covariate model. Psychological Methods, 13(3), 203–229: unreliable observed ' +
+        'group means bias contextual effects',
+      '.70 cutoff as commonly attributed (unverified); Fleiss, J. L. (1986). The Design and Analysis of Clinical Experiments: ' +
+        'reliability > .75 excellent',
     ],
   },
   check({ profile, roles, outcomes, params }) {

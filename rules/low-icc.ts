@@ -40,11 +40,15 @@ export default defineRule<Params>({
     messages: {
       none: {
         message: '{column}: ICC {icc} (REML), F = {f} on ({df1}, {df2}) df, {p}: no evidence of between-group variance',
-        fix: 'No change to the delivery; an analyst may compare a single-level model, keeping in mind that even ICC .01 with about 50 records per group inflates type I error from .05 to about .11',
+        fix:
+          'No change to the delivery; an analyst may compare a single-level model, keeping in mind that even ICC .01 with about 50 ' +
+          'records per group inflates type I error from .05 to about .11',
       },
       small: {
         message: '{column}: ICC {icc} (REML) is below {limit} but the groups do differ (F = {f}, {p}); design effect {deff}',
-        fix: 'No change to the delivery; small clustering still matters for standard errors, so keep the random intercept unless the analysis plan says otherwise',
+        fix:
+          'No change to the delivery; small clustering still matters for standard errors, so keep the random intercept unless the ' +
+          'analysis plan says otherwise',
       },
     },
     sources: [

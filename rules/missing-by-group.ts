@@ -38,8 +38,11 @@ export default defineRule<Params>({
     messages: {
       uneven: {
         message:
-          '{column}: {missing} of {records} values missing ({share}); the missing rate differs between groups (X² = {chi2} on {df} df, {p}{rough}), from {low} to {high}, highest in {worst}',
-        fix: 'Ask the sender why {column} is missing more often in the listed groups; impute with a model that includes the groups (random intercepts or group means), not a single-level one',
+          '{column}: {missing} of {records} values missing ({share}); the missing rate differs between groups (X² = {chi2} on {df} ' +
+          'df, {p}{rough}), from {low} to {high}, highest in {worst}',
+        fix:
+          'Ask the sender why {column} is missing more often in the listed groups; impute with a model that includes the groups ' +
+          '(random intercepts or group means), not a single-level one',
       },
       allMissing: {
         message: '{column} is missing on every record of {count} group(s) ({records} records): {ids}',
@@ -47,9 +50,12 @@ export default defineRule<Params>({
       },
     },
     sources: [
-      'van Buuren, S. (2018). Flexible Imputation of Missing Data (2nd ed.), §7.3: missing values in multilevel data; missing level-2 values delete whole groups',
-      'Grund, S., Lüdtke, O., & Robitzsch, A. (2018). Multiple imputation of missing data for multilevel models. Organizational Research Methods, 21(1), 111–149: the imputation model must include the multilevel structure',
-      'Agresti, A. (2013). Categorical Data Analysis (3rd ed.), §3.2: Pearson chi-square test; upper tail from @stdlib/stats-base-dists-chisquare-cdf',
+      'van Buuren, S. (2018). Flexible Imputation of Missing Data (2nd ed.), §7.3: missing values in multilevel data; missing level-2 ' +
+        'values delete whole groups',
+      'Grund, S., Lüdtke, O., & Robitzsch, A. (2018). Multiple imputation of missing data for multilevel models. Organizational ' +
+        'Research Methods, 21(1), 111–149: the imputation model must include the multilevel structure',
+      'Agresti, A. (2013). Categorical Data Analysis (3rd ed.), §3.2: Pearson chi-square test; upper tail from ' +
+        '@stdlib/stats-base-dists-chisquare-cdf',
       'alpha 0.01 and the test itself: common practice (no published threshold for concentrated missingness)',
     ],
   },

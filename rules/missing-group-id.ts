@@ -18,8 +18,10 @@ export default defineRule<Record<string, never>>({
       },
     },
     sources: [
-      'van Buuren, S. (2018). Flexible Imputation of Missing Data (2nd ed.), §7.3: the standard model assumes the class variable is fully observed',
-      'Hill, P. W., & Goldstein, H. (1998). Journal of Educational and Behavioral Statistics, 23(2), 117–128: models for missing unit identification',
+      'van Buuren, S. (2018). Flexible Imputation of Missing Data (2nd ed.), §7.3: the standard model assumes the class variable is ' +
+        'fully observed',
+      'Hill, P. W., & Goldstein, H. (1998). Journal of Educational and Behavioral Statistics, 23(2), 117–128: models for missing unit ' +
+        'identification',
     ],
   },
   async check({ profile, roles, lookup }) {

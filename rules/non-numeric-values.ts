@@ -40,7 +40,9 @@ export default defineRule<Params>({
     messages: {
       tokens: {
         message: '{column} is numeric but {count} of its {present} non-missing values ({share}) are not numbers ({kinds}): {values}',
-        fix: 'Add the tokens that mean missing to `missing` in the role map; ask the sender to send the others as plain numbers (a censored value needs its own indicator column)',
+        fix:
+          'Add the tokens that mean missing to `missing` in the role map; ask the sender to send the others as plain numbers (a ' +
+          'censored value needs its own indicator column)',
       },
     },
     sources: ['A numeric variable holds numbers; anything else is read as missing (common practice)', 'block_share 0.05: common practice'],

@@ -37,7 +37,9 @@ export default defineRule<Params>({
     messages: {
       constant: {
         message: '{column}: {count} of {groups} groups with 2+ values ({share}) have the same value on every record: {values}',
-        fix: 'Ask the sender whether {column} in the listed groups was copied from a group-level figure or filled in (e.g. a group mean) rather than measured per record',
+        fix:
+          'Ask the sender whether {column} in the listed groups was copied from a group-level figure or filled in (e.g. a group ' +
+          'mean) rather than measured per record',
       },
     },
     sources: [

@@ -38,12 +38,16 @@ export default defineRule<Params>({
     messages: {
       decompose: {
         message: '{column}: {share} of its variance lies between groups (REML ICC {reml}, ANOVA ICC(1) {anova})',
-        fix: 'Centre {column} within groups (x − group mean) and add its group mean as a level-2 (contextual) variable, so that within- and between-group effects are estimated separately',
+        fix:
+          'Centre {column} within groups (x − group mean) and add its group mean as a level-2 (contextual) variable, so that ' +
+          'within- and between-group effects are estimated separately',
       },
       groupLevel: {
         message:
           '{column}: all of its variance lies between groups; it does not vary within any group (REML ICC {reml}, ANOVA ICC(1) {anova})',
-        fix: 'Declare {column} under level2 in the role map: it is a group-level variable (centred within groups it would be zero on every record)',
+        fix:
+          'Declare {column} under level2 in the role map: it is a group-level variable (centred within groups it would be zero on ' +
+          'every record)',
       },
       small: {
         message: '{column}: only {share} of its variance lies between groups (REML ICC {reml}, ANOVA ICC(1) {anova})',
@@ -51,8 +55,10 @@ export default defineRule<Params>({
       },
     },
     sources: [
-      'Kreft, I. G. G., de Leeuw, J., & Aiken, L. S. (1995). The effect of different forms of centering in hierarchical linear models. Multivariate Behavioral Research, 30(1), 1–21',
-      'Enders, C. K., & Tofighi, D. (2007). Centering predictor variables in cross-sectional multilevel models. Psychological Methods, 12(2), 121–138',
+      'Kreft, I. G. G., de Leeuw, J., & Aiken, L. S. (1995). The effect of different forms of centering in hierarchical linear ' +
+        'models. Multivariate Behavioral Research, 30(1), 1–21',
+      'Enders, C. K., & Tofighi, D. (2007). Centering predictor variables in cross-sectional multilevel models. Psychological ' +
+        'Methods, 12(2), 121–138',
       'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.), §3.6 and §4.6: within- and between-group regressions',
       'decompose_from 0.05: heuristic (no published cutoff)',
     ],

@@ -52,11 +52,14 @@ export default defineRule<Params>({
       codes: {
         message:
           '{column}: {codes} look(s) like a missing-value code: far outside the other values and found {count} time(s) in all: {values}',
-        fix: 'If {codes} mean(s) missing, add {tokens} to `missing` in the role map (as written in the file) and ask the sender what each code means; until then they count as real values of {column}',
+        fix:
+          'If {codes} mean(s) missing, add {tokens} to `missing` in the role map (as written in the file) and ask the sender what ' +
+          'each code means; until then they count as real values of {column}',
       },
     },
     sources: [
-      'Codes such as -9, -99, -999, 999 and 9999 for missing values are a long-standing survey data convention (common practice); gap rule: heuristic',
+      'Codes such as -9, -99, -999, 999 and 9999 for missing values are a long-standing survey data convention (common practice); gap ' +
+        'rule: heuristic',
     ],
   },
   async check({ profile, params, lookup }) {

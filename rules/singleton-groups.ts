@@ -53,7 +53,8 @@ export default defineRule<Params>({
       },
     },
     sources: [
-      'Theall, K. P., et al. (2011). Impact of small group size on neighbourhood influences in multilevel models. Journal of Epidemiology and Community Health, 65(8), 688–695',
+      'Theall, K. P., et al. (2011). Impact of small group size on neighbourhood influences in multilevel models. Journal of ' +
+        'Epidemiology and Community Health, 65(8), 688–695',
       'Clarke, P. (2008). When can group level clustering be ignored? Journal of Epidemiology and Community Health, 62(8), 752–758',
       'shares 0.1 and 0.5: common practice (no published cutoff)',
     ],

@@ -38,7 +38,8 @@ export default defineRule<Params>({
           minimum: 2,
           default: 5,
           description:
-            'a group is small below this many records (Clarke 2008: an average of 5 gives valid estimates, 2 overestimates the group variance)',
+            'a group is small below this many records (Clarke 2008: an average of 5 gives valid estimates, 2 overestimates the group ' +
+            'variance)',
         },
         note_share: {
           type: 'number',
@@ -53,7 +54,8 @@ export default defineRule<Params>({
           maximum: 1,
           default: 1,
           description:
-            'warning above this share of small groups (default 1: never, since small groups are a caveat, not a defect; the strict preset uses 0.25)',
+            'warning above this share of small groups (default 1: never, since small groups are a caveat, not a defect; the strict ' +
+            'preset uses 0.25)',
         },
       },
       additionalProperties: false,
@@ -61,11 +63,14 @@ export default defineRule<Params>({
     messages: {
       small: {
         message: '{count} of {groups} groups ({share}) have fewer than {size} records; group sizes: {distribution}',
-        fix: 'Ask the sender whether the small groups are complete; if they are, expect their estimates to be shrunk strongly, and prefer latent group means to observed ones for any aggregated predictor',
+        fix:
+          'Ask the sender whether the small groups are complete; if they are, expect their estimates to be shrunk strongly, and ' +
+          'prefer latent group means to observed ones for any aggregated predictor',
       },
     },
     sources: [
-      'Clarke, P. (2008). When can group level clustering be ignored? Journal of Epidemiology and Community Health, 62(8), 752–758: valid estimates with an average of 5 per group, group variance overestimated at 2',
+      'Clarke, P. (2008). When can group level clustering be ignored? Journal of Epidemiology and Community Health, 62(8), 752–758: ' +
+        'valid estimates with an average of 5 per group, group variance overestimated at 2',
       'Schunck, R. (2016). Cluster size and aggregated level 2 variables in multilevel models. Methods, Data, Analyses, 10(1), 97–108',
       'Lüdtke, O., et al. (2008). The multilevel latent covariate model. Psychological Methods, 13(3), 203–229',
       'note_share 0.1: common practice',

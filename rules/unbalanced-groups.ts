@@ -42,12 +42,17 @@ export default defineRule<Params>({
     messages: {
       unbalanced: {
         message:
-          'group sizes vary with CV {cv} (sizes {min} to {max}, ratio {ratio}; mean {mean}): above the {limit} below which unequal sizes are negligible',
-        fix: 'No change to the delivery is needed; use n0 (reported with the ANOVA) rather than the mean group size when planning power or a design effect',
+          'group sizes vary with CV {cv} (sizes {min} to {max}, ratio {ratio}; mean {mean}): above the {limit} below which unequal ' +
+          'sizes are negligible',
+        fix:
+          'No change to the delivery is needed; use n0 (reported with the ANOVA) rather than the mean group size when planning ' +
+          'power or a design effect',
       },
     },
     sources: [
-      'Eldridge, S. M., Ashby, D., & Kerry, S. (2006). Sample size for cluster randomized trials: effect of coefficient of variation of cluster size and analysis method. International Journal of Epidemiology, 35(5), 1292–1300: CV < 0.23 negligible, about 0.65 typical',
+      'Eldridge, S. M., Ashby, D., & Kerry, S. (2006). Sample size for cluster randomized trials: effect of coefficient of variation ' +
+        'of cluster size and analysis method. International Journal of Epidemiology, 35(5), 1292–1300: CV < 0.23 negligible, about ' +
+        '0.65 typical',
       'warn_cv 1: heuristic',
     ],
   },

@@ -33,12 +33,14 @@ export default defineRule<Params>({
     messages: {
       candidate: {
         message:
-          '{column} is not in the role map and is constant within each of the {groups} groups where it has 2+ values: it may be a level-2 variable',
+          '{column} is not in the role map and is constant within each of the {groups} groups where it has 2+ values: it may be a ' +
+          'level-2 variable',
         fix: 'If {column} describes the group, add it to level2 in the role map so its constancy is checked; otherwise no change is needed',
       },
     },
     sources: [
-      'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.), ch. 2–3: a level-2 variable has one value per group (definition)',
+      'Snijders, T. A. B., & Bosker, R. J. (2012). Multilevel Analysis (2nd ed.), ch. 2–3: a level-2 variable has one value per group ' +
+        '(definition)',
     ],
   },
   check({ profile, params }) {

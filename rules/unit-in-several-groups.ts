@@ -34,12 +34,16 @@ export default defineRule<Params>({
     messages: {
       mobile: {
         message:
-          '{count} {column} value(s) occur in more than one {group} ({records} records, {share}): {ids}. A strictly nested model does not fit these units',
-        fix: 'Ask the sender whether these units really moved or belong to several groups (then plan a multiple-membership or cross-classified model, or one record per unit) or whether the IDs were reused',
+          '{count} {column} value(s) occur in more than one {group} ({records} records, {share}): {ids}. A strictly nested model does ' +
+          'not fit these units',
+        fix:
+          'Ask the sender whether these units really moved or belong to several groups (then plan a multiple-membership or ' +
+          'cross-classified model, or one record per unit) or whether the IDs were reused',
       },
     },
     sources: [
-      'Hill, P. W., & Goldstein, H. (1998). Multilevel modeling of educational data with cross-classification and missing identification for units. Journal of Educational and Behavioral Statistics, 23(2), 117–128',
+      'Hill, P. W., & Goldstein, H. (1998). Multilevel modeling of educational data with cross-classification and missing ' +
+        'identification for units. Journal of Educational and Behavioral Statistics, 23(2), 117–128',
       'block_share 0.05: common practice',
     ],
     prefetch: ['unit-ids'],

@@ -15,7 +15,9 @@ export default defineRule<Record<string, never>>({
     messages: {
       rejected: {
         message: '{count} line(s) could not be read and were left out: {lines}',
-        fix: 'Ask the sender to re-export the file so that every line has {columns} fields; the listed line numbers count the header as line 1',
+        fix:
+          'Ask the sender to re-export the file so that every line has {columns} fields; the listed line numbers count the header ' +
+          'as line 1',
       },
     },
     sources: ['common practice: nothing is dropped silently'],

@@ -30,7 +30,7 @@ describe('variable-without-statistics', () => {
     expectMessage(f, 'notNumbers', { column: 'y', numbers: 30, present: 40, kinds: 'missing codes' });
   });
 
-  it('an outcome missing everywhere, or typed categorical, blocks; a level-1 variable missing everywhere is left to missing-by-group', async () => {
+  it('an outcome missing everywhere, or typed categorical, blocks; a level-1 variable missing everywhere: missing-by-group', async () => {
     const rows = groupedRows(4, 5, (j, i) => ({ y: null, w: null, c: String(i + j) }));
     const empty = await auditRows(rows, { group: 'g', outcomes: ['y', 'c'], level1: 'w', types: { c: 'categorical' } });
     expectMessage(onlyFinding(empty, RULE, 'y'), 'allMissing', { column: 'y', role: 'an outcome', records: 20 });

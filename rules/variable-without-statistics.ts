@@ -38,13 +38,18 @@ export default defineRule<Record<string, never>>({
     messages: {
       decimalComma: {
         message:
-          '{column} is declared {role} but {numbers} of its {present} values read as numbers: they look like numbers with a decimal comma: {values}',
-        fix: 'If the fields are separated by semicolons or tabs, audit again with --decimal-comma; otherwise ask the sender to write {column} with a decimal point',
+          '{column} is declared {role} but {numbers} of its {present} values read as numbers: they look like numbers with a decimal ' +
+          'comma: {values}',
+        fix:
+          'If the fields are separated by semicolons or tabs, audit again with --decimal-comma; otherwise ask the sender to write ' +
+          '{column} with a decimal point',
       },
       notNumbers: {
         message:
           '{column} is declared {role} but {numbers} of its {present} values read as numbers; the others are mostly {kinds}: {values}',
-        fix: 'Add the tokens that mean missing to `missing` in the role map; ask the sender to send {column} as plain numbers, or type it categorical under types if it is one',
+        fix:
+          'Add the tokens that mean missing to `missing` in the role map; ask the sender to send {column} as plain numbers, or ' +
+          'type it categorical under types if it is one',
       },
       allMissing: {
         message: '{column} is declared {role} but all of its {records} values are missing: it yields no statistics',
@@ -52,11 +57,14 @@ export default defineRule<Record<string, never>>({
       },
       categorical: {
         message: '{column} is declared an outcome but typed categorical under types: no outcome statistics are computed for it',
-        fix: 'Type {column} numeric or binary under types if it holds numbers or 0/1; a categorical outcome needs a model of its own (ordinal or multinomial)',
+        fix:
+          'Type {column} numeric or binary under types if it holds numbers or 0/1; a categorical outcome needs a model of its own ' +
+          '(ordinal or multinomial)',
       },
       words: {
         message:
-          '{column} is declared {role} but written in two words that are not a known pair (yes/no, true/false, y/n), so which is 1 is not known: {values}',
+          '{column} is declared {role} but written in two words that are not a known pair (yes/no, true/false, y/n), so which is 1 is ' +
+          'not known: {values}',
         fix: 'If {column} is binary, name the word read as 1 in the role map: types: { {column}: { binary: { one: <word> } } }',
       },
     },

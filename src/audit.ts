@@ -178,6 +178,7 @@ function noRecords(path: string, rejected: readonly { line: number; reason: stri
   if (!rejected.length) return new InputError(`${path}: no records (a header and nothing under it)`);
   const first = rejected[0];
   return new InputError(
-    `${path}: no records: none of its ${rejected.length} line(s) under the header could be read (first: line ${first.line}, ${first.reason})`,
+    `${path}: no records: none of its ${rejected.length} line(s) under the header could be read (first: line ${first.line}, ` +
+      `${first.reason})`,
   );
 }

@@ -59,13 +59,13 @@ ${readingLines(report.input.reading)
 </div></header>
 <main class="wrap">
 ${verdictHtml(report)}
-<nav class="toc" aria-label="Contents"><ul><li><a href="#findings">Findings</a></li><li><a href="#statistics">Statistics</a></li><li><a href="#groups-h">Groups</a></li><li><a href="#outcomes-h">Outcomes</a></li>${report.plots && Object.keys(report.plots.predictorShares).length ? '<li><a href="#predictors-h">Level-1 predictors</a></li>' : ''}</ul></nav>
+<nav class="toc" aria-label="Contents"><ul>${tocItems(report)}</ul></nav>
 ${findingsHtml(report)}
 ${statisticsHtml(report, svgs)}
 </main>
 <footer class="wrap">
 <p>${e(THRESHOLD_CAVEAT)}</p>
-<p>Made by ${e(report.tool.name)} ${e(report.tool.version)} (${e(report.schema)}). Group ID column: <code>${e(report.roles.group)}</code>${report.roles.unit ? `, unit ID column: <code>${e(report.roles.unit)}</code>` : ''}.</p>
+<p>${madeBy(report)}</p>
 </footer>
 </body>
 </html>
@@ -98,4 +98,25 @@ function verdictHtml(report: Report): string {
 <p class="advice">${e(VERDICT_ADVICE[report.verdict])}</p>
 <p class="grade-line"><strong>${e(gradeLine(report))}</strong> <span class="muted">(${e(SCORE_RULE)})</span></p>
 </section>`;
+}
+
+/** The contents line: a link per section, the level-1 predictors only when the report has them. */
+function tocItems(report: Report): string {
+  const sections: [string, string][] = [
+    ['findings', 'Findings'],
+    ['statistics', 'Statistics'],
+    ['groups-h', 'Groups'],
+    ['outcomes-h', 'Outcomes'],
+  ];
+  if (report.plots && Object.keys(report.plots.predictorShares).length) sections.push(['predictors-h', 'Level-1 predictors']);
+  return sections.map(([id, label]) => `<li><a href="#${id}">${label}</a></li>`).join('');
+}
+
+/** The footer's line: which tool made the report, and the ID columns it keyed on. */
+function madeBy(report: Report): string {
+  const unit = report.roles.unit ? `, unit ID column: <code>${e(report.roles.unit)}</code>` : '';
+  return (
+    `Made by ${e(report.tool.name)} ${e(report.tool.version)} (${e(report.schema)}). ` +
+    `Group ID column: <code>${e(report.roles.group)}</code>${unit}.`
+  );
 }

@@ -32,7 +32,8 @@ export function renderJunit(report: Report, options: JunitOptions): string {
     if (failed.length) {
       const message = failed.length === 1 ? failed[0].message : `${failed.length} findings; first: ${failed[0].message}`;
       body.push(
-        `      <failure message="${xmlAttr(message)}" type="${xmlAttr(failed[0].severity)}">${xmlText(failed.map(findingText).join('\n\n'))}</failure>`,
+        `      <failure message="${xmlAttr(message)}" type="${xmlAttr(failed[0].severity)}">` +
+          `${xmlText(failed.map(findingText).join('\n\n'))}</failure>`,
       );
     }
     if (other.length) body.push(`      <system-out>${xmlText(other.map(findingText).join('\n\n'))}</system-out>`);

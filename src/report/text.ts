@@ -86,17 +86,21 @@ function statisticsLines(report: Report, c: ChalkInstance): string[] {
   const s = report.groups.sizes;
   const lines = [
     c.bold('Statistics'),
-    `  groups ${report.groups.count}, singletons ${report.groups.singletons}, group size min ${s.min} / median ${formatNumber(s.median, 1)} / mean ${formatNumber(s.mean, 1)} / max ${s.max}`,
+    `  groups ${report.groups.count}, singletons ${report.groups.singletons}, group size min ${s.min} / median ` +
+      `${formatNumber(s.median, 1)} / mean ${formatNumber(s.mean, 1)} / max ${s.max}`,
   ];
   for (const [name, o] of Object.entries(report.outcomes)) {
     lines.push(`  outcome ${c.bold(name)}: n ${o.n} in ${o.groups} groups, mean ${formatNumber(o.mean, 3)}`);
     const row = (label: string, v: { tau2: number; sigma2: number; icc: number; logLik: number }) =>
-      `    ${label.padEnd(6)} tau2 ${formatNumber(v.tau2, 4).padStart(10)}  sigma2 ${formatNumber(v.sigma2, 4).padStart(10)}  ICC ${formatNumber(v.icc, 4)}  logLik ${formatNumber(v.logLik, 2)}`;
+      `    ${label.padEnd(6)} tau2 ${formatNumber(v.tau2, 4).padStart(10)}  sigma2 ${formatNumber(v.sigma2, 4).padStart(10)}  ICC ` +
+      `${formatNumber(v.icc, 4)}  logLik ${formatNumber(v.logLik, 2)}`;
     lines.push(row('REML', o.reml), row('ML', o.ml));
     const a = o.anova;
     lines.push(
-      `    ANOVA  ICC(1) ${formatNumber(a.icc, 4)} [95% ${formatNumber(a.ci95[0], 4)}, ${formatNumber(a.ci95[1], 4)}]  ICC(2) ${formatNumber(a.icc2, 4)}  F ${formatNumber(a.f, 3)} on (${a.df1}, ${a.df2}) df, ${pClause(a.p)}`,
-      `    design effect ${formatNumber(o.designEffect, 3)}, effective N ${formatNumber(o.effectiveN, 1)}, mean reliability of group means ${formatNumber(o.meanReliability, 3)}`,
+      `    ANOVA  ICC(1) ${formatNumber(a.icc, 4)} [95% ${formatNumber(a.ci95[0], 4)}, ${formatNumber(a.ci95[1], 4)}]  ICC(2) ` +
+        `${formatNumber(a.icc2, 4)}  F ${formatNumber(a.f, 3)} on (${a.df1}, ${a.df2}) df, ${pClause(a.p)}`,
+      `    design effect ${formatNumber(o.designEffect, 3)}, effective N ${formatNumber(o.effectiveN, 1)}, mean reliability of group ` +
+        `means ${formatNumber(o.meanReliability, 3)}`,
     );
   }
   return lines;

@@ -36,7 +36,7 @@ const GOLDEN_FRACTION = (3 - Math.sqrt(5)) / 2;
  * @param options stopping tolerances
  * @returns the minimiser, its value and the work done
  */
-// biome-ignore lint/complexity/noExcessiveCognitiveComplexity: one published procedure (Brent's localmin), kept whole so it can be checked against the original step by step
+// biome-ignore lint/complexity/noExcessiveCognitiveComplexity: Brent's published localmin, kept whole to check step by step
 export function brentMinimize(f: (x: number) => number, lower: number, upper: number, options: BrentOptions = {}): BrentResult {
   if (!(Number.isFinite(lower) && Number.isFinite(upper) && lower < upper)) {
     throw new Error('brent: lower and upper must be finite with lower < upper');

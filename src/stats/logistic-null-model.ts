@@ -80,7 +80,8 @@ export function momentsAreZeroOne(groups: readonly GroupMoments[]): boolean {
  * Laplace approximation; with the default 25 it is, for practical purposes, exact.
  * The likelihood is maximised over (β0, log τ) by Newton's method with the exact gradient and
  * Hessian of the quadrature sum and step halving; should that not settle, by Brent's method on
- * the profile over log τ with β0 maximised for each τ (concave in β0). τ² = 0 (the ordinary logistic model) is a legitimate boundary answer.
+ * the profile over log τ with β0 maximised for each τ (concave in β0). τ² = 0 (the ordinary logistic
+ * model) is a legitimate boundary answer.
  * Groups with the same (n_j, y_j) share one integral, so the cost grows with the number of
  * distinct pairs, not of groups.
  *

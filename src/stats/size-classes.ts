@@ -14,7 +14,10 @@ export interface SizeClass extends GroupMoments {
   spread: number;
 }
 
-/** Below this many groups the fit runs over the groups themselves: 5,000 groups of up to a thousand records have a few hundred sizes, so from here on classes are the cheaper sum. */
+/**
+ * Below this many groups the fit runs over the groups themselves: 5,000 groups of up to a thousand
+ * records have a few hundred sizes, so from here on classes are the cheaper sum.
+ */
 export const SIZE_CLASSES_FROM = 2_000;
 
 /**

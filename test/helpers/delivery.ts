@@ -75,7 +75,8 @@ export function onlyFinding(report: Report, rule: string, column?: string): Find
   const list = findingsOf(report, rule).filter((f) => column === undefined || f.column === column);
   if (list.length !== 1) {
     throw new Error(
-      `expected exactly one ${rule}${column ? ` (${column})` : ''} finding, got ${list.length}: ${JSON.stringify(report.findings, null, 1)}`,
+      `expected exactly one ${rule}${column ? ` (${column})` : ''} finding, got ${list.length}: ` +
+        `${JSON.stringify(report.findings, null, 1)}`,
     );
   }
   return list[0];

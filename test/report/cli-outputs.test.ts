@@ -88,7 +88,8 @@ describe('nestready audit with several outputs', () => {
     expect(readFileSync(p('r.other'), 'utf8')).toMatch(/^# nestready: Not ready for a multilevel model\n/);
     expect(readFileSync(p('r.xml'), 'utf8')).toMatch(
       new RegExp(
-        `^<\\?xml version="1.0" encoding="UTF-8"\\?>\n<testsuites name="nestready" tests="${full.rulesRun.length}" failures="${failing.size}"`,
+        `^<\\?xml version="1.0" encoding="UTF-8"\\?>\n<testsuites name="nestready" tests="${full.rulesRun.length}" ` +
+          `failures="${failing.size}"`,
       ),
     );
     const rows = readFileSync(p('rows.csv'), 'utf8').trimEnd().split('\r\n');

@@ -41,5 +41,8 @@ function accessible(svg: string, chart: Chart): string {
   const d = `${chart.id}-desc`;
   const open = svg.indexOf('>', svg.indexOf('<svg')) + 1;
   const head = svg.slice(0, open).replace('<svg ', `<svg role="img" aria-labelledby="${t} ${d}" focusable="false" `);
-  return `${head}<title id="${t}">${escapeHtml(chart.title)}</title><desc id="${d}">${escapeHtml(chart.description)}</desc>${svg.slice(open)}`;
+  return (
+    `${head}<title id="${t}">${escapeHtml(chart.title)}</title><desc id="${d}">${escapeHtml(chart.description)}</desc>` +
+    `${svg.slice(open)}`
+  );
 }

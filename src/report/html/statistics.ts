@@ -25,7 +25,8 @@ export function statisticsHtml(report: Report, svgs: ChartSvgs): string {
   out.push(
     figure(
       svgs.sizes,
-      `Records per group. Singletons and groups below ${report.plots?.smallGroupThreshold ?? 'the threshold'} records have their own colour and are named in the legend; the dashed line marks the small-group threshold.`,
+      `Records per group. Singletons and groups below ${report.plots?.smallGroupThreshold ?? 'the threshold'} records have their own ` +
+        'colour and are named in the legend; the dashed line marks the small-group threshold.',
     ),
     '</section>',
   );
@@ -45,7 +46,8 @@ export function statisticsHtml(report: Report, svgs: ChartSvgs): string {
     out.push(
       figure(
         svgs.means.get(name) ?? null,
-        `Group means of ${name}, lowest to highest, each with mean ± 1.96·SE; the dashed line is the overall (REML) mean. The wider the spread relative to the bars, the larger the ICC.`,
+        `Group means of ${name}, lowest to highest, each with mean ± 1.96·SE; the dashed line is the overall (REML) mean. The wider ` +
+          'the spread relative to the bars, the larger the ICC.',
       ),
     );
     const ext = extremesTable(report, name);
@@ -56,7 +58,8 @@ export function statisticsHtml(report: Report, svgs: ChartSvgs): string {
       '<h4>ICC by method</h4>',
       figure(
         svgs.icc,
-        'REML, ML and ANOVA ICC(1) (with its 95% interval) for each outcome; methods differ in colour and shape. The dashed line is the low-ICC threshold.',
+        'REML, ML and ANOVA ICC(1) (with its 95% interval) for each outcome; methods differ in colour and shape. The dashed line is ' +
+          'the low-ICC threshold.',
       ),
     );
   }
@@ -69,7 +72,8 @@ export function statisticsHtml(report: Report, svgs: ChartSvgs): string {
       statTableHtml(predictors),
       figure(
         svgs.predictors,
-        'Share of each numeric level-1 predictor’s variance between groups: bar REML ICC, tick ANOVA ICC(1). A clear between-group share calls for centring within groups.',
+        'Share of each numeric level-1 predictor’s variance between groups: bar REML ICC, tick ANOVA ICC(1). A clear between-group ' +
+          'share calls for centring within groups.',
       ),
       '</section>',
     );

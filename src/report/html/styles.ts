@@ -7,7 +7,8 @@ export const STYLES = `
 * { box-sizing: border-box; }
 body { margin: 0; background: ${P.paper}; color: ${P.ink}; font: 15px/1.5 ${CHART_FONT}; }
 a { color: ${P.accent}; }
-code { font-family: ui-monospace, SFMono-Regular, Menlo, Consolas, monospace; font-size: 0.92em; background: ${P.grid}; padding: 0 0.25em; border-radius: 3px; }
+code { font-family: ui-monospace, SFMono-Regular, Menlo, Consolas, monospace; font-size: 0.92em;
+  background: ${P.grid}; padding: 0 0.25em; border-radius: 3px; }
 .wrap { max-width: 72rem; margin: 0 auto; padding: 0 1.25rem; }
 header.top { background: ${P.accent}; color: #fff; padding: 1.5rem 0 1.25rem; }
 header.top .eyebrow { margin: 0; text-transform: uppercase; letter-spacing: 0.08em; font-size: 0.8rem; opacity: 0.9; }
@@ -55,7 +56,8 @@ thead th { background: ${P.grid}; }
 td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
 .tables { display: flex; flex-wrap: wrap; gap: 0 1.5rem; align-items: flex-start; }
 .table-scroll { max-width: 100%; overflow-x: auto; }
-figure.chart { margin: 0.75rem 0 1.25rem; background: ${P.panel}; border: 1px solid ${P.line}; border-radius: 6px; padding: 0.5rem; max-width: 100%; overflow-x: auto; }
+figure.chart { margin: 0.75rem 0 1.25rem; background: ${P.panel}; border: 1px solid ${P.line}; border-radius: 6px;
+  padding: 0.5rem; max-width: 100%; overflow-x: auto; }
 figure.chart svg { display: block; max-width: 100%; height: auto; }
 figure.chart figcaption { font-size: 0.88rem; color: ${P.muted}; padding: 0.35rem 0.25rem 0; }
 .muted { color: ${P.muted}; }

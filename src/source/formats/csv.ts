@@ -54,7 +54,8 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     SkipRows: number | bigint;
     Columns: { name: string; type: string }[];
   }>(
-    `SELECT Delimiter, Quote, Escape, NewLineDelimiter, SkipRows, Columns FROM ${readCsv(file, missing, 'sniff', options).replace(/^read_csv\(/, 'sniff_csv(')}`,
+    'SELECT Delimiter, Quote, Escape, NewLineDelimiter, SkipRows, Columns FROM ' +
+      `${readCsv(file, missing, 'sniff', options).replace(/^read_csv\(/, 'sniff_csv(')}`,
   ).catch((e: Error) => {
     if (utf8?.invalid) throw new InputError(`${display}: cannot read as ${format.toUpperCase()}: not UTF-8 text; ${encodingAdvice(utf8)}`);
     throw e;
@@ -103,7 +104,8 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     sample: () => readCsv(file, missing, storage, options, true),
     async rejects(): Promise<RejectedLine[]> {
       const rows = await all<{ line: bigint; error_message: string; error_type: string; column_name: string | null; lines: bigint }>(
-        'SELECT line, error_message, error_type, column_name, len(string_split(rtrim(csv_line, chr(13) || chr(10)), chr(10))) AS lines FROM nr_rejects ' +
+        'SELECT line, error_message, error_type, column_name, len(string_split(rtrim(csv_line, chr(13) || chr(10)), chr(10))) AS ' +
+          'lines FROM nr_rejects ' +
           'WHERE scan_id = (SELECT max(scan_id) FROM nr_rejects) ORDER BY line',
       ).catch(() => []); // no table: nothing was rejected
       // DuckDB may log one line more than once (a short line: once per missing field); a line

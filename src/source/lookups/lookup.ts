@@ -82,7 +82,8 @@ export function createLookup(source: Source, group: string): Lookup {
       const d = source.dialect;
       const number = source.storage.get(column) === 'double' ? finiteDouble(c) : d.numeric(c);
       const rows = await source.all<{ token: string; k: bigint; recs: (bigint | number)[] }>(
-        `SELECT ${d.text(c)} AS token, count(*) AS k, ${d.firstValues('__rec', '__rec', EXAMPLE_LIMIT)} AS recs FROM ${source.numbered} AS d ` +
+        `SELECT ${d.text(c)} AS token, count(*) AS k, ${d.firstValues('__rec', '__rec', EXAMPLE_LIMIT)} AS recs FROM ` +
+          `${source.numbered} AS d ` +
           `WHERE ${c} IS NOT NULL AND ${number} IS NULL GROUP BY ${c} ORDER BY 2 DESC, 1 LIMIT ${limit}`,
       );
       return rows.map((r) => ({ token: String(r.token), count: Number(r.k), rows: r.recs.map(Number) }));

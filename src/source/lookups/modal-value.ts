@@ -38,7 +38,8 @@ export function modalValueSql(
   const c = ident(column);
   const value = (expr: string) => (tolerance === null ? expr : numeric(expr));
   const order = tolerance === null ? d.ordered('v') : 'v';
-  const counted = `SELECT ${g} AS g, ${value(c)} AS v, count(*) AS k FROM ${from} WHERE ${groups} AND ${value(c)} IS NOT NULL GROUP BY 1, 2`;
+  const present = `${groups} AND ${value(c)} IS NOT NULL`;
+  const counted = `SELECT ${g} AS g, ${value(c)} AS v, count(*) AS k FROM ${from} WHERE ${present} GROUP BY 1, 2`;
   const ranked = `SELECT g, v, row_number() OVER (PARTITION BY g ORDER BY k DESC, ${order}) AS r FROM (${counted}) AS counted`;
   return {
     cte: `m AS (SELECT g, v FROM (${ranked}) AS ranked WHERE r = 1)`,

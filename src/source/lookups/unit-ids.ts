@@ -76,7 +76,8 @@ export async function unitIdSummary(source: Source, db: Session, group: string, 
       });
     };
     const [t] = await db.all<Record<string, bigint | number | string>>(
-      'SELECT count(*) FILTER (WHERE distinct_rows > 1) AS conflicting, coalesce(sum(n) FILTER (WHERE distinct_rows > 1), 0) AS conflicting_records, ' +
+      'SELECT count(*) FILTER (WHERE distinct_rows > 1) AS conflicting, coalesce(sum(n) FILTER (WHERE distinct_rows > 1), 0) AS ' +
+        'conflicting_records, ' +
         'count(*) FILTER (WHERE n > distinct_rows) AS copied, coalesce(sum(n - distinct_rows), 0) AS copies, ' +
         'count(*) FILTER (WHERE groups > 1) AS mobile, coalesce(sum(n) FILTER (WHERE groups > 1), 0) AS mobile_records FROM nr_unit_ids',
     );

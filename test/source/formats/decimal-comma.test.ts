@@ -42,7 +42,7 @@ describe('numbers written with a decimal comma', () => {
     );
   });
 
-  it('quoted decimal commas in a file separated by commas are not guessed: the outcome without statistics blocks, and says why', async () => {
+  it('quoted decimal commas in a comma-separated file are not guessed: the outcome without statistics blocks, saying why', async () => {
     const report = await audit(european(',', true), roles, { threads: 1 });
     expect(report.input.reading).toBeUndefined();
     expect(report.outcomes).toEqual({});

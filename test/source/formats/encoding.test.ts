@@ -43,7 +43,10 @@ describe('windows-1252 deliveries', () => {
 
   it('read as UTF-8: an input error naming the likely encoding and the option', async () => {
     await expect(audit(CP1252, roles)).rejects.toThrow(
-      /windows\.cp1252\.csv: not UTF-8 text: \d+ of the \d+ lines with non-ASCII bytes in its first megabyte are invalid UTF-8; looks like windows-1252 \(bytes 0x80-0x9F such as ’ € –\): try --encoding windows-1252$/,
+      new RegExp(
+        'windows\\.cp1252\\.csv: not UTF-8 text: \\d+ of the \\d+ lines with non-ASCII bytes in its first megabyte are invalid ' +
+          'UTF-8; looks like windows-1252 \\(bytes 0x80-0x9F such as ’ € –\\): try --encoding windows-1252$',
+      ),
     );
   });
 

@@ -57,7 +57,8 @@ export function readCsv(
   options: CsvOptions = {},
   sample = false,
 ): string {
-  const nullstr = `nullstr = [${missing.map(literal).join(', ')}]${csvOptions(storage === 'sniff' ? { ...options, dialect: undefined } : options)}`;
+  const given = csvOptions(storage === 'sniff' ? { ...options, dialect: undefined } : options);
+  const nullstr = `nullstr = [${missing.map(literal).join(', ')}]${given}`;
   if (storage === 'sniff') return `read_csv(${literal(path)}, header = true, ${nullstr}, ignore_errors = true)`;
   const types = [...storage].map(([c, s]) => `${literal(c)}: '${s === 'double' ? 'DOUBLE' : 'VARCHAR'}'`).join(', ');
   // with auto-detection off the columns are given in full, in order (`columns`), not as hints
