@@ -39,3 +39,17 @@ export function writeOutput(target: OutputTarget, text: string, options: { quiet
     process.stderr.write(`nestready: wrote ${what} to ${target.path}\n`);
   }
 }
+
+/** The drafted role map to stdout, or to a file with a line on stderr saying where. */
+export function writeDraftFile(path: string | undefined, text: string, quiet: boolean): void {
+  if (path === undefined) {
+    process.stdout.write(text);
+    return;
+  }
+  try {
+    writeFileSync(path, text);
+  } catch (e) {
+    throw new InputError(`${path}: cannot write the draft (${(e as NodeJS.ErrnoException).code ?? e})`);
+  }
+  if (!quiet) process.stderr.write(`nestready: wrote the drafted role map to ${path}\n`);
+}
