@@ -2,7 +2,7 @@ import { groupSizes } from '../profile/group-stats.js';
 import { readsAsNumbers } from '../profile/reads-as-numbers.js';
 import type { Profile } from '../profile/types.js';
 import type { Census } from '../source/plan/census.js';
-import { outcomeStats } from '../stats/index.js';
+import { nonEmptyGroups, remlComponents } from '../stats/index.js';
 import { formatNumber } from '../util/format.js';
 import { codeLike } from './candidates.js';
 import { constancy, isConstant } from './constancy.js';
@@ -98,10 +98,7 @@ function pickParent(
 }
 
 function iccEvidence(profile: Profile, column: string): string {
-  try {
-    const stats = outcomeStats(profile.moments(column));
-    return `ICC ${formatNumber(stats.reml.icc, 2)} (REML, null model by the group)`;
-  } catch {
-    return 'numeric, varies within groups';
-  }
+  const groups = nonEmptyGroups(profile.moments(column));
+  if (groups.length < 2) return 'numeric, varies within groups';
+  return `ICC ${formatNumber(remlComponents(groups).icc, 2)} (REML, null model by the group)`;
 }

@@ -84,6 +84,29 @@ async function draftFrom(source: Source, options: DraftOptions): Promise<Draft> 
   if (options.group !== undefined && !names.includes(options.group)) names.unshift(options.group);
   if (!names.length) throw new InputError(`${path}: no column repeats its values as a group ID would (give one with --group)`);
 
+  // the unit's exact count of values: the census's when it counted exactly, else a count on a
+  // session of its own beside the next passes (let finish before the source closes)
+  const counted = census.columns.find((c) => c.name === unitColumn)?.distinct ?? 0;
+  const unitDistinct = unitColumn === undefined ? undefined : census.exact ? Promise.resolve(counted) : distinctCount(source, unitColumn);
+  unitDistinct?.catch(() => undefined);
+  try {
+    return await draftBy(source, options, { census, names, unitColumn, unitDistinct });
+  } finally {
+    await unitDistinct?.catch(() => undefined);
+  }
+}
+
+/** The census's choices, for the passes that follow. */
+interface Picked {
+  census: Census;
+  /** the group candidates */
+  names: string[];
+  unitColumn?: string;
+  unitDistinct?: Promise<number>;
+}
+
+async function draftBy(source: Source, options: DraftOptions, { census, names, unitColumn, unitDistinct }: Picked): Promise<Draft> {
+  const path = source.path;
   // every candidate screened in one pass; only the chosen one gets the profiling pass
   const others = source.header.filter((c) => c !== unitColumn);
   const evidence = (await screenCandidates(source, names, others)).map((screen) => candidateEvidence(screen, source.header));
@@ -91,9 +114,6 @@ async function draftFrom(source: Source, options: DraftOptions): Promise<Draft> 
   const chosen = options.group !== undefined ? evidence.find((e) => e.column === options.group) : ranked[0];
   if (!chosen) throw new InputError(`${path}: no candidate group column has a group of two records or more (give one with --group)`);
 
-  // the exact count of the unit's values runs beside the profiling pass
-  const unitDistinct = unitColumn ? distinctCount(source, unitColumn) : undefined;
-  unitDistinct?.catch(() => undefined);
   // IDs are compared as written ("007" is not 7)
   if (source.storage.get(chosen.column) === 'double') await source.readAsText([chosen.column]);
   const profile = await buildProfile(source, profilingRoles(source.header, chosen.column, unitColumn));

@@ -37,7 +37,7 @@ export async function columnCensus(source: Source, exact: boolean): Promise<Cens
     const x = source.storage.get(name) === 'double' ? c : source.textOnly.has(name) ? null : source.dialect.numeric(c);
     aggs.push(x ? `count(*) FILTER (WHERE ${x} <> floor(${x})) AS f${i}` : `0 AS f${i}`);
   });
-  const [row] = await source.all<Record<string, unknown>>(`SELECT ${aggs.join(', ')} FROM ${source.view} AS nr_census`);
+  const row = firstRow(await source.columns(`SELECT ${aggs.join(', ')} FROM ${source.view} AS nr_census`));
   return {
     rows: Number(row.n),
     exact: exact || source.dialect.name !== 'duckdb',
@@ -50,10 +50,24 @@ export async function columnCensus(source: Source, exact: boolean): Promise<Cens
   };
 }
 
-/** Exact distinct non-missing values of one column. */
+/** A full read's one-row result (by column, as `Source.columns` gives it) as a record. */
+function firstRow(result: Record<string, unknown[]>): Record<string, unknown> {
+  return Object.fromEntries(Object.entries(result).map(([k, v]) => [k, v[0]]));
+}
+
+/**
+ * Exact distinct non-missing values of one column, on a session of its own (it may run beside
+ * another full read); the engine may raise its memory for the hash table of a million IDs.
+ */
 export async function distinctCount(source: Source, column: string): Promise<number> {
-  const [row] = await source.all<{ d: unknown }>(`SELECT count(DISTINCT ${ident(column)}) AS d FROM ${source.view} AS nr_distinct`);
-  return Number(row.d);
+  return source.session(async (db) => {
+    await db.run(`CREATE TEMP TABLE nr_draft_distinct AS SELECT count(DISTINCT ${ident(column)}) AS d FROM ${source.view} AS v`, {
+      grow: true,
+    });
+    const [row] = await db.all<{ d: unknown }>('SELECT d FROM nr_draft_distinct');
+    await db.run('DROP TABLE nr_draft_distinct');
+    return Number(row.d);
+  });
 }
 
 /** How one group candidate's groups hold the other columns. */
@@ -98,10 +112,11 @@ export async function screenCandidates(
   ]);
   // each row of the inner result belongs to one set: the candidate whose GROUPING() is 0
   const own = candidates.map((_, i) => `(s${i} = 0 AND k${i} IS NOT NULL)`).join(' OR ');
-  const result = await source.all<Record<string, unknown>>(
+  const byColumn = await source.columns(
     `SELECT ${[...flags, 'count(*) AS groups', 'count(*) FILTER (WHERE n >= 2) AS multi', ...counts].join(', ')} ` +
       `FROM (${inner}) AS nr_sets WHERE ${own} GROUP BY ${flags.join(', ')}`,
   );
+  const result = (byColumn.groups ?? []).map((_, r) => Object.fromEntries(Object.entries(byColumn).map(([k, v]) => [k, v[r]])));
   return candidates.flatMap((group, i) => {
     const row = result.find((r) => Number(r[`s${i}`]) === 0);
     if (!row) return [];
