@@ -21,7 +21,7 @@ export interface ClassifyInput {
   unit?: Choice;
 }
 
-type Roles = Pick<DraftPlan, 'parent' | 'level1' | 'level2' | 'outcomes' | 'types' | 'left'>;
+type Levels = Pick<DraftPlan, 'parent' | 'level1' | 'level2' | 'outcomes' | 'types' | 'left'>;
 
 /**
  * Level 2: constant within (almost) every group of the chosen group column; level 1: the rest.
@@ -29,7 +29,7 @@ type Roles = Pick<DraftPlan, 'parent' | 'level1' | 'level2' | 'outcomes' | 'type
  * columns of its own constant (a level above) or stands among the identifier columns that open
  * the header. Outcome candidates are the numeric level-1 columns that are not codes of records.
  */
-export function classify({ census, chosen, profile, candidates, unit }: ClassifyInput): Roles {
+export function classify({ census, chosen, profile, candidates, unit }: ClassifyInput): Levels {
   const byName = new Map(census.columns.map((c) => [c.name, c]));
   const taken = new Set([chosen.column, unit?.column]);
   const level1: Choice[] = [];
@@ -55,7 +55,7 @@ export function classify({ census, chosen, profile, candidates, unit }: Classify
     outcomes.push({ column: c.column, evidence: iccEvidence(profile, c.column) });
   }
 
-  const types: Roles['types'] = [];
+  const types: Levels['types'] = [];
   for (const c of [...level1, ...level2Kept]) {
     const col = profile.column(c.column);
     if (readsAsNumbers(col) && col.type === 'binary') types.push({ column: c.column, type: 'binary', evidence: 'values 0 and 1 only' });

@@ -1,4 +1,5 @@
 import { catalogue } from '../../rules/index.js';
+import { openInput } from '../audit.js';
 import { InputError } from '../errors.js';
 import { buildProfile, loadArquero } from '../profile/build.js';
 import { groupSizes } from '../profile/group-stats.js';
@@ -8,7 +9,6 @@ import { DEFAULT_MISSING } from '../roles/schema.js';
 import type { Roles } from '../roles/types.js';
 import { createLookup } from '../source/lookups/lookup.js';
 import type { DeliveryInput, Encoding, InputFormat, Source } from '../source/open.js';
-import { openSource } from '../source/open.js';
 import type { Census } from '../source/plan/census.js';
 import { columnCensus, distinctCount, screenCandidates } from '../source/plan/census.js';
 import { groupCandidates, MAX_CANDIDATES, unitCandidate } from './candidates.js';
@@ -51,15 +51,7 @@ export async function draftRoles(input: DeliveryInput, options: DraftOptions = {
   loadArquero().catch(() => undefined);
   // no column is the group yet: the source reads every column by its content
   const opening: Roles = { group: '', outcomes: [], level1: [], level2: [], missing: [...DEFAULT_MISSING], types: {}, rules: {} };
-  const source = await openSource(input, opening, {
-    missing: DEFAULT_MISSING,
-    memoryLimit: options.memoryLimit,
-    threads: options.threads,
-    format: options.inputFormat,
-    encoding: options.encoding,
-    sheet: options.sheet,
-    displayPath: options.displayPath,
-  });
+  const source = await openInput(input, opening, options);
   try {
     return await draftFrom(source, options);
   } finally {

@@ -1,15 +1,18 @@
 import { stringify } from 'yaml';
+import { count } from './numbers.js';
 import type { DraftPlan } from './plan.js';
 
-/** A scalar as YAML writes it on one line (names with `:`, `#`, quotes or leading digits are quoted). */
+/** A scalar as YAML writes it, on one line (names with `:`, `#`, quotes or leading digits are quoted). */
 function scalar(value: string): string {
-  return stringify(value, { lineWidth: 0 }).trimEnd();
+  // a line break would make a block scalar: a JSON string is a double-quoted YAML scalar on one line
+  return /[\r\n]/.test(value) ? JSON.stringify(value) : stringify(value, { lineWidth: 0 }).trimEnd();
 }
 
 /** `text` with its comment, the comments of a block lined up. */
 function lines(entries: [string, string | undefined][]): string[] {
   const width = Math.min(40, Math.max(0, ...entries.map(([text]) => text.length)));
-  return entries.map(([text, comment]) => (comment ? `${text.padEnd(width)}  # ${comment}` : text));
+  // a comment ends at the line's end: line breaks in names it quotes become spaces
+  return entries.map(([text, comment]) => (comment ? `${text.padEnd(width)}  # ${comment.replace(/[\r\n]+/g, ' ')}` : text));
 }
 
 const HEADER = [
@@ -22,11 +25,11 @@ const HEADER = [
 
 /** The plan as a commented YAML role map. */
 export function writeDraft(plan: DraftPlan): string {
-  const out: string[] = [...HEADER, `# delivery: ${plan.input} (${plan.rows.toLocaleString('en-US')} records)`, ''];
+  const out: string[] = [...HEADER, `# delivery: ${plan.input} (${count(plan.rows)} records)`, ''];
   out.push(...lines([[`group: ${scalar(plan.group.column)}`, plan.group.evidence]]));
   if (plan.otherGroups.length) {
     out.push('# other group candidates, by the same evidence:');
-    out.push(...lines(plan.otherGroups.map((c) => [`#   ${c.column}`, c.evidence])));
+    out.push(...lines(plan.otherGroups.map((c) => [`#   ${scalar(c.column)}`, c.evidence])));
   }
   if (plan.unit) out.push(...lines([[`unit: ${scalar(plan.unit.column)}`, plan.unit.evidence]]));
   else out.push('# unit: no column holds a distinct value on (almost) every record');
@@ -39,7 +42,7 @@ export function writeDraft(plan: DraftPlan): string {
   out.push(...missing(plan));
   if (plan.left.length) {
     out.push('', '# left out:');
-    out.push(...lines(plan.left.map((c) => [`#   ${c.column}`, c.evidence])));
+    out.push(...lines(plan.left.map((c) => [`#   ${scalar(c.column)}`, c.evidence])));
   }
   return `${out.join('\n')}\n`;
 }
@@ -83,11 +86,11 @@ function missing(plan: DraftPlan): string[] {
   const others = candidates.filter((c) => c.kind !== 'missing code' && c.kind !== 'sentinel');
   if (others.length) {
     out.push('  # other text in numeric columns, not missing codes (ask the sender for plain numbers):');
-    out.push(...lines(others.map((c) => [`  #   ${scalar(c.token)}`, `${c.kind}: ${c.count} in ${c.column}`])));
+    out.push(...lines(others.map((c) => [`  #   ${scalar(c.token)}`, `${c.kind}: ${count(c.count)} in ${c.column}`])));
   }
   return out;
 }
 
 function seenIn(found: DraftPlan['missing']['candidates']): string {
-  return found.map((c) => `${c.count.toLocaleString('en-US')} in ${c.column}`).join(', ');
+  return found.map((c) => `${count(c.count)} in ${c.column}`).join(', ');
 }

@@ -153,3 +153,22 @@ describe('draft on a delivery with two nested group columns', () => {
     expect(draft.plan.otherGroups[0]?.column).toBe('school');
   });
 });
+
+describe('draft with awkward column names', () => {
+  it('quotes names YAML would misread, and the draft still loads', async () => {
+    const random = mulberry32(7);
+    const rows = [];
+    for (let i = 0; i < 200; i++) {
+      const site = `s${i % 20}`;
+      rows.push({ 'rec: id': i + 1, 'site #': site, true: ((i % 20) % 3) + 0.5, 'score "x"': (10 * random()).toFixed(2) });
+    }
+    const file = join(dir, 'awkward.csv');
+    writeFileSync(file, toCsv(rows));
+    const draft = await draftRoles(file);
+    const roles = loadDrafted('awkward.yaml', draft.text);
+    expect(roles.group).toBe('site #');
+    expect(roles.unit).toBe('rec: id');
+    expect(roles.level2).toEqual(['true']);
+    expect(roles.level1).toEqual(['score "x"']);
+  });
+});
