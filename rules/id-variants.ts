@@ -9,6 +9,7 @@ interface Params {
   units: boolean;
 }
 
+const INTO = 'several groups: {sets}';
 const HOW = 'after trimming spaces, case-folding, stripping leading zeros and reading numbers as numbers ("12" = "12.0")';
 
 /** IDs that differ only in spelling split one group (or one unit) into several. */
@@ -35,8 +36,7 @@ export default defineRule<Params>({
     },
     messages: {
       groups: {
-        message:
-          `{count} {column} value(s) are one ID written in more than one way (${HOW}), ` + 'which splits each into several groups: {sets}',
+        message: `{count} {column} value(s) are one ID written in more than one way (${HOW}), which splits each into ${INTO}`,
         fix:
           'Ask the sender to write each {column} one way (the most common spelling is listed first) and to correct the listed ' +
           'records, or to confirm in writing that the spellings are different groups',

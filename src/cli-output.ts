@@ -141,3 +141,15 @@ function existingMode(path: string): number | undefined {
     return undefined;
   }
 }
+
+/** The drafted role map to stdout, or to a file (written whole, never over the delivery) with a line on stderr saying where. */
+export function writeDraftFile(path: string | undefined, text: string, quiet: boolean, delivery?: string): void {
+  if (path === undefined) {
+    process.stdout.write(text);
+    return;
+  }
+  if (delivery !== undefined && delivery !== STDIN)
+    refuseInputOverwrite([{ path, option: '--out' }], [{ path: delivery, what: 'the delivery' }]);
+  writeFileAtomic(path, text);
+  if (!quiet) process.stderr.write(`nestready: wrote the drafted role map to ${path}\n`);
+}

@@ -3,7 +3,7 @@ import { Command, InvalidArgumentError, Option } from 'commander';
 import { catalogue } from '../rules/index.js';
 import { endingFor } from './cli-exit.js';
 import { memorySize, sheetNote } from './cli-options.js';
-import { planOutputs, protectInputs, writeOutput } from './cli-output.js';
+import { planOutputs, protectInputs, writeDraftFile, writeOutput } from './cli-output.js';
 import { startProgress } from './cli-progress.js';
 import { InputError } from './errors.js';
 import type { FailOn } from './grade.js';
@@ -51,8 +51,19 @@ interface AuditFlags {
   strict?: boolean;
 }
 
+interface DraftFlags {
+  group?: string;
+  out?: string;
+  candidates: number;
+  quiet?: boolean;
+  memoryLimit: string;
+  inputFormat?: InputFormat;
+  encoding?: Encoding;
+  sheet?: string;
+}
+
 /** The delivery the flags name: a file, `-` (stdin, spooled once so every reader sees the same bytes), or PostgreSQL. */
-async function deliveryInput(delivery: string | undefined, flags: AuditFlags) {
+async function deliveryInput(delivery: string | undefined, flags: Pick<AuditFlags, 'source' | 'table' | 'query'>) {
   if (flags.source !== undefined) {
     if (delivery !== undefined) throw new InputError('give either a delivery file or --source, not both');
     const input = databaseInput(flags.source, flags);
@@ -185,6 +196,38 @@ export function buildProgram(): Command {
           }
         }
         process.exitCode = exitCode(report.findings, flags.failOn);
+      } finally {
+        resolved.done();
+      }
+    });
+
+  program
+    .command('draft')
+    .description('propose a role map from the data alone: a commented YAML draft, each choice with its evidence, to review')
+    .argument('<delivery>', 'the delivery file (any format audit reads), or - for standard input')
+    .option('--group <column>', 'take this column as the group ID instead of the best candidate')
+    .option('-o, --out <file>', 'write the draft to this file instead of stdout')
+    .option('--candidates <n>', 'screen at most this many group candidates', count, 5)
+    .option('-q, --quiet', 'no progress line and no "wrote" line')
+    .option('--memory-limit <size>', 'DuckDB memory before it spills to disk', memorySize, '100MB')
+    .addOption(new Option('--input-format <format>', 'the delivery format (default: from the name and content)').choices(INPUT_FORMATS))
+    .addOption(new Option('--encoding <encoding>', 'text encoding of a CSV/TSV delivery').choices(ENCODINGS).default('utf-8'))
+    .option('--sheet <name>', 'Excel: the worksheet to read (default the first)')
+    .action(async (deliveryArg: string, flags: DraftFlags) => {
+      const resolved = await deliveryInput(deliveryArg, {});
+      try {
+        const stop = startProgress(resolved.label, 'drafting a role map for', { quiet: flags.quiet === true });
+        const { draftRoles } = await import('./draft/draft.js');
+        const draft = await draftRoles(resolved.input, {
+          group: flags.group,
+          candidates: flags.candidates,
+          memoryLimit: flags.memoryLimit,
+          inputFormat: flags.inputFormat,
+          encoding: flags.encoding,
+          sheet: flags.sheet,
+          displayPath: resolved.displayPath,
+        }).finally(stop);
+        writeDraftFile(flags.out, draft.text, flags.quiet === true, isFileInput(resolved.input) ? resolved.input : undefined);
       } finally {
         resolved.done();
       }

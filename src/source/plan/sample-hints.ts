@@ -30,7 +30,8 @@ export async function sampleHints(
   const textOnly = new Set<string>();
   const candidates = header.filter((c) => storage.get(c) === 'text' && !ids.has(c) && roles.types[c] !== 'categorical');
   const aggs = [
-    `count(DISTINCT ${ident(roles.group)}) AS sampled_groups`,
+    // a role map may name a group the header lacks (checked and reported after opening)
+    header.includes(roles.group) ? `count(DISTINCT ${ident(roles.group)}) AS sampled_groups` : '0 AS sampled_groups',
     ...candidates.map((c, i) => `count(${ident(c)}) AS n${i}, count(${numeric(ident(c))}) AS k${i}`),
   ];
   const worded = wordCandidates(header, storage, roles);
