@@ -49,7 +49,7 @@ export interface AuditOptions {
   displayPath?: string;
   /**
    * compute the report's `plots` (default true): the HTML and Markdown reports read them; a JSON
-   * or terminal report does not (at 5,000 groups they cost 0.03-0.05 s: a REML fit per level-1 column)
+   * or terminal report does not (they cost a REML fit per level-1 column)
    */
   plotData?: boolean;
 }
@@ -84,7 +84,7 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
     const catalogue = options.catalogue ?? builtIn;
     const lookup = createLookup(source, roles.group);
     // the unit-ID check scans the delivery again: start it once the profile has read it, so it
-    // runs while the profile's result is converted and the rules compute (1M rows: 0.15 s sooner)
+    // runs while the profile's result is converted and the rules compute
     const unit = roles.unit;
     const prefetch =
       unit && wantsUnitIds(catalogue, roles) ? () => void early.push(lookup.unitIds(unit).catch(() => undefined)) : undefined;

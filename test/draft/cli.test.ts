@@ -58,7 +58,7 @@ describe('nestready draft', () => {
     const out = join(dir, 'no-such-dir', 'roles.yaml');
     const run = await nestready('draft', 'fixtures/demo/repairs-clean.csv', '--out', out, '--quiet');
     expect(run.code).toBe(2);
-    expect(run.stderr).toContain(`${out}: cannot write the draft`);
+    expect(run.stderr).toContain(`${out}: cannot write the output (ENOENT)`);
     expect(() => readFileSync(out)).toThrow();
   });
 });

@@ -73,9 +73,8 @@ export function readCsv(
 
 /**
  * The CSV reader's buffer per scan. DuckDB's default (32 MiB) holds several buffers in flight per
- * thread; 4 MiB (twice the longest line it accepts by default) measured on 10 million rows × 10
- * columns: peak RSS of the profiling pass 170 MB instead of 273 MB, and at 1 million rows the
- * pass 0.55 s instead of 0.64 s and the read of the first rows for type hints 27 ms instead of 45.
+ * thread; 4 MiB (twice the longest line it accepts by default) lowers the profiling pass's peak
+ * memory and is no slower (docs/performance.md has the figures).
  */
 export const CSV_BUFFER_BYTES = 4 * 2 ** 20;
 
