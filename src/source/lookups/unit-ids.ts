@@ -31,7 +31,6 @@ export async function unitIdSummary(source: Source, db: Session, group: string, 
     await db.run(
       `CREATE TEMP TABLE nr_unit_keys AS SELECT ${d.keyHash(['kd', 'ks'])} AS h, count(*) AS n ` +
         `FROM (${normalizedIdQuery(source.view, '1 AS one', u, d)}) AS keyed GROUP BY 1 HAVING count(*) > 1`,
-      { grow: true },
     );
     const [{ keys }] = await db.all<{ keys: bigint }>('SELECT count(*) AS keys FROM nr_unit_keys');
     if (Number(keys) === 0) return empty;

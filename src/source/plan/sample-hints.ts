@@ -2,6 +2,15 @@ import type { Roles } from '../../roles/types.js';
 import type { Storage } from '../sql.js';
 import { ident } from '../sql.js';
 
+/** How many groups the sampled records show, and how many of those were seen once and twice. */
+export interface GroupSample {
+  /** records sampled (fewer than SAMPLE_ROWS: the whole delivery) */
+  records: number;
+  groups: number;
+  seenOnce: number;
+  seenTwice: number;
+}
+
 /** Rows sampled to tell text columns that hold numbers from those that hold none. */
 export const SAMPLE_ROWS = 20480;
 
@@ -9,7 +18,8 @@ export const SAMPLE_ROWS = 20480;
  * Read the first rows once: a text column whose sampled values are all numbers is probed (the
  * profile decides whether it is numeric throughout); one whose sampled values hold no number
  * (and whose type the role map leaves open) gets no numeric reading — converting every value of
- * a text column such as "18-29" only to fail is the dearest thing a pass can do.
+ * a text column such as "18-29" only to fail is the dearest thing a pass can do. The same read
+ * counts the groups the first rows show (DuckDB sizes its memory from them).
  */
 export async function sampleHints(
   all: <T>(sql: string) => Promise<T[]>,
@@ -20,16 +30,21 @@ export async function sampleHints(
   ids: Set<string | undefined>,
   probing: boolean,
   numeric: (expr: string) => string,
-): Promise<{ probe: Set<string>; textOnly: Set<string>; sampledGroups: number }> {
+): Promise<{ probe: Set<string>; textOnly: Set<string>; groups: GroupSample }> {
   const probe = new Set<string>();
   const textOnly = new Set<string>();
   const candidates = header.filter((c) => storage.get(c) === 'text' && !ids.has(c) && roles.types[c] !== 'categorical');
+  // each sampled record with the number of sampled records of its group, so that the groups seen
+  // once and twice are counted in the same read (an estimate of the delivery's groups needs them)
+  const g = ident(roles.group);
+  const seen = (k: number) => `count(*) FILTER (WHERE nr_seen = ${k} AND ${g} IS NOT NULL)`;
   const aggs = [
-    `count(DISTINCT ${ident(roles.group)}) AS sampled_groups`,
+    `count(*) AS sampled_records, count(DISTINCT ${g}) AS sampled_groups, ${seen(1)} AS seen_once, ${seen(2)} / 2 AS seen_twice`,
     ...candidates.map((c, i) => `count(${ident(c)}) AS n${i}, count(${numeric(ident(c))}) AS k${i}`),
   ];
   const [row] = await all<Record<string, unknown>>(
-    `SELECT ${aggs.join(', ')} FROM (SELECT * FROM ${view} LIMIT ${SAMPLE_ROWS}) AS nr_sample`,
+    `SELECT ${aggs.join(', ')} FROM (SELECT *, count(*) OVER (PARTITION BY ${g}) AS nr_seen ` +
+      `FROM (SELECT * FROM ${view} LIMIT ${SAMPLE_ROWS}) AS nr_first) AS nr_sample`,
   );
   candidates.forEach((c, i) => {
     const n = Number(row[`n${i}`]);
@@ -37,7 +52,13 @@ export async function sampleHints(
     if (probing && n > 0 && k === n) probe.add(c);
     else if (n > 0 && k === 0 && roles.types[c] === undefined) textOnly.add(c);
   });
-  return { probe, textOnly, sampledGroups: Number(row.sampled_groups) };
+  const groups = {
+    records: Number(row.sampled_records),
+    groups: Number(row.sampled_groups),
+    seenOnce: Number(row.seen_once),
+    seenTwice: Number(row.seen_twice),
+  };
+  return { probe, textOnly, groups };
 }
 
 /** Missing tokens that are numbers, compared as numbers in numeric columns ("-999" ↔ -999.0). */
