@@ -131,7 +131,8 @@ export function buildProgram(): Command {
     .option('--no-color', 'no colour')
     .option(
       '--memory-limit <size>',
-      'DuckDB memory before it spills to disk (an aggregate that cannot run within it is run again with four times the limit, up to 4 GiB)',
+      'DuckDB memory before it spills to disk; raised to what the delivery needs (its readers, its groups), and a query that ' +
+        'runs out of memory anyway is run again with four times the limit, up to 4 GiB',
       memorySize,
       '100MB',
     )

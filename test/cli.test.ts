@@ -135,10 +135,11 @@ describe.concurrent('nestready audit --out: where the files went', () => {
 });
 
 describe.concurrent('nestready audit: usage and input errors exit 2 with one line', () => {
-  it('too little memory for DuckDB: one line naming --memory-limit, not a crash', async ({ expect }) => {
-    // DuckDB's CSV reader needs a buffer of about 30 MiB, so 10MB cannot work for any file
-    const line = expectUsageError(await nestready('audit', ...clean, '--memory-limit', '10MB'));
-    expect(line).toMatch(/^nestready: fixtures\/demo\/repairs-clean\.csv: out of memory within --memory-limit .*raise --memory-limit$/);
+  it("a --memory-limit below what DuckDB's readers need is raised to the need: no out-of-memory error", async ({ expect }) => {
+    // DuckDB's CSV sniffer needs a buffer of about 30 MiB, so 10MB alone cannot work for any file
+    const run = await nestready('audit', ...clean, '--memory-limit', '10MB');
+    expect(run.code, run.stderr).toBe(0);
+    expect(run.stderr).toBe('');
   });
 
   it('malformed YAML: the role map file and line:col', async ({ expect }) => {

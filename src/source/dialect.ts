@@ -25,12 +25,22 @@ export interface Dialect {
   firstValues(expr: string, order: string, limit: number): string;
   /** a hash of a record's columns, for telling exact copies apart */
   rowHash(exprs: readonly string[]): string;
-  /** a 64-bit integer hash of some values (NULLs included), for grouping on a narrow key */
-  keyHash(exprs: readonly string[]): string;
+  /**
+   * a 64-bit integer hash of a normalised ID's key, for grouping on a narrow key: `number` (a
+   * double) where it is not NULL, else `text`
+   */
+  keyHash(number: string, text: string): string;
 }
 
-/** A number as both engines' double casts accept it (no hex, no thousands separators). */
-const NUMBER_RE = String.raw`^\s*[-+]?([0-9]{1,250}(\.[0-9]{0,250})?|\.[0-9]{1,250})([eE][-+]?[0-9]{1,3})?\s*$`;
+/**
+ * A number as both engines' double casts accept it (no hex, no thousands separators). No bounded
+ * repetition of the digits: PostgreSQL's regular expressions expand `{1,250}` into as many
+ * states, which made every match many times dearer (docs/performance.md); the numeric cast's
+ * limits are kept by a length guard instead (postgres.numeric).
+ */
+const NUMBER_RE = String.raw`^\s*[-+]?([0-9]+(\.[0-9]*)?|\.[0-9]+)([eE][-+]?[0-9]{1,3})?\s*$`;
+/** The most digits PostgreSQL's numeric type takes after the point (a longer text fails its cast). */
+const NUMERIC_DIGITS = 16383;
 
 export const duckdb: Dialect = {
   name: 'duckdb',
@@ -40,21 +50,24 @@ export const duckdb: Dialect = {
   ordered: (e) => e,
   firstValues: (e, order, limit) => `list(${e} ORDER BY ${order})[1:${limit}]`,
   rowHash: (exprs) => `hash(${exprs.join(', ')})`,
-  keyHash: (exprs) => `hash(${exprs.join(', ')})`,
+  keyHash: (number, text) => `hash(${number}, ${text})`,
 };
 
 export const postgres: Dialect = {
   name: 'postgres',
   double: (e) => `CAST(${e} AS double precision)`,
   text: (e) => `CAST(${e} AS text)`,
-  // PostgreSQL has no TRY_CAST before version 16's pg_input_is_valid: a regular expression
-  // guards the cast. Its bounds keep every accepted value inside double precision's range.
+  // PostgreSQL has no TRY_CAST before version 16's pg_input_is_valid: a regular expression and
+  // the length guard the cast to numeric; the bounds keep what is read inside double precision's range
   numeric: (e) =>
-    `(CASE WHEN ${e} ~ '${NUMBER_RE}' THEN CASE WHEN abs(CAST(${e} AS numeric)) < ${MAX_MAGNITUDE} ` +
+    `(CASE WHEN length(${e}) <= ${NUMERIC_DIGITS} AND ${e} ~ '${NUMBER_RE}' THEN CASE WHEN abs(CAST(${e} AS numeric)) < ${MAX_MAGNITUDE} ` +
     `AND (CAST(${e} AS numeric) = 0 OR abs(CAST(${e} AS numeric)) > 1e-307) THEN CAST(${e} AS double precision) END END)`,
   // min/max of text follow the database collation in PostgreSQL; "C" is byte order, as DuckDB
   ordered: (e) => `(${e} COLLATE "C")`,
   firstValues: (e, order, limit) => `(array_agg(${e} ORDER BY ${order}))[1:${limit}]`,
   rowHash: (exprs) => `md5(CAST(ROW(${exprs.join(', ')}) AS text))`,
-  keyHash: (exprs) => `hashtextextended(CAST(ROW(${exprs.join(', ')}) AS text), 0)`,
+  // each part by its own type's hash: hashing the pair's text form formatted every double, most
+  // of the unit-ID check's time (docs/performance.md); a number's hash that meets a text's only
+  // brings both to stage 2, which tells them apart
+  keyHash: (number, text) => `coalesce(hashfloat8extended(${number}, 0), hashtextextended(${text}, 0))`,
 };

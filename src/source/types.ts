@@ -97,11 +97,8 @@ export interface Source {
 /** One connection's worth of queries: what a look-up that builds temp tables needs. */
 export interface Session {
   all<T = Record<string, unknown>>(sql: string): Promise<T[]>;
-  /**
-   * Run a statement. `grow`: a large aggregate whose size the delivery decides (the unit IDs of
-   * ten million records); where the engine has a memory limit, it is raised for it when needed.
-   */
-  run(sql: string, options?: { grow?: boolean }): Promise<void>;
+  /** Run a statement (where the engine has a memory limit, it is raised for one that needs more). */
+  run(sql: string): Promise<void>;
 }
 
 export interface OpenOptions {

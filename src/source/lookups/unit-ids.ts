@@ -29,9 +29,8 @@ export async function unitIdSummary(source: Source, db: Session, group: string, 
     // then fits the memory limit. Two keys that share a hash only come to stage 2, which splits
     // them by the key itself, so no ID is reported for a collision
     await db.run(
-      `CREATE TEMP TABLE nr_unit_keys AS SELECT ${d.keyHash(['kd', 'ks'])} AS h, count(*) AS n ` +
+      `CREATE TEMP TABLE nr_unit_keys AS SELECT ${d.keyHash('kd', 'ks')} AS h, count(*) AS n ` +
         `FROM (${normalizedIdQuery(source.view, '1 AS one', u, d)}) AS keyed GROUP BY 1 HAVING count(*) > 1`,
-      { grow: true },
     );
     const [{ keys }] = await db.all<{ keys: bigint }>('SELECT count(*) AS keys FROM nr_unit_keys');
     if (Number(keys) === 0) return empty;
@@ -41,7 +40,7 @@ export async function unitIdSummary(source: Source, db: Session, group: string, 
       'CREATE TEMP TABLE nr_unit_cells AS SELECT r.kd, r.ks, r.u, r.g, count(*) AS n, count(DISTINCT r.h) AS dh, ' +
         `${d.firstValues('r.__rec', 'r.__rec', EXAMPLE_LIMIT)} AS recs ` +
         `FROM (${normalizedIdQuery(source.numbered, `__rec, ${u} AS u, ${g} AS g, ${content} AS h`, u, d)}) AS r ` +
-        `JOIN nr_unit_keys k ON ${d.keyHash(['r.kd', 'r.ks'])} = k.h GROUP BY r.kd, r.ks, r.u, r.g`,
+        `JOIN nr_unit_keys k ON ${d.keyHash('r.kd', 'r.ks')} = k.h GROUP BY r.kd, r.ks, r.u, r.g`,
     );
     // an exact copy shares the group too, so distinct contents add up over the groups
     await db.run(

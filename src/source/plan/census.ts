@@ -61,9 +61,7 @@ function firstRow(result: Record<string, unknown[]>): Record<string, unknown> {
  */
 export async function distinctCount(source: Source, column: string): Promise<number> {
   return source.session(async (db) => {
-    await db.run(`CREATE TEMP TABLE nr_draft_distinct AS SELECT count(DISTINCT ${ident(column)}) AS d FROM ${source.view} AS v`, {
-      grow: true,
-    });
+    await db.run(`CREATE TEMP TABLE nr_draft_distinct AS SELECT count(DISTINCT ${ident(column)}) AS d FROM ${source.view} AS v`);
     const [row] = await db.all<{ d: unknown }>('SELECT d FROM nr_draft_distinct');
     await db.run('DROP TABLE nr_draft_distinct');
     return Number(row.d);
@@ -98,7 +96,7 @@ export async function screenCandidates(
   const d = source.dialect;
   const values = columns.map((name, j) => {
     const c = ident(name);
-    return `${source.storage.get(name) === 'double' ? c : `CASE WHEN ${c} IS NOT NULL THEN ${d.keyHash([c])} END`} AS v${j}`;
+    return `${source.storage.get(name) === 'double' ? c : `CASE WHEN ${c} IS NOT NULL THEN ${d.keyHash('NULL', c)} END`} AS v${j}`;
   });
   const rows = `SELECT ${[...candidates.map((g, i) => `${ident(g)} AS k${i}`), ...values].join(', ')} FROM ${source.view} AS nr_rows`;
   const flags = candidates.map((_, i) => `s${i}`);

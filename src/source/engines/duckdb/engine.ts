@@ -2,6 +2,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { DuckDBConnection } from '@duckdb/node-api';
+import { withMemory } from './memory.js';
 import type { DuckDB } from './native.js';
 import { native } from './native.js';
 import type { ConnectionPool } from './pool.js';
@@ -19,12 +20,16 @@ export interface DuckEngine {
   close(): void;
   /** paths deleted on close (a spooled stdin, …) */
   cleanup: string[];
-  /** the memory limit in bytes (null when not understood) */
+  /** the memory limit in bytes (null when not understood); changed through memory.ts */
   memoryBytes: number | null;
+  /** set DuckDB's memory limit (on a connection of its own: the others may be reading a result) */
+  setMemoryLimit(bytes: number): Promise<void>;
+  /** DuckDB's threads */
+  threads: number;
 }
 
 /** Look-ups that may scan the delivery at the same time (see connectionPool). */
-const LOOKUP_CONNECTIONS = 2;
+export const LOOKUP_CONNECTIONS = 2;
 
 /** "200MB", "1.5GiB", "512 kb" → bytes (null when not a size). */
 export function parseSize(size: string): number | null {
@@ -62,10 +67,11 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
   // DuckDB spills beyond memory_limit; by default an in-memory database spills to ".tmp" in
   // the working directory, so give it a directory of its own
   const spill = mkdtempSync(join(tmpdir(), 'nestready-spill-'));
+  const threads = options.threads ?? 2;
   let instance: DuckDB.DuckDBInstance;
   try {
     instance = await native.DuckDBInstance.create(':memory:', {
-      threads: String(options.threads ?? 2),
+      threads: String(threads),
       memory_limit: options.memoryLimit ?? '512MB',
       temp_directory: spill,
       // hand freed memory back to the system (in the background) after each task that peaked
@@ -80,6 +86,8 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
   }
   const con = await instance.connect();
   const lookupConnections = await Promise.all(Array.from({ length: LOOKUP_CONNECTIONS }, () => instance.connect()));
+  // a new statement on a connection would end the result it is streaming
+  const settings = await instance.connect();
   const cleanup: string[] = [spill];
   track(spill);
   let closed = false;
@@ -87,13 +95,19 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
     con,
     cleanup,
     memoryBytes: parseSize(options.memoryLimit ?? '512MB'),
-    all: (sql) => readAll(con, sql),
+    threads,
+    async setMemoryLimit(bytes) {
+      engine.memoryBytes = bytes;
+      await settings.run(`SET memory_limit = '${Math.ceil(bytes / 2 ** 20)}MiB'`);
+    },
+    all: (sql) => withMemory(engine, () => readAll(con, sql)),
     lookups: connectionPool(lookupConnections),
     close() {
       if (closed) return;
       closed = true;
       try {
         engine.lookups.close();
+        settings.closeSync();
         con.closeSync();
         instance.closeSync();
       } finally {

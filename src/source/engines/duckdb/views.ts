@@ -5,8 +5,9 @@ import { sampleHints } from '../../plan/sample-hints.js';
 import { blankAsNull, ident } from '../../sql.js';
 import type { BinaryWords, Source } from '../../types.js';
 import type { DuckEngine } from './engine.js';
+import { LOOKUP_CONNECTIONS } from './engine.js';
 import type { DuckLayout } from './layout.js';
-import { manyGroups, raiseMemory, withMemory } from './memory.js';
+import { estimateGroups, fitMemory, withMemory } from './memory.js';
 import { readAll, readColumns } from './stream.js';
 
 /** The Source over a layout: the views nr_delivery and nr_numbered, the sample hints, the look-up API. */
@@ -45,8 +46,20 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
   const ids = new Set([roles.group, roles.unit, roles.parent]);
   const sampled = layout.sample ? `(SELECT * FROM ${layout.sample()} WHERE ${everyColumn})` : 'nr_delivery';
   const hints = await sampleHints(all, sampled, header, storage, roles, ids, !layout.typedReader, duckdb);
-  const { probe, textOnly, sampledGroups } = hints;
-  if (manyGroups(sampledGroups)) await raiseMemory(engine);
+  const { probe, textOnly, groups } = hints;
+  // the profile's aggregates: a count per column, a text range, five numeric statistics
+  const aggregates = header.reduce(
+    (sum, c) =>
+      sum + 1 + (storage.get(c) === 'text' && c !== roles.unit ? 2 : 0) + (storage.get(c) === 'double' || !textOnly.has(c) ? 5 : 0),
+    1,
+  );
+  await fitMemory(engine, {
+    format: layout.format,
+    threads: engine.threads,
+    scans: 1 + LOOKUP_CONNECTIONS,
+    groups: estimateGroups(groups),
+    aggregates,
+  });
   if (hints.binaryWords.size) {
     words = hints.binaryWords;
     await define();
@@ -68,16 +81,13 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
     get viewVersion() {
       return viewVersion;
     },
-    all: (sql) => engine.lookups.use((c) => readAll(c, sql)),
+    all: (sql) => engine.lookups.use((c) => withMemory(engine, () => readAll(c, sql))),
     columns: (sql, options) => readColumns(engine, sql, options?.onScanned),
     session: (fn) =>
       engine.lookups.use((c) =>
         fn({
-          all: (sql) => readAll(c, sql),
-          async run(sql, options) {
-            const run = async () => void (await c.run(sql));
-            await (options?.grow ? withMemory(engine, run) : run());
-          },
+          all: (sql) => withMemory(engine, () => readAll(c, sql)),
+          run: (sql) => withMemory(engine, async () => void (await c.run(sql))),
         }),
       ),
     async rejects() {

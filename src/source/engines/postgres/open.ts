@@ -54,6 +54,9 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
   const query = (sql: string) => queued(() => client.query(sql));
   const all = async <T>(sql: string) => (await query(sql)).rows as T[];
   try {
+    // for this session only: compiling the profile's hundreds of expressions (in every parallel
+    // worker) cost more than the one scan it would speed up (docs/performance.md)
+    await query('SET jit = off');
     const base = input.table ? qualified(input.table) : `(${input.query}) AS nr_base`;
     let byCtid = false;
     if (input.table) {
