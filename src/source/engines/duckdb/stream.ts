@@ -54,32 +54,7 @@ async function streamColumns(con: DuckDBConnection, sql: string, onScanned?: () 
     if (first) onScanned?.();
     const rows = chunk?.rowCount ?? 0; // a native call: read once per chunk
     if (!chunk || rows === 0) break;
-    for (let i = 0; i < names.length; i++) {
-      const vector = chunk.getColumnVector(i);
-      if (vector instanceof DuckDBDoubleVector) {
-        // numbers straight from the vector's buffer, no conversion per value
-        let col = cols[i];
-        if (col === null) col = cols[i] = new DoubleColumn();
-        if (col instanceof DoubleColumn) {
-          for (let r = 0; r < rows; r++) col.push(vector.getItem(r));
-          continue;
-        }
-      }
-      let col = cols[i];
-      if (col === null) col = cols[i] = [];
-      if (col instanceof DoubleColumn) col = cols[i] = col.done().slice();
-      const pool = interned[i];
-      // text straight from the vector (a string or null each); other types through the converter
-      const values = vector instanceof DuckDBVarCharVector ? null : chunk.convertColumnValues(i, JSDuckDBValueConverter);
-      for (let r = 0; r < rows; r++) {
-        const v = values ? values[r] : (vector as DuckDB.DuckDBVarCharVector).getItem(r);
-        if (typeof v === 'string' && pool.size < 65536) {
-          let same = pool.get(v);
-          if (same === undefined) pool.set(v, (same = v));
-          col.push(same);
-        } else col.push(v);
-      }
-    }
+    for (let i = 0; i < names.length; i++) cols[i] = appendVector(chunk, i, rows, cols[i], interned[i]);
   }
   const out: Record<string, unknown[]> = {};
   names.forEach((name, i) => {
@@ -87,4 +62,37 @@ async function streamColumns(con: DuckDBConnection, sql: string, onScanned?: () 
     out[name] = col === null ? [] : col instanceof DoubleColumn ? col.done() : col;
   });
   return out;
+}
+
+/** One chunk's column appended to what was read of it: doubles into a DoubleColumn, the rest as values. */
+function appendVector(
+  chunk: DuckDB.DuckDBDataChunk,
+  i: number,
+  rows: number,
+  read: unknown[] | DoubleColumn | null,
+  pool: Map<string, string>,
+): unknown[] | DoubleColumn {
+  const vector = chunk.getColumnVector(i);
+  if (vector instanceof DuckDBDoubleVector && (read === null || read instanceof DoubleColumn)) {
+    // numbers straight from the vector's buffer, no conversion per value
+    const col = read ?? new DoubleColumn();
+    for (let r = 0; r < rows; r++) col.push(vector.getItem(r));
+    return col;
+  }
+  const col = read === null ? [] : read instanceof DoubleColumn ? read.done().slice() : read;
+  // text straight from the vector (a string or null each); other types through the converter
+  const values = vector instanceof DuckDBVarCharVector ? null : chunk.convertColumnValues(i, JSDuckDBValueConverter);
+  for (let r = 0; r < rows; r++) {
+    const v = values ? values[r] : (vector as DuckDB.DuckDBVarCharVector).getItem(r);
+    col.push(typeof v === 'string' ? intern(pool, v) : v);
+  }
+  return col;
+}
+
+/** The one copy of a repeated string (group IDs and codes repeat), while the pool is small. */
+function intern(pool: Map<string, string>, v: string): string {
+  const same = pool.get(v);
+  if (same !== undefined) return same;
+  if (pool.size < 65536) pool.set(v, v);
+  return v;
 }
