@@ -2,6 +2,7 @@ import { defineRule } from '../src/rules/define.js';
 import { listSome, recordId } from '../src/rules/describe.js';
 import { describeSplit, parentSplits } from '../src/rules/parent-subsets.js';
 import type { FoundRecord } from '../src/rules/rows.js';
+import { listedRecords } from '../src/rules/rows.js';
 
 interface Params {
   examine: number;
@@ -72,14 +73,13 @@ export default defineRule<Params>({
     ];
   },
   // the records the finding lists, each naming its group and parent (IDs, so kept under --no-values)
-  rows: (finding, { roles, records }) => {
-    const parent = roles.parent;
-    if (parent === undefined || !finding.rows?.length || !records.has(parent)) return null;
-    return {
-      query: records.listed(finding.rows, parent),
-      reason: (r: FoundRecord) =>
-        `${roles.group} ${recordId(r.grp)} under ${parent} ${recordId(r.value)} here: ` +
-        `another ${parent} uses the same code for a different group`,
-    };
-  },
+  rows: (finding, { roles, records }) =>
+    listedRecords(
+      finding,
+      records,
+      roles.parent,
+      (r: FoundRecord) =>
+        `${roles.group} ${recordId(r.grp)} under ${roles.parent} ${recordId(r.value)} here: ` +
+        `another ${roles.parent} uses the same code for a different group`,
+    ),
 });

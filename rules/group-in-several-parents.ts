@@ -2,6 +2,7 @@ import { defineRule } from '../src/rules/define.js';
 import { listSome, recordId } from '../src/rules/describe.js';
 import { describeSplit, parentSplits } from '../src/rules/parent-subsets.js';
 import type { FoundRecord } from '../src/rules/rows.js';
+import { listedRecords } from '../src/rules/rows.js';
 
 interface Params {
   examine: number;
@@ -65,13 +66,13 @@ export default defineRule<Params>({
     ];
   },
   // the records the finding lists, each naming its group and parent (IDs, so kept under --no-values)
-  rows: (finding, { roles, records }) => {
-    const parent = roles.parent;
-    if (parent === undefined || !finding.rows?.length || !records.has(parent)) return null;
-    return {
-      query: records.listed(finding.rows, parent),
-      reason: (r: FoundRecord) =>
-        `${roles.group} ${recordId(r.grp)} is under ${parent} ${recordId(r.value)} here and under another ${parent} on other records`,
-    };
-  },
+  rows: (finding, { roles, records }) =>
+    listedRecords(
+      finding,
+      records,
+      roles.parent,
+      (r: FoundRecord) =>
+        `${roles.group} ${recordId(r.grp)} is under ${roles.parent} ${recordId(r.value)} here ` +
+        `and under another ${roles.parent} on other records`,
+    ),
 });

@@ -3,6 +3,7 @@ import type { Severity } from '../src/roles/types.js';
 import { defineRule } from '../src/rules/define.js';
 import { firstRows, percent, quoteId } from '../src/rules/describe.js';
 import type { FoundRecord } from '../src/rules/rows.js';
+import { listedRecords } from '../src/rules/rows.js';
 import { describeKinds, kindCounts } from '../src/rules/token-kind.js';
 import type { FindingDraft } from '../src/rules/types.js';
 
@@ -79,15 +80,10 @@ export default defineRule<Params>({
     return findings;
   },
   // the records the finding lists, each with the value that is not a number
-  rows: (finding, { records, includeValues }) => {
-    const column = finding.column;
-    if (column === undefined || !finding.rows?.length || !records.has(column)) return null;
-    return {
-      query: records.listed(finding.rows, column),
-      reason: (r: FoundRecord) =>
-        includeValues
-          ? `${column} holds ${quoteId(String(r.value))}, which does not read as a number`
-          : `${column} holds a value that does not read as a number (values withheld)`,
-    };
-  },
+  rows: (finding, { records, includeValues }) =>
+    listedRecords(finding, records, finding.column, (r: FoundRecord) =>
+      includeValues
+        ? `${finding.column} holds ${quoteId(String(r.value))}, which does not read as a number`
+        : `${finding.column} holds a value that does not read as a number (values withheld)`,
+    ),
 });

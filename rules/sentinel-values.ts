@@ -3,6 +3,7 @@ import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
 import { defineRule } from '../src/rules/define.js';
 import { firstRows } from '../src/rules/describe.js';
 import type { FoundRecord } from '../src/rules/rows.js';
+import { listedRecords } from '../src/rules/rows.js';
 import { showValue } from '../src/rules/show-value.js';
 import type { FindingDraft } from '../src/rules/types.js';
 
@@ -104,15 +105,10 @@ export default defineRule<Params>({
     return findings;
   },
   // the records the finding lists, each with the code it holds
-  rows: (finding, { records, includeValues }) => {
-    const column = finding.column;
-    if (column === undefined || !finding.rows?.length || !records.has(column)) return null;
-    return {
-      query: records.listed(finding.rows, column),
-      reason: (r: FoundRecord) =>
-        includeValues
-          ? `${column} holds ${showValue(r.value)}, far outside its other values: probably a missing-value code`
-          : `${column} holds a value far outside its other values, probably a missing-value code (values withheld)`,
-    };
-  },
+  rows: (finding, { records, includeValues }) =>
+    listedRecords(finding, records, finding.column, (r: FoundRecord) =>
+      includeValues
+        ? `${finding.column} holds ${showValue(r.value)}, far outside its other values: probably a missing-value code`
+        : `${finding.column} holds a value far outside its other values, probably a missing-value code (values withheld)`,
+    ),
 });

@@ -29,3 +29,18 @@ export type FindingRecords =
 
 /** A rule's optional rows part: which records a finding covers and why (the problem-rows file). */
 export type RowsPart<P> = (finding: Finding, ctx: RowsContext<P>) => FindingRecords | null | Promise<FindingRecords | null>;
+
+/**
+ * The records a finding lists, each read with its value of `column` for the reason: the usual
+ * rows part of a rule that names records by one column (null when the finding lists none or the
+ * delivery lacks the column).
+ */
+export function listedRecords(
+  finding: Finding,
+  records: RecordQueries,
+  column: string | undefined,
+  reason: (record: FoundRecord) => string,
+): FindingRecords | null {
+  if (column === undefined || !finding.rows?.length || !records.has(column)) return null;
+  return { query: records.listed(finding.rows, column), reason };
+}
