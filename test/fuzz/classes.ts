@@ -5,9 +5,10 @@
  * Empty it as the fixes come in.
  */
 export const PENDING: Record<string, string> = {
-  'mixed-line-ends':
-    'a CSV/TSV whose lines end in both LF and CRLF is refused: "cannot read as CSV (Invalid Input Error: Error when ' +
-    'sniffing file)" (src/source: DuckDB\'s sniffer; e.g. "g,y\\n1,2\\r\\n1,3\\n2,4\\n2,5\\n")',
+  xlsx:
+    'a workbook written by exceljs fails now and then: "cannot read as Excel .xlsx (Cannot read properties of undefined ' +
+    "(reading 'sheets'))\" and leaves exceljs's tmp-* file (5 of 1,585 at seed 20261202, case 270 of the seeded 500 once " +
+    'the mixed-line-ends class was generated again; the same file passes on a rerun; src/source/formats/xlsx.ts)',
   'quote-in-column-name':
     'a TSV (with BOM) whose header holds say "hi" (written "say ""hi""") is refused when the role map names it: ' +
     '"cannot read as TSV (Binder Error: Referenced column "say "hi"" not found in FROM clause!)" (src/source)',

@@ -6,6 +6,7 @@ import { readCsv, typedColumns } from '../engines/duckdb/read-csv.js';
 import type { Storage } from '../sql.js';
 import type { RejectedLine, SourceFormat } from '../types.js';
 import { decimalCommaColumns } from './decimal-comma.js';
+import { lfCopy, mixedLineEnds } from './line-ends.js';
 import type { ReadContext } from './registry.js';
 import type { Utf8Check } from './utf8-check.js';
 import { checkUtf8, encodingAdvice, mostlyNotUtf8 } from './utf8-check.js';
@@ -37,6 +38,12 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     const utf8File = await transcodeToUtf8(file, gzip);
     engine.cleanup.push(utf8File.dir);
     file = utf8File.file;
+    gzip = false;
+  }
+  if (mixedLineEnds(file, gzip)) {
+    const lf = await lfCopy(file, gzip);
+    engine.cleanup.push(lf.dir);
+    file = lf.file;
     gzip = false;
   }
   let options: CsvOptions = {

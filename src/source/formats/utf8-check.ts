@@ -19,7 +19,7 @@ export interface Utf8Check {
 }
 
 /** The first megabyte of a delivery as text bytes, and whether that is the whole file. */
-function sample(file: string, gzip: boolean): { bytes: Buffer; whole: boolean } {
+export function sample(file: string, gzip: boolean): { bytes: Buffer; whole: boolean } {
   const fd = openSync(file, 'r');
   try {
     const buf = Buffer.alloc(gzip ? SAMPLE_BYTES / 4 : SAMPLE_BYTES + 1);

@@ -1,9 +1,5 @@
-import { createReadStream, createWriteStream, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { Transform } from 'node:stream';
-import { pipeline } from 'node:stream/promises';
-import { createGunzip } from 'node:zlib';
+import { tempCopy } from './temp-copy.js';
 
 /**
  * Bytes 0x80-0x9F in windows-1252, from the WHATWG Encoding Standard's index-windows-1252; the
@@ -41,26 +37,16 @@ export function windows1252ToUtf8(chunk: Buffer): Buffer {
 }
 
 /**
- * A windows-1252 (or Latin-1) delivery as a UTF-8 temp file, streamed (gzip undone on the way):
- * DuckDB's CSV reader knows UTF-8 and Latin-1 only, and its Latin-1 refuses bytes 0x80-0x9F.
- * Lines stay where they were, so line numbers are the delivery's. The caller deletes `dir`;
- * the delivery itself is only read.
+ * A windows-1252 (or Latin-1) delivery as a UTF-8 temp file: DuckDB's CSV reader knows UTF-8 and
+ * Latin-1 only, and its Latin-1 refuses bytes 0x80-0x9F. Lines stay where they were, so line
+ * numbers are the delivery's.
  */
-export async function transcodeToUtf8(file: string, gzip: boolean): Promise<{ file: string; dir: string }> {
-  const dir = mkdtempSync(join(tmpdir(), 'nestready-utf8-'));
-  const out = join(dir, 'delivery.csv');
+export function transcodeToUtf8(file: string, gzip: boolean): Promise<{ file: string; dir: string }> {
   const decode = () =>
     new Transform({
       transform(chunk: Buffer, _encoding, done) {
         done(null, windows1252ToUtf8(chunk));
       },
     });
-  try {
-    if (gzip) await pipeline(createReadStream(file), createGunzip(), decode(), createWriteStream(out));
-    else await pipeline(createReadStream(file), decode(), createWriteStream(out));
-  } catch (e) {
-    rmSync(dir, { recursive: true, force: true });
-    throw e;
-  }
-  return { file: out, dir };
+  return tempCopy(file, gzip, decode, 'nestready-utf8-');
 }
