@@ -38,11 +38,11 @@ export function planColumns(
       const role = roleOf(name, roles);
       const isVariable = role === 'outcome' || role === 'level1' || role === 'level2';
       const s = storage.get(name) ?? 'text';
-      const numeric =
+      const numberStats =
         s === 'double' ||
         hints.probe?.has(name) === true ||
         (isVariable && roles.types[name] !== 'categorical' && !hints.textOnly?.has(name));
-      return { name, storage: s, numeric, ...(name === roles.unit && { textRange: false }) };
+      return { name, storage: s, numberStats, ...(name === roles.unit && { textRange: false }) };
     });
 }
 
@@ -78,7 +78,7 @@ export async function buildProfile(source: Source, roles: Roles, options: { onSc
       result,
       plan,
       source,
-      (name) => planColumns([name], roles, new Map([[name, 'text']]), { textOnly })[0]?.numeric ?? false,
+      (name) => planColumns([name], roles, new Map([[name, 'text']]), { textOnly })[0]?.numberStats ?? false,
     );
   }
   const aq = await loadArquero();

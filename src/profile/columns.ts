@@ -27,7 +27,7 @@ export function columnProfile(
   const mins = ranged ? groupStat(raw, name, 'textMin').filter(notNull) : [];
   const maxs = ranged ? groupStat(raw, name, 'textMax').filter(notNull) : [];
   const p = base(name, role, 'categorical', plan.storage, nonMissing, rows, minOf(mins), maxOf(maxs));
-  if (!plan.numeric) return { ...p, type: roles.types[name] ?? 'categorical' };
+  if (!plan.numberStats) return { ...p, type: roles.types[name] ?? 'categorical' };
 
   const num = groupStat(raw, name, 'numericCount');
   const means = groupStat(raw, name, 'mean');

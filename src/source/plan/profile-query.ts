@@ -7,7 +7,7 @@ export interface ProfileColumnPlan {
   name: string;
   storage: Storage;
   /** compute per-group numeric statistics (for a text column: of the values that read as numbers) */
-  numeric: boolean;
+  numberStats: boolean;
   /**
    * a text column's per-group min and max (equal ⇔ constant in the group); false for the unit
    * ID, whose constancy within a group no rule asks about (two string aggregates over every record)
@@ -37,7 +37,7 @@ export function profileQuery(view: string, group: string, plan: readonly Profile
     aggs.push(`${d.double(`count(t${i})`)} AS ${as('nn')}`);
     if (col.storage === 'text' && col.textRange !== false)
       aggs.push(`min(${d.ordered(`t${i}`)}) AS ${as('min')}`, `max(${d.ordered(`t${i}`)}) AS ${as('max')}`);
-    if (!col.numeric) return;
+    if (!col.numberStats) return;
     // the numeric reading is taken once here, not once per aggregate; a DOUBLE column goes
     // through it too, so that ±inf, NaN and overflowing values are not numbers in any column
     const x = `x${i}`;

@@ -5,7 +5,7 @@ import type { Source } from '../types.js';
 interface PlanEntry {
   name: string;
   storage: 'text' | 'double';
-  numeric: boolean;
+  numberStats: boolean;
 }
 
 const sum = (xs: unknown[] | undefined) => (xs ?? []).reduce<number>((a, b) => a + (typeof b === 'number' ? b : 0), 0);
@@ -32,11 +32,11 @@ export async function settleProbes<P extends PlanEntry>(
       toDouble.push(p.name);
       delete columns[`${p.name}:min`];
       delete columns[`${p.name}:max`];
-      return { ...p, storage: 'double' as const, numeric: true };
+      return { ...p, storage: 'double' as const, numberStats: true };
     }
     if (wantsNumeric(p.name)) return p;
     for (const stat of ['num', 'nmin', 'nmax', 'mean', 'ss']) delete columns[`${p.name}:${stat}`];
-    return { ...p, numeric: false };
+    return { ...p, numberStats: false };
   });
   const rest = [...source.probe].filter((c) => !toDouble.includes(c));
   if (toDouble.length) await source.readAsDouble(toDouble);
