@@ -75,8 +75,8 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
       memory_limit: options.memoryLimit ?? '512MB',
       temp_directory: spill,
       // hand freed memory back to the system (in the background) after each task that peaked
-      // above 4 MB, rather than keeping it for reuse: the audit of 10 million rows peaked at
-      // 260-267 MB in five runs, against 262-306 MB with the 16 MB threshold alone
+      // above 4 MB, rather than keeping it for reuse: a lower and steadier peak on large
+      // deliveries than the 16 MB default (docs/performance.md)
       allocator_flush_threshold: '4MB',
       allocator_background_threads: 'true',
     });
