@@ -7,7 +7,7 @@ import { audit } from '../../src/audit.js';
 import type { Report } from '../../src/report/types.js';
 import { parseRoles } from '../../src/roles/load.js';
 import { expectSameAudit } from '../source/formats/same.js';
-import { loadCsv } from './load.js';
+import { dropTables, loadCsv } from './load.js';
 
 const url = process.env.NESTREADY_PG_URL;
 if (!url && process.env.CI) throw new Error('CI: NESTREADY_PG_URL is not set (.ci/run starts PostgreSQL for test/postgres)');
@@ -46,11 +46,7 @@ describe.skipIf(!url)('PostgreSQL: a binary outcome written in words is read as 
   });
   afterAll(async () => {
     rmSync(dir, { recursive: true, force: true });
-    const { default: pg } = await import('pg');
-    const client = new pg.Client({ connectionString: url });
-    await client.connect();
-    await client.query('DROP TABLE IF EXISTS nr_test_words_text, nr_test_words_bool');
-    await client.end();
+    await dropTables(url!, ['nr_test_words_text', 'nr_test_words_bool']);
   });
 
   it('a text column of Yes/No gives the report of the file, with the same mapping', async () => {

@@ -41,3 +41,14 @@ export async function loadCsv(url: string, csv: string, table: string, types: Re
     await client.end();
   }
 }
+
+/** Drop the tables a test file loaded (after its tests, whatever they did). */
+export async function dropTables(url: string, tables: readonly string[]): Promise<void> {
+  const client = new pg.Client({ connectionString: url });
+  await client.connect();
+  try {
+    await client.query(`DROP TABLE IF EXISTS ${tables.map((t) => `"${t.replace(/"/g, '""')}"`).join(', ')}`);
+  } finally {
+    await client.end();
+  }
+}

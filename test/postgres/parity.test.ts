@@ -5,7 +5,7 @@ import type { Report } from '../../src/report/types.js';
 import { loadRoles } from '../../src/roles/load.js';
 import { redactUrl } from '../../src/source/engines/postgres/input.js';
 import { expectSameAudit } from '../source/formats/same.js';
-import { loadCsv, TYPED } from './load.js';
+import { dropTables, loadCsv, TYPED } from './load.js';
 
 // .ci/run starts a throwaway server (scripts/pg-server.sh) and exports NESTREADY_PG_URL; outside
 // CI the test is skipped when no server is given, but in CI a missing server is a failure
@@ -24,11 +24,7 @@ describe.skipIf(!url)('PostgreSQL push-down: the same audit where the delivery l
     file = await audit(DEMO, roles);
   });
   afterAll(async () => {
-    const { default: pg } = await import('pg');
-    const client = new pg.Client({ connectionString: url });
-    await client.connect();
-    await client.query('DROP TABLE IF EXISTS nr_test_repairs_text, nr_test_repairs_typed');
-    await client.end();
+    await dropTables(url!, ['nr_test_repairs_text', 'nr_test_repairs_typed']);
   });
 
   it('a table of text columns, as delivered, gives the report of the file', async () => {

@@ -10,7 +10,7 @@ import { loadRoles } from '../../src/roles/load.js';
 import { nestready } from '../helpers/cli.js';
 import type { Delivery, Row } from '../helpers/delivery.js';
 import { writeDelivery } from '../helpers/delivery.js';
-import { loadCsv, TYPED } from './load.js';
+import { dropTables, loadCsv, TYPED } from './load.js';
 
 // see parity.test.ts: .ci/run starts the server; outside CI the test is skipped without one
 const url = process.env.NESTREADY_PG_URL;
@@ -51,11 +51,7 @@ describe.skipIf(!url)('--problems on PostgreSQL: the rows of the file it was loa
   });
   afterAll(async () => {
     d?.remove();
-    const { default: pg } = await import('pg');
-    const client = new pg.Client({ connectionString: url });
-    await client.connect();
-    await client.query('DROP TABLE IF EXISTS nr_test_rows_text, nr_test_rows_demo, nr_test_rows_demo_typed');
-    await client.end();
+    await dropTables(url!, ['nr_test_rows_text', 'nr_test_rows_demo', 'nr_test_rows_demo_typed']);
   });
 
   it('a delivery with every kind of problem row', async () => {
