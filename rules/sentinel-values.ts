@@ -1,5 +1,6 @@
 import { groupStat } from '../src/profile/group-stats.js';
 import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
+import { isNumberKind } from '../src/roles/types.js';
 import { defineRule } from '../src/rules/define.js';
 import { firstRows } from '../src/rules/describe.js';
 import type { FoundRecord } from '../src/rules/rows.js';
@@ -68,7 +69,7 @@ export default defineRule<Params>({
     const codes = new Set(params.codes);
     for (const column of profile.header) {
       const col = profile.column(column);
-      if (!readsAsNumbers(col) || col.type !== 'numeric') continue;
+      if (!readsAsNumbers(col) || !isNumberKind(col.type)) continue;
       const lo = groupStat(profile.groups, column, 'numMin');
       const hi = groupStat(profile.groups, column, 'numMax');
       // a code outside the other values is the lowest or highest value of every group it is in

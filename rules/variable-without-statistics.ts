@@ -1,6 +1,7 @@
 import { readsAsNumbers } from '../src/profile/reads-as-numbers.js';
 import type { ColumnProfile } from '../src/profile/types.js';
 import type { ValueType } from '../src/roles/types.js';
+import { isNumberKind } from '../src/roles/types.js';
 import { defineRule } from '../src/rules/define.js';
 import { quoteId } from '../src/rules/describe.js';
 import { kindCounts } from '../src/rules/token-kind.js';
@@ -107,7 +108,7 @@ async function why(col: ColumnProfile, role: Role, type: ValueType | undefined, 
   const values = tokens.slice(0, SHOWN).map((t) => `${quoteId(t.token)} ×${t.count}`);
   const words = col.numericCount === 0 && tokens.length === 2 && kinds.every((k) => k.kind === 'other text');
   // two words of a level-1/level-2 variable not typed binary are categories ("Public"/"Catholic")
-  if (words && type !== 'numeric' && (outcome || type === 'binary')) return { messageId: 'words', severity, column, values, data };
+  if (words && !isNumberKind(type) && (outcome || type === 'binary')) return { messageId: 'words', severity, column, values, data };
   const numberLike = kinds.length > 0 && NUMBER_LIKE.has(kinds[0].kind);
   if (!outcome && !numberLike && !meantNumeric(col, type)) return null;
   return {
@@ -127,6 +128,6 @@ async function why(col: ColumnProfile, role: Role, type: ValueType | undefined, 
 }
 
 /** Declared numeric or binary, or partly numbers: a level-1/level-2 variable meant to be numeric. */
-function meantNumeric(col: ColumnProfile, type: string | undefined): boolean {
-  return type === 'numeric' || type === 'binary' || col.numericCount > 0;
+function meantNumeric(col: ColumnProfile, type: ValueType | undefined): boolean {
+  return isNumberKind(type) || type === 'binary' || col.numericCount > 0;
 }

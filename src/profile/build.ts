@@ -36,7 +36,7 @@ export function planColumns(
     .filter((name) => name !== roles.group)
     .map((name) => {
       const role = roleOf(name, roles);
-      const isVariable = role === 'outcome' || role === 'level1' || role === 'level2';
+      const isVariable = role === 'outcome' || role === 'level1' || role === 'level2' || role === 'weight';
       const s = storage.get(name) ?? 'text';
       const numberStats =
         s === 'double' ||

@@ -45,7 +45,7 @@ export function columnProfile(
   const mean = numericCount ? total / numericCount : null;
   // all values in {0, 1} ⇔ range [0, 1] and Σx = Σx² (x(1 − x) ≥ 0 on [0, 1], zero only at 0 and 1)
   const zeroOne = numericCount > 0 && numMin === 0 && numMax === 1 && Math.abs(squares - total) <= 1e-9 * Math.max(1, total);
-  const isVariable = role === 'outcome' || role === 'level1' || role === 'level2';
+  const isVariable = role === 'outcome' || role === 'level1' || role === 'level2' || role === 'weight';
   // a column read as DOUBLE holds numbers only: ±inf, NaN or an overflowing value in it is listed as
   // not a number, and does not make the column text (it has no text statistics to read)
   const mostlyNumeric = (!text && nonMissing > 0) || mostlyNumbers(numericCount, nonMissing, isVariable);

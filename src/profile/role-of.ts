@@ -9,5 +9,6 @@ export function roleOf(name: string, roles: Roles): ColumnRole {
   if (roles.outcomes.includes(name)) return 'outcome';
   if (roles.level1.includes(name)) return 'level1';
   if (roles.level2.includes(name)) return 'level2';
+  if (name === roles.weights?.level1 || name === roles.weights?.level2) return 'weight';
   return 'other';
 }

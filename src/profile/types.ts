@@ -4,7 +4,8 @@ import type { RejectedLine } from '../source/open.js';
 import type { Storage } from '../source/sql.js';
 import type { GroupMoments } from '../stats/types.js';
 
-export type ColumnRole = 'group' | 'unit' | 'parent' | 'outcome' | 'level1' | 'level2' | 'other';
+/** A column's part in the role map; `weight` is a sampling weight (roles.weights), profiled as numbers. */
+export type ColumnRole = 'group' | 'unit' | 'parent' | 'outcome' | 'level1' | 'level2' | 'weight' | 'other';
 
 /** Whole-delivery summary of one column, derived from the group table (no extra scan). */
 export interface ColumnProfile {

@@ -10,6 +10,12 @@ export function checkColumns(roles: Roles, header: readonly string[], locate: Lo
   add(roles.group, ['group']);
   add(roles.unit, ['unit']);
   add(roles.parent, ['parent']);
+  // before the level lists: a slope, the time and the predictor are added to them when left out
+  for (const [i, c] of (roles.slopes ?? []).entries()) add(c, ['slopes', i]);
+  add(roles.time, ['time']);
+  add(roles.weights?.level1, ['weights', 'level1']);
+  add(roles.weights?.level2, ['weights', 'level2']);
+  add(roles.detect?.predictor, ['detect', 'predictor']);
   for (const [i, c] of roles.outcomes.entries()) add(c, ['outcomes', i]);
   for (const [i, c] of roles.level1.entries()) add(c, ['level1', i]);
   for (const [i, c] of roles.level2.entries()) add(c, ['level2', i]);

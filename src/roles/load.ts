@@ -8,6 +8,7 @@ import { mergeRuleSettings, PRESETS } from '../presets/index.js';
 import type { AnyRule } from '../rules/define.js';
 import { createAjv, describeAjvError, pointerToPath } from '../util/ajv.js';
 import { closestName } from './did-you-mean.js';
+import { modelPlan } from './model-plan.js';
 import { validate as untypedValidate } from './role-map-validator.generated.js';
 import { DEFAULT_MISSING, roleMapSchema } from './schema.js';
 import type { Roles, RuleSetting, ValueType } from './types.js';
@@ -90,21 +91,28 @@ export function parseRoles(text: string, file: string, catalogue: readonly AnyRu
     rules,
   };
   checkRoleOverlap(roles, locate, map.outcome !== undefined);
+  Object.assign(roles, modelPlan(map, roles, locate));
   return { roles, file, locate };
 }
 
-/** `types` as column → type, and the words named as 1 of binary variables apart (binaryOne). */
-function valueTypes(raw: unknown): Pick<Roles, 'types' | 'binaryOne'> {
+type TypeEntry = ValueType | { binary: { one: string | boolean } } | { bounded: { lower?: number; upper?: number } };
+
+/** `types` as column → type; the words named as 1 of binary variables (binaryOne) and the bounds of bounded ones apart. */
+function valueTypes(raw: unknown): Pick<Roles, 'types' | 'binaryOne' | 'bounds'> {
   const types: Record<string, ValueType> = {};
   const binaryOne: Record<string, string> = {};
-  for (const [column, t] of Object.entries((raw ?? {}) as Record<string, ValueType | { binary: { one: string | boolean } }>)) {
+  const bounds: NonNullable<Roles['bounds']> = {};
+  for (const [column, t] of Object.entries((raw ?? {}) as Record<string, TypeEntry>)) {
     if (typeof t === 'string') types[column] = t;
-    else {
+    else if ('binary' in t) {
       types[column] = 'binary';
       binaryOne[column] = String(t.binary.one);
+    } else {
+      types[column] = 'bounded';
+      bounds[column] = { ...t.bounded };
     }
   }
-  return { types, ...(Object.keys(binaryOne).length && { binaryOne }) };
+  return { types, ...(Object.keys(binaryOne).length && { binaryOne }), ...(Object.keys(bounds).length && { bounds }) };
 }
 
 function presetRules(name: string): Record<string, RuleSetting> {

@@ -4,7 +4,7 @@
 "use strict";
 export const validate = validate0;
 export default validate0;
-const schema0 = {"$schema":"http://json-schema.org/draft-07/schema#","$id":"https://nestready.dev/schema/role-map-1.json","title":"nestready role map","description":"Which column of a delivery plays which part in a two-level design.","type":"object","additionalProperties":false,"required":["group"],"properties":{"group":{"type":"string","minLength":1,"description":"level-2 identifier column (required)"},"unit":{"type":"string","minLength":1,"description":"level-1 identifier column"},"parent":{"type":"string","minLength":1,"description":"identifier of the level above the groups"},"outcome":{"type":"string","minLength":1,"description":"a single outcome column (same as outcomes: [name])"},"outcomes":{"anyOf":[{"type":"string","minLength":1},{"type":"array","items":{"type":"string","minLength":1},"uniqueItems":true}],"description":"outcome columns"},"level1":{"anyOf":[{"type":"string","minLength":1},{"type":"array","items":{"type":"string","minLength":1},"uniqueItems":true}],"description":"level-1 variables"},"level2":{"anyOf":[{"type":"string","minLength":1},{"type":"array","items":{"type":"string","minLength":1},"uniqueItems":true}],"description":"level-2 variables: must be constant within each group"},"missing":{"type":"array","items":{"type":["string","number"]},"description":"tokens read as missing; default [\"\",\"NA\",\"N/A\",\"NULL\",\"null\",\".\"]"},"types":{"type":"object","additionalProperties":{"anyOf":[{"enum":["numeric","categorical","binary"]},{"type":"object","additionalProperties":false,"required":["binary"],"properties":{"binary":{"type":"object","additionalProperties":false,"required":["one"],"properties":{"one":{"type":["string","boolean"],"minLength":1,"description":"the word read as 1 (default: yes, true or y, whichever pair the column is written in)"}}}}}]},"description":"type overrides per column; a binary variable written in words may name the word read as 1: `{ binary: { one: \"No\" } }`"},"rules":{"type":"object","description":"per rule id: `off`, or an object with an optional severity and the rule params","additionalProperties":{"anyOf":[{"const":"off"},{"type":"object","properties":{"severity":{"enum":["blocker","warning","note"]}}}]}}}};
+const schema0 = {"$schema":"http://json-schema.org/draft-07/schema#","$id":"https://nestready.dev/schema/role-map-1.json","title":"nestready role map","description":"Which column of a delivery plays which part in a two-level design.","type":"object","additionalProperties":false,"required":["group"],"properties":{"group":{"type":"string","minLength":1,"description":"level-2 identifier column (required)"},"unit":{"type":"string","minLength":1,"description":"level-1 identifier column"},"parent":{"type":"string","minLength":1,"description":"identifier of the level above the groups"},"outcome":{"type":"string","minLength":1,"description":"a single outcome column (same as outcomes: [name])"},"outcomes":{"anyOf":[{"type":"string","minLength":1},{"type":"array","items":{"type":"string","minLength":1},"uniqueItems":true}],"description":"outcome columns"},"level1":{"anyOf":[{"type":"string","minLength":1},{"type":"array","items":{"type":"string","minLength":1},"uniqueItems":true}],"description":"level-1 variables"},"level2":{"anyOf":[{"type":"string","minLength":1},{"type":"array","items":{"type":"string","minLength":1},"uniqueItems":true}],"description":"level-2 variables: must be constant within each group"},"slopes":{"anyOf":[{"type":"string","minLength":1},{"type":"array","items":{"type":"string","minLength":1},"uniqueItems":true}],"description":"level-1 variables planned to get random slopes (read as level-1 variables too)"},"time":{"type":"string","minLength":1,"description":"the occasion of longitudinal data: measurements nested in persons (a level-1 variable too)"},"weights":{"type":"object","additionalProperties":false,"description":"sampling weights","properties":{"level1":{"type":"string","minLength":1,"description":"weight of each record (level 1)"},"level2":{"type":"string","minLength":1,"description":"weight of each group (level 2): constant within a group"}}},"detect":{"type":"object","additionalProperties":false,"required":["predictor"],"description":"the planned level-2 predictor of main interest, and the standardised effect size the study must detect","properties":{"predictor":{"type":"string","minLength":1,"description":"a level-2 variable (read as one too)"},"effect_size":{"type":"number","exclusiveMinimum":0,"description":"in standard deviations of the outcome"}}},"missing":{"type":"array","items":{"type":["string","number"]},"description":"tokens read as missing; default [\"\",\"NA\",\"N/A\",\"NULL\",\"null\",\".\"]"},"types":{"type":"object","additionalProperties":{"anyOf":[{"enum":["numeric","categorical","binary","count","ordinal","bounded"]},{"type":"object","additionalProperties":false,"required":["bounded"],"properties":{"bounded":{"type":"object","additionalProperties":false,"properties":{"lower":{"type":"number","description":"the lowest value the scale allows (its floor)"},"upper":{"type":"number","description":"the highest value the scale allows (its ceiling)"}}}}},{"type":"object","additionalProperties":false,"required":["binary"],"properties":{"binary":{"type":"object","additionalProperties":false,"required":["one"],"properties":{"one":{"type":["string","boolean"],"minLength":1,"description":"the word read as 1 (default: yes, true or y, whichever pair the column is written in)"}}}}}]},"description":"type overrides per column; a binary variable written in words may name the word read as 1: `{ binary: { one: \"No\" } }`; a bounded scale may name its floor and ceiling: `{ bounded: { lower: 0, upper: 100 } }`"},"rules":{"type":"object","description":"per rule id: `off`, or an object with an optional severity and the rule params","additionalProperties":{"anyOf":[{"const":"off"},{"type":"object","properties":{"severity":{"enum":["blocker","warning","note"]}}}]}}}};
 const func0 = Object.prototype.hasOwnProperty;
 
 function validate0(data, {instancePath="", parentData, parentDataProperty, rootData=data}={}){
@@ -488,14 +488,14 @@ vErrors = null;
 }
 }
 }
-if(data.missing !== undefined){
-let data10 = data.missing;
-if(Array.isArray(data10)){
-const len3 = data10.length;
-for(let i6=0; i6<len3; i6++){
-let data11 = data10[i6];
-if((typeof data11 !== "string") && (!(typeof data11 == "number"))){
-const err31 = {instancePath:instancePath+"/missing/" + i6,schemaPath:"#/properties/missing/items/type",keyword:"type",params:{type: schema0.properties.missing.items.type},message:"must be string,number"};
+if(data.slopes !== undefined){
+let data10 = data.slopes;
+const _errs35 = errors;
+let valid13 = false;
+const _errs36 = errors;
+if(typeof data10 === "string"){
+if(data10.length < 1){
+const err31 = {instancePath:instancePath+"/slopes",schemaPath:"#/properties/slopes/anyOf/0/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err31];
 }
@@ -505,9 +505,8 @@ vErrors.push(err31);
 errors++;
 }
 }
-}
 else {
-const err32 = {instancePath:instancePath+"/missing",schemaPath:"#/properties/missing/type",keyword:"type",params:{type: "array"},message:"must be array"};
+const err32 = {instancePath:instancePath+"/slopes",schemaPath:"#/properties/slopes/anyOf/0/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err32];
 }
@@ -516,17 +515,17 @@ vErrors.push(err32);
 }
 errors++;
 }
-}
-if(data.types !== undefined){
-let data12 = data.types;
-if(data12 && typeof data12 == "object" && !Array.isArray(data12)){
-for(const key1 in data12){
-let data13 = data12[key1];
-const _errs42 = errors;
-let valid16 = false;
-const _errs43 = errors;
-if(!(((data13 === "numeric") || (data13 === "categorical")) || (data13 === "binary"))){
-const err33 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/0/enum",keyword:"enum",params:{allowedValues: schema0.properties.types.additionalProperties.anyOf[0].enum},message:"must be equal to one of the allowed values"};
+var _valid3 = _errs36 === errors;
+valid13 = valid13 || _valid3;
+if(!valid13){
+const _errs38 = errors;
+if(Array.isArray(data10)){
+const len3 = data10.length;
+for(let i6=0; i6<len3; i6++){
+let data11 = data10[i6];
+if(typeof data11 === "string"){
+if(data11.length < 1){
+const err33 = {instancePath:instancePath+"/slopes/" + i6,schemaPath:"#/properties/slopes/anyOf/1/items/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err33];
 }
@@ -535,13 +534,9 @@ vErrors.push(err33);
 }
 errors++;
 }
-var _valid3 = _errs43 === errors;
-valid16 = valid16 || _valid3;
-if(!valid16){
-const _errs44 = errors;
-if(data13 && typeof data13 == "object" && !Array.isArray(data13)){
-if(data13.binary === undefined){
-const err34 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/1/required",keyword:"required",params:{missingProperty: "binary"},message:"must have required property '"+"binary"+"'"};
+}
+else {
+const err34 = {instancePath:instancePath+"/slopes/" + i6,schemaPath:"#/properties/slopes/anyOf/1/items/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err34];
 }
@@ -550,9 +545,19 @@ vErrors.push(err34);
 }
 errors++;
 }
-for(const key2 in data13){
-if(!(key2 === "binary")){
-const err35 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/1/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties"};
+}
+let i7 = data10.length;
+let j3;
+if(i7 > 1){
+const indices3 = {};
+for(;i7--;){
+let item3 = data10[i7];
+if(typeof item3 !== "string"){
+continue;
+}
+if(typeof indices3[item3] == "number"){
+j3 = indices3[item3];
+const err35 = {instancePath:instancePath+"/slopes",schemaPath:"#/properties/slopes/anyOf/1/uniqueItems",keyword:"uniqueItems",params:{i: i7, j: j3},message:"must NOT have duplicate items (items ## "+j3+" and "+i7+" are identical)"};
 if(vErrors === null){
 vErrors = [err35];
 }
@@ -560,13 +565,14 @@ else {
 vErrors.push(err35);
 }
 errors++;
+break;
+}
+indices3[item3] = i7;
 }
 }
-if(data13.binary !== undefined){
-let data14 = data13.binary;
-if(data14 && typeof data14 == "object" && !Array.isArray(data14)){
-if(data14.one === undefined){
-const err36 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/binary/required",keyword:"required",params:{missingProperty: "one"},message:"must have required property '"+"one"+"'"};
+}
+else {
+const err36 = {instancePath:instancePath+"/slopes",schemaPath:"#/properties/slopes/anyOf/1/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err36];
 }
@@ -575,9 +581,11 @@ vErrors.push(err36);
 }
 errors++;
 }
-for(const key3 in data14){
-if(!(key3 === "one")){
-const err37 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/binary/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key3},message:"must NOT have additional properties"};
+var _valid3 = _errs38 === errors;
+valid13 = valid13 || _valid3;
+}
+if(!valid13){
+const err37 = {instancePath:instancePath+"/slopes",schemaPath:"#/properties/slopes/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
 if(vErrors === null){
 vErrors = [err37];
 }
@@ -586,11 +594,23 @@ vErrors.push(err37);
 }
 errors++;
 }
+else {
+errors = _errs35;
+if(vErrors !== null){
+if(_errs35){
+vErrors.length = _errs35;
 }
-if(data14.one !== undefined){
-let data15 = data14.one;
-if((typeof data15 !== "string") && (typeof data15 !== "boolean")){
-const err38 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary/one",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/binary/properties/one/type",keyword:"type",params:{type: schema0.properties.types.additionalProperties.anyOf[1].properties.binary.properties.one.type},message:"must be string,boolean"};
+else {
+vErrors = null;
+}
+}
+}
+}
+if(data.time !== undefined){
+let data12 = data.time;
+if(typeof data12 === "string"){
+if(data12.length < 1){
+const err38 = {instancePath:instancePath+"/time",schemaPath:"#/properties/time/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err38];
 }
@@ -599,9 +619,9 @@ vErrors.push(err38);
 }
 errors++;
 }
-if(typeof data15 === "string"){
-if(data15.length < 1){
-const err39 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary/one",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/binary/properties/one/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+}
+else {
+const err39 = {instancePath:instancePath+"/time",schemaPath:"#/properties/time/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err39];
 }
@@ -611,10 +631,12 @@ vErrors.push(err39);
 errors++;
 }
 }
-}
-}
-else {
-const err40 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/binary/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data.weights !== undefined){
+let data13 = data.weights;
+if(data13 && typeof data13 == "object" && !Array.isArray(data13)){
+for(const key1 in data13){
+if(!((key1 === "level1") || (key1 === "level2"))){
+const err40 = {instancePath:instancePath+"/weights",schemaPath:"#/properties/weights/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key1},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err40];
 }
@@ -624,9 +646,11 @@ vErrors.push(err40);
 errors++;
 }
 }
-}
-else {
-const err41 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/1/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data13.level1 !== undefined){
+let data14 = data13.level1;
+if(typeof data14 === "string"){
+if(data14.length < 1){
+const err41 = {instancePath:instancePath+"/weights/level1",schemaPath:"#/properties/weights/properties/level1/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err41];
 }
@@ -635,11 +659,9 @@ vErrors.push(err41);
 }
 errors++;
 }
-var _valid3 = _errs44 === errors;
-valid16 = valid16 || _valid3;
 }
-if(!valid16){
-const err42 = {instancePath:instancePath+"/types/" + key1.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+else {
+const err42 = {instancePath:instancePath+"/weights/level1",schemaPath:"#/properties/weights/properties/level1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err42];
 }
@@ -648,21 +670,12 @@ vErrors.push(err42);
 }
 errors++;
 }
-else {
-errors = _errs42;
-if(vErrors !== null){
-if(_errs42){
-vErrors.length = _errs42;
 }
-else {
-vErrors = null;
-}
-}
-}
-}
-}
-else {
-const err43 = {instancePath:instancePath+"/types",schemaPath:"#/properties/types/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data13.level2 !== undefined){
+let data15 = data13.level2;
+if(typeof data15 === "string"){
+if(data15.length < 1){
+const err43 = {instancePath:instancePath+"/weights/level2",schemaPath:"#/properties/weights/properties/level2/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err43];
 }
@@ -672,16 +685,8 @@ vErrors.push(err43);
 errors++;
 }
 }
-if(data.rules !== undefined){
-let data16 = data.rules;
-if(data16 && typeof data16 == "object" && !Array.isArray(data16)){
-for(const key4 in data16){
-let data17 = data16[key4];
-const _errs56 = errors;
-let valid20 = false;
-const _errs57 = errors;
-if("off" !== data17){
-const err44 = {instancePath:instancePath+"/rules/" + key4.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/rules/additionalProperties/anyOf/0/const",keyword:"const",params:{allowedValue: "off"},message:"must be equal to constant"};
+else {
+const err44 = {instancePath:instancePath+"/weights/level2",schemaPath:"#/properties/weights/properties/level2/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err44];
 }
@@ -690,15 +695,10 @@ vErrors.push(err44);
 }
 errors++;
 }
-var _valid4 = _errs57 === errors;
-valid20 = valid20 || _valid4;
-if(!valid20){
-const _errs58 = errors;
-if(data17 && typeof data17 == "object" && !Array.isArray(data17)){
-if(data17.severity !== undefined){
-let data18 = data17.severity;
-if(!(((data18 === "blocker") || (data18 === "warning")) || (data18 === "note"))){
-const err45 = {instancePath:instancePath+"/rules/" + key4.replace(/~/g, "~0").replace(/\//g, "~1")+"/severity",schemaPath:"#/properties/rules/additionalProperties/anyOf/1/properties/severity/enum",keyword:"enum",params:{allowedValues: schema0.properties.rules.additionalProperties.anyOf[1].properties.severity.enum},message:"must be equal to one of the allowed values"};
+}
+}
+else {
+const err45 = {instancePath:instancePath+"/weights",schemaPath:"#/properties/weights/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err45];
 }
@@ -708,9 +708,11 @@ vErrors.push(err45);
 errors++;
 }
 }
-}
-else {
-const err46 = {instancePath:instancePath+"/rules/" + key4.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/rules/additionalProperties/anyOf/1/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data.detect !== undefined){
+let data16 = data.detect;
+if(data16 && typeof data16 == "object" && !Array.isArray(data16)){
+if(data16.predictor === undefined){
+const err46 = {instancePath:instancePath+"/detect",schemaPath:"#/properties/detect/required",keyword:"required",params:{missingProperty: "predictor"},message:"must have required property '"+"predictor"+"'"};
 if(vErrors === null){
 vErrors = [err46];
 }
@@ -719,11 +721,9 @@ vErrors.push(err46);
 }
 errors++;
 }
-var _valid4 = _errs58 === errors;
-valid20 = valid20 || _valid4;
-}
-if(!valid20){
-const err47 = {instancePath:instancePath+"/rules/" + key4.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/rules/additionalProperties/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+for(const key2 in data16){
+if(!((key2 === "predictor") || (key2 === "effect_size"))){
+const err47 = {instancePath:instancePath+"/detect",schemaPath:"#/properties/detect/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err47];
 }
@@ -732,21 +732,12 @@ vErrors.push(err47);
 }
 errors++;
 }
-else {
-errors = _errs56;
-if(vErrors !== null){
-if(_errs56){
-vErrors.length = _errs56;
 }
-else {
-vErrors = null;
-}
-}
-}
-}
-}
-else {
-const err48 = {instancePath:instancePath+"/rules",schemaPath:"#/properties/rules/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data16.predictor !== undefined){
+let data17 = data16.predictor;
+if(typeof data17 === "string"){
+if(data17.length < 1){
+const err48 = {instancePath:instancePath+"/detect/predictor",schemaPath:"#/properties/detect/properties/predictor/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err48];
 }
@@ -756,14 +747,420 @@ vErrors.push(err48);
 errors++;
 }
 }
-}
 else {
-const err49 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err49 = {instancePath:instancePath+"/detect/predictor",schemaPath:"#/properties/detect/properties/predictor/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err49];
 }
 else {
 vErrors.push(err49);
+}
+errors++;
+}
+}
+if(data16.effect_size !== undefined){
+let data18 = data16.effect_size;
+if(typeof data18 == "number"){
+if(data18 <= 0 || isNaN(data18)){
+const err50 = {instancePath:instancePath+"/detect/effect_size",schemaPath:"#/properties/detect/properties/effect_size/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
+if(vErrors === null){
+vErrors = [err50];
+}
+else {
+vErrors.push(err50);
+}
+errors++;
+}
+}
+else {
+const err51 = {instancePath:instancePath+"/detect/effect_size",schemaPath:"#/properties/detect/properties/effect_size/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(vErrors === null){
+vErrors = [err51];
+}
+else {
+vErrors.push(err51);
+}
+errors++;
+}
+}
+}
+else {
+const err52 = {instancePath:instancePath+"/detect",schemaPath:"#/properties/detect/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err52];
+}
+else {
+vErrors.push(err52);
+}
+errors++;
+}
+}
+if(data.missing !== undefined){
+let data19 = data.missing;
+if(Array.isArray(data19)){
+const len4 = data19.length;
+for(let i8=0; i8<len4; i8++){
+let data20 = data19[i8];
+if((typeof data20 !== "string") && (!(typeof data20 == "number"))){
+const err53 = {instancePath:instancePath+"/missing/" + i8,schemaPath:"#/properties/missing/items/type",keyword:"type",params:{type: schema0.properties.missing.items.type},message:"must be string,number"};
+if(vErrors === null){
+vErrors = [err53];
+}
+else {
+vErrors.push(err53);
+}
+errors++;
+}
+}
+}
+else {
+const err54 = {instancePath:instancePath+"/missing",schemaPath:"#/properties/missing/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(vErrors === null){
+vErrors = [err54];
+}
+else {
+vErrors.push(err54);
+}
+errors++;
+}
+}
+if(data.types !== undefined){
+let data21 = data.types;
+if(data21 && typeof data21 == "object" && !Array.isArray(data21)){
+for(const key3 in data21){
+let data22 = data21[key3];
+const _errs66 = errors;
+let valid22 = false;
+const _errs67 = errors;
+if(!((((((data22 === "numeric") || (data22 === "categorical")) || (data22 === "binary")) || (data22 === "count")) || (data22 === "ordinal")) || (data22 === "bounded"))){
+const err55 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/0/enum",keyword:"enum",params:{allowedValues: schema0.properties.types.additionalProperties.anyOf[0].enum},message:"must be equal to one of the allowed values"};
+if(vErrors === null){
+vErrors = [err55];
+}
+else {
+vErrors.push(err55);
+}
+errors++;
+}
+var _valid4 = _errs67 === errors;
+valid22 = valid22 || _valid4;
+if(!valid22){
+const _errs68 = errors;
+if(data22 && typeof data22 == "object" && !Array.isArray(data22)){
+if(data22.bounded === undefined){
+const err56 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/1/required",keyword:"required",params:{missingProperty: "bounded"},message:"must have required property '"+"bounded"+"'"};
+if(vErrors === null){
+vErrors = [err56];
+}
+else {
+vErrors.push(err56);
+}
+errors++;
+}
+for(const key4 in data22){
+if(!(key4 === "bounded")){
+const err57 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/1/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key4},message:"must NOT have additional properties"};
+if(vErrors === null){
+vErrors = [err57];
+}
+else {
+vErrors.push(err57);
+}
+errors++;
+}
+}
+if(data22.bounded !== undefined){
+let data23 = data22.bounded;
+if(data23 && typeof data23 == "object" && !Array.isArray(data23)){
+for(const key5 in data23){
+if(!((key5 === "lower") || (key5 === "upper"))){
+const err58 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1")+"/bounded",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/bounded/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key5},message:"must NOT have additional properties"};
+if(vErrors === null){
+vErrors = [err58];
+}
+else {
+vErrors.push(err58);
+}
+errors++;
+}
+}
+if(data23.lower !== undefined){
+if(!(typeof data23.lower == "number")){
+const err59 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1")+"/bounded/lower",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/bounded/properties/lower/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(vErrors === null){
+vErrors = [err59];
+}
+else {
+vErrors.push(err59);
+}
+errors++;
+}
+}
+if(data23.upper !== undefined){
+if(!(typeof data23.upper == "number")){
+const err60 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1")+"/bounded/upper",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/bounded/properties/upper/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(vErrors === null){
+vErrors = [err60];
+}
+else {
+vErrors.push(err60);
+}
+errors++;
+}
+}
+}
+else {
+const err61 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1")+"/bounded",schemaPath:"#/properties/types/additionalProperties/anyOf/1/properties/bounded/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err61];
+}
+else {
+vErrors.push(err61);
+}
+errors++;
+}
+}
+}
+else {
+const err62 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/1/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err62];
+}
+else {
+vErrors.push(err62);
+}
+errors++;
+}
+var _valid4 = _errs68 === errors;
+valid22 = valid22 || _valid4;
+if(!valid22){
+const _errs78 = errors;
+if(data22 && typeof data22 == "object" && !Array.isArray(data22)){
+if(data22.binary === undefined){
+const err63 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/2/required",keyword:"required",params:{missingProperty: "binary"},message:"must have required property '"+"binary"+"'"};
+if(vErrors === null){
+vErrors = [err63];
+}
+else {
+vErrors.push(err63);
+}
+errors++;
+}
+for(const key6 in data22){
+if(!(key6 === "binary")){
+const err64 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/2/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key6},message:"must NOT have additional properties"};
+if(vErrors === null){
+vErrors = [err64];
+}
+else {
+vErrors.push(err64);
+}
+errors++;
+}
+}
+if(data22.binary !== undefined){
+let data26 = data22.binary;
+if(data26 && typeof data26 == "object" && !Array.isArray(data26)){
+if(data26.one === undefined){
+const err65 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary",schemaPath:"#/properties/types/additionalProperties/anyOf/2/properties/binary/required",keyword:"required",params:{missingProperty: "one"},message:"must have required property '"+"one"+"'"};
+if(vErrors === null){
+vErrors = [err65];
+}
+else {
+vErrors.push(err65);
+}
+errors++;
+}
+for(const key7 in data26){
+if(!(key7 === "one")){
+const err66 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary",schemaPath:"#/properties/types/additionalProperties/anyOf/2/properties/binary/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key7},message:"must NOT have additional properties"};
+if(vErrors === null){
+vErrors = [err66];
+}
+else {
+vErrors.push(err66);
+}
+errors++;
+}
+}
+if(data26.one !== undefined){
+let data27 = data26.one;
+if((typeof data27 !== "string") && (typeof data27 !== "boolean")){
+const err67 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary/one",schemaPath:"#/properties/types/additionalProperties/anyOf/2/properties/binary/properties/one/type",keyword:"type",params:{type: schema0.properties.types.additionalProperties.anyOf[2].properties.binary.properties.one.type},message:"must be string,boolean"};
+if(vErrors === null){
+vErrors = [err67];
+}
+else {
+vErrors.push(err67);
+}
+errors++;
+}
+if(typeof data27 === "string"){
+if(data27.length < 1){
+const err68 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary/one",schemaPath:"#/properties/types/additionalProperties/anyOf/2/properties/binary/properties/one/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(vErrors === null){
+vErrors = [err68];
+}
+else {
+vErrors.push(err68);
+}
+errors++;
+}
+}
+}
+}
+else {
+const err69 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1")+"/binary",schemaPath:"#/properties/types/additionalProperties/anyOf/2/properties/binary/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err69];
+}
+else {
+vErrors.push(err69);
+}
+errors++;
+}
+}
+}
+else {
+const err70 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf/2/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err70];
+}
+else {
+vErrors.push(err70);
+}
+errors++;
+}
+var _valid4 = _errs78 === errors;
+valid22 = valid22 || _valid4;
+}
+}
+if(!valid22){
+const err71 = {instancePath:instancePath+"/types/" + key3.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/types/additionalProperties/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(vErrors === null){
+vErrors = [err71];
+}
+else {
+vErrors.push(err71);
+}
+errors++;
+}
+else {
+errors = _errs66;
+if(vErrors !== null){
+if(_errs66){
+vErrors.length = _errs66;
+}
+else {
+vErrors = null;
+}
+}
+}
+}
+}
+else {
+const err72 = {instancePath:instancePath+"/types",schemaPath:"#/properties/types/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err72];
+}
+else {
+vErrors.push(err72);
+}
+errors++;
+}
+}
+if(data.rules !== undefined){
+let data28 = data.rules;
+if(data28 && typeof data28 == "object" && !Array.isArray(data28)){
+for(const key8 in data28){
+let data29 = data28[key8];
+const _errs90 = errors;
+let valid28 = false;
+const _errs91 = errors;
+if("off" !== data29){
+const err73 = {instancePath:instancePath+"/rules/" + key8.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/rules/additionalProperties/anyOf/0/const",keyword:"const",params:{allowedValue: "off"},message:"must be equal to constant"};
+if(vErrors === null){
+vErrors = [err73];
+}
+else {
+vErrors.push(err73);
+}
+errors++;
+}
+var _valid5 = _errs91 === errors;
+valid28 = valid28 || _valid5;
+if(!valid28){
+const _errs92 = errors;
+if(data29 && typeof data29 == "object" && !Array.isArray(data29)){
+if(data29.severity !== undefined){
+let data30 = data29.severity;
+if(!(((data30 === "blocker") || (data30 === "warning")) || (data30 === "note"))){
+const err74 = {instancePath:instancePath+"/rules/" + key8.replace(/~/g, "~0").replace(/\//g, "~1")+"/severity",schemaPath:"#/properties/rules/additionalProperties/anyOf/1/properties/severity/enum",keyword:"enum",params:{allowedValues: schema0.properties.rules.additionalProperties.anyOf[1].properties.severity.enum},message:"must be equal to one of the allowed values"};
+if(vErrors === null){
+vErrors = [err74];
+}
+else {
+vErrors.push(err74);
+}
+errors++;
+}
+}
+}
+else {
+const err75 = {instancePath:instancePath+"/rules/" + key8.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/rules/additionalProperties/anyOf/1/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err75];
+}
+else {
+vErrors.push(err75);
+}
+errors++;
+}
+var _valid5 = _errs92 === errors;
+valid28 = valid28 || _valid5;
+}
+if(!valid28){
+const err76 = {instancePath:instancePath+"/rules/" + key8.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/rules/additionalProperties/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(vErrors === null){
+vErrors = [err76];
+}
+else {
+vErrors.push(err76);
+}
+errors++;
+}
+else {
+errors = _errs90;
+if(vErrors !== null){
+if(_errs90){
+vErrors.length = _errs90;
+}
+else {
+vErrors = null;
+}
+}
+}
+}
+}
+else {
+const err77 = {instancePath:instancePath+"/rules",schemaPath:"#/properties/rules/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err77];
+}
+else {
+vErrors.push(err77);
+}
+errors++;
+}
+}
+}
+else {
+const err78 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err78];
+}
+else {
+vErrors.push(err78);
 }
 errors++;
 }

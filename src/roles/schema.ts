@@ -26,6 +26,27 @@ export const roleMapSchema = {
     outcomes: { ...columnList, description: 'outcome columns' },
     level1: { ...columnList, description: 'level-1 variables' },
     level2: { ...columnList, description: 'level-2 variables: must be constant within each group' },
+    slopes: { ...columnList, description: 'level-1 variables planned to get random slopes (read as level-1 variables too)' },
+    time: { ...columnName, description: 'the occasion of longitudinal data: measurements nested in persons (a level-1 variable too)' },
+    weights: {
+      type: 'object',
+      additionalProperties: false,
+      description: 'sampling weights',
+      properties: {
+        level1: { ...columnName, description: 'weight of each record (level 1)' },
+        level2: { ...columnName, description: 'weight of each group (level 2): constant within a group' },
+      },
+    },
+    detect: {
+      type: 'object',
+      additionalProperties: false,
+      required: ['predictor'],
+      description: 'the planned level-2 predictor of main interest, and the standardised effect size the study must detect',
+      properties: {
+        predictor: { ...columnName, description: 'a level-2 variable (read as one too)' },
+        effect_size: { type: 'number', exclusiveMinimum: 0, description: 'in standard deviations of the outcome' },
+      },
+    },
     missing: {
       type: 'array',
       items: { type: ['string', 'number'] },
@@ -35,7 +56,22 @@ export const roleMapSchema = {
       type: 'object',
       additionalProperties: {
         anyOf: [
-          { enum: ['numeric', 'categorical', 'binary'] },
+          { enum: ['numeric', 'categorical', 'binary', 'count', 'ordinal', 'bounded'] },
+          {
+            type: 'object',
+            additionalProperties: false,
+            required: ['bounded'],
+            properties: {
+              bounded: {
+                type: 'object',
+                additionalProperties: false,
+                properties: {
+                  lower: { type: 'number', description: 'the lowest value the scale allows (its floor)' },
+                  upper: { type: 'number', description: 'the highest value the scale allows (its ceiling)' },
+                },
+              },
+            },
+          },
           {
             type: 'object',
             additionalProperties: false,
@@ -57,7 +93,9 @@ export const roleMapSchema = {
           },
         ],
       },
-      description: 'type overrides per column; a binary variable written in words may name the word read as 1: `{ binary: { one: "No" } }`',
+      description:
+        'type overrides per column; a binary variable written in words may name the word read as 1: `{ binary: { one: "No" } }`; ' +
+        'a bounded scale may name its floor and ceiling: `{ bounded: { lower: 0, upper: 100 } }`',
     },
     rules: {
       type: 'object',

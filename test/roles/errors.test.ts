@@ -47,7 +47,7 @@ describe('role-map errors: one line, naming the file', () => {
 
   it('a column with a newline under types is quoted in the path', () => {
     const message = messageOf('group: g\ntypes:\n  "x\\ny": number\n');
-    expect(message).toBe('r.yaml:3:3: types."x\\ny" must be one of "numeric", "categorical", "binary"');
+    expect(message).toBe('r.yaml:3:3: types."x\\ny" must be one of "numeric", "categorical", "binary", "count", "ordinal", "bounded"');
   });
 
   it('a header with newlines, quotes and commas is listed unambiguously', () => {

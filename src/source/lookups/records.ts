@@ -1,5 +1,6 @@
 import { mostlyNumbers } from '../../profile/reads-as-numbers.js';
 import type { ValueType } from '../../roles/types.js';
+import { isNumberKind } from '../../roles/types.js';
 import { ident } from '../sql.js';
 import type { Source } from '../types.js';
 import { modalValueSql } from './modal-value.js';
@@ -101,7 +102,7 @@ export function recordQueries(source: Source, group: string): RecordQueries {
     },
     async readsAsNumber(column, declared) {
       if (declared === 'categorical') return false;
-      if (declared === 'numeric' || declared === 'binary' || source.storage.get(column) === 'double') return true;
+      if (isNumberKind(declared) || declared === 'binary' || source.storage.get(column) === 'double') return true;
       // the profile's own test (a level-2 variable is a declared variable)
       const c = ident(column);
       const [{ nn, num }] = await source.all<{ nn: unknown; num: unknown }>(

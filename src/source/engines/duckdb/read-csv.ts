@@ -1,4 +1,5 @@
 import type { Roles } from '../../../roles/types.js';
+import { isNumberKind } from '../../../roles/types.js';
 import type { Storage } from '../../sql.js';
 import { literal } from '../../sql.js';
 
@@ -97,7 +98,7 @@ export function typedColumns(
     const declared = roles.types[c];
     // a binary column the sniffer saw as text is written in words (yes/no): read as text, for the
     // reading plan to read its two words as 0/1 (plan/binary-words.ts)
-    const isNumber = declared === 'numeric' || (declared !== 'categorical' && sniffedNumeric.has(c));
+    const isNumber = isNumberKind(declared) || (declared !== 'categorical' && sniffedNumeric.has(c));
     storage.set(c, !ids.has(c) && isNumber ? 'double' : 'text');
   }
   return storage;
