@@ -1,5 +1,5 @@
 import { realpathSync, statSync } from 'node:fs';
-import { join, relative, resolve, sep } from 'node:path';
+import { isAbsolute, join, relative, resolve, sep } from 'node:path';
 import { globSync, isDynamicPattern } from 'tinyglobby';
 import { InputError } from '../errors.js';
 import { FORMATS } from '../source/formats/registry.js';
@@ -88,7 +88,8 @@ export function discover(args: readonly string[], options: DiscoverOptions): Dis
     if (kind === 'file') take(arg);
     else if (kind === 'folder') met(folderFiles(arg, options.recurse));
     else if (isDynamicPattern(arg)) {
-      const found = globSync(arg, { onlyFiles: true, expandDirectories: false });
+      // an absolute pattern gives absolute paths, a relative one paths from the working folder
+      const found = globSync(arg, { onlyFiles: true, expandDirectories: false, absolute: isAbsolute(arg) });
       if (!found.length) throw new InputError(`${arg}: no file matches this pattern`);
       met(found);
     } else throw new InputError(`${arg}: no such file or folder`);
