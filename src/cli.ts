@@ -103,7 +103,7 @@ export function buildProgram(): Command {
 
   program
     .command('audit')
-    .description('profile a delivery, run the rule catalogue, grade it and print the report')
+    .description('profile a delivery (or each of several, with a summary), run the rule catalogue, grade it and print the report')
     .argument('[deliveries...]', `${deliveryHelp()}; several files, a folder or a quoted pattern audit each (README: Auditing a folder)`)
     .requiredOption('-r, --roles <file>', 'the YAML role map')
     .addOption(
