@@ -19,6 +19,7 @@ import { timed } from './spawn.js';
  * @property {number | null} maxRssMB peak RSS of the batch's process: the audits run in it (DuckDB's threads too), so it is the whole tree's
  * @property {number | null} baselineWallMs one DuckDB group-by over every file of the folder (read_csv of a glob)
  * @property {number | null} baselineMaxRssMB
+ * @property {number | null} baselineCpuMs
  * @property {number} load1
  * @property {number | null} exitCode
  * @property {Record<string, number> | null} counts the summary's tallies
@@ -93,6 +94,7 @@ export async function runBatchCase(opt) {
     maxRssMB: res?.maxRssMB ?? null,
     baselineWallMs: inner ? base.wallMs : null,
     baselineMaxRssMB: inner?.maxRssMB ?? null,
+    baselineCpuMs: inner ? base.cpuMs : null,
     load1: p.load1,
     exitCode: res?.exitCode ?? p.code,
     counts,
@@ -109,8 +111,9 @@ export function printBatch(r) {
       ' (a report folder each: HTML, JSON, problem rows; JSON summary)\n' +
       `  nestready audit FOLDER  wall ${s(r.wallMs)}, cpu ${s(r.cpuMs)}, peak RSS ${mb(r.maxRssMB)}, load ${r.load1.toFixed(2)}` +
       `${r.ok ? '' : `  FAILED (${r.error})`}\n` +
-      `  DuckDB group-by of all ${r.deliveries} files in one query  wall ${s(r.baselineWallMs)}, peak RSS ${mb(r.baselineMaxRssMB)}` +
-      (r.baselineWallMs ? `\n  ratio ${(r.wallMs / r.baselineWallMs).toFixed(2)}x` : '') +
+      `  DuckDB group-by of all ${r.deliveries} files in one query  wall ${s(r.baselineWallMs)}, cpu ${s(r.baselineCpuMs)}, peak RSS ${mb(r.baselineMaxRssMB)}` +
+      (r.baselineWallMs ? `\n  ratio ${(r.wallMs / r.baselineWallMs).toFixed(2)}x wall` : '') +
+      (r.cpuMs && r.baselineCpuMs ? `, ${(r.cpuMs / r.baselineCpuMs).toFixed(2)}x cpu` : '') +
       (r.counts ? `\n  summary: ${JSON.stringify(r.counts)}` : ''),
   );
 }
