@@ -16,7 +16,8 @@ import { timed } from './spawn.js';
  * @property {boolean} ok
  * @property {number} wallMs the whole `nestready audit FOLDER` process, Node start-up included
  * @property {number | null} cpuMs
- * @property {number | null} maxRssMB peak RSS of the batch's process: the audits run in it (DuckDB's threads too), so it is the whole tree's
+ * @property {number | null} maxRssMB peak RSS of the batch's process: the audits run in it (DuckDB's threads
+ *   too), so it is the whole tree's
  * @property {number | null} baselineWallMs one DuckDB group-by over every file of the folder (read_csv of a glob)
  * @property {number | null} baselineMaxRssMB
  * @property {number | null} baselineCpuMs
@@ -111,7 +112,8 @@ export function printBatch(r) {
       ' (a report folder each: HTML, JSON, problem rows; JSON summary)\n' +
       `  nestready audit FOLDER  wall ${s(r.wallMs)}, cpu ${s(r.cpuMs)}, peak RSS ${mb(r.maxRssMB)}, load ${r.load1.toFixed(2)}` +
       `${r.ok ? '' : `  FAILED (${r.error})`}\n` +
-      `  DuckDB group-by of all ${r.deliveries} files in one query  wall ${s(r.baselineWallMs)}, cpu ${s(r.baselineCpuMs)}, peak RSS ${mb(r.baselineMaxRssMB)}` +
+      `  DuckDB group-by of all ${r.deliveries} files in one query  wall ${s(r.baselineWallMs)}, cpu ${s(r.baselineCpuMs)}, ` +
+      `peak RSS ${mb(r.baselineMaxRssMB)}` +
       (r.baselineWallMs ? `\n  ratio ${(r.wallMs / r.baselineWallMs).toFixed(2)}x wall` : '') +
       (r.cpuMs && r.baselineCpuMs ? `, ${(r.cpuMs / r.baselineCpuMs).toFixed(2)}x cpu` : '') +
       (r.counts ? `\n  summary: ${JSON.stringify(r.counts)}` : ''),
