@@ -154,6 +154,8 @@ const rssAfterImportMB = rssMB();
 // ---- the audit itself ----------------------------------------------------------------
 const argv = ['node', 'nestready', 'audit', file, '--roles', roles, '--format', 'json', '--out', out];
 if (memoryLimit) argv.push('--memory-limit', memoryLimit);
+// more options from the caller (the batch case: --reports-dir)
+if (process.env.NESTREADY_BENCH_EXTRA) argv.push(...JSON.parse(process.env.NESTREADY_BENCH_EXTRA));
 const mainStartMs = performance.now();
 await main(argv);
 const mainEndMs = performance.now();

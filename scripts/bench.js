@@ -16,6 +16,10 @@
 //                  below; the role map turns the rest off), full = the whole catalogue
 //   --memory-limit passed to `nestready audit --memory-limit` (default: the CLI's own, 100MB)
 //   --keep         keep the generated CSVs and the audit reports
+//   --batch        DELIVERIESxROWS, e.g. 20x50000: also audit a folder of that many synthetic deliveries
+//                  (--batch-groups groups each, default 500) as one batch with a report folder per
+//                  delivery, beside one DuckDB group-by over all its files (`--cases none` runs it alone);
+//                  peak RSS is the batch process's, which holds every audit (bench/batch.js)
 //
 // For every (rows, groups) case it generates a synthetic delivery (scripts/synth.js) under
 // os.tmpdir()/nestready-bench — reusing synth-r<rows>-g<groups>-s<seed>.csv if an earlier
@@ -43,6 +47,7 @@ import { existsSync, mkdirSync, readFileSync, rmSync, statSync, writeFileSync } 
 import { cpus } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { printBatch, runBatchCase } from './bench/batch.js';
 import {
   CLI,
   CORE_RULES,
@@ -133,9 +138,16 @@ for (const { rows, groups } of cases) {
 
 if (!opt.keep) for (const p of generated) rmSync(p, { force: true });
 
+const batch = opt.batch
+  ? await runBatchCase({ ...opt.batch, seed, memoryLimit: opt.memoryLimit, rolesPath: rolesPaths.full, keep: opt.keep })
+  : null;
+// a failed batch is a result; no summary at all means the harness broke
+if (batch && batch.counts === null) failures++;
+
 printResults(results, { repeat, seed, memoryLimit: opt.memoryLimit, code, distBuiltAt });
 printPhases(results);
 printVerdicts(results);
+if (batch) printBatch(batch);
 const distChanged = statSync(CLI).mtime.toISOString() !== distBuiltAt;
 if (distChanged)
   console.log(`WARNING dist/ was rebuilt while the bench ran (now ${statSync(CLI).mtime.toISOString()}): runs may mix code versions`);
@@ -162,6 +174,7 @@ const summary = {
   coreRules: CORE_RULES,
   targets,
   results,
+  batch,
 };
 writeFileSync(jsonPath, `${JSON.stringify(summary, null, 2)}\n`);
 console.log(`\nresults: ${jsonPath}${opt.keep ? `; files kept in ${WORK}` : ''}`);

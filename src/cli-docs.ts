@@ -32,7 +32,9 @@ export function optionsTable(command: Command): string {
 export function cliMarkdown(program: Command): string {
   const out = ['| command | what it does |', '|---|---|'];
   for (const c of program.commands) {
-    const args = c.registeredArguments.map((a) => (a.required ? `<${a.name()}>` : `[${a.name()}]`)).join(' ');
+    const args = c.registeredArguments
+      .map((a) => ((n) => (a.required ? `<${n}>` : `[${n}]`))(`${a.name()}${a.variadic ? '...' : ''}`))
+      .join(' ');
     out.push(`| \`${program.name()} ${c.name()}${args ? ` ${args}` : ''}\` | ${cell(c.description())} |`);
   }
   for (const c of program.commands) {

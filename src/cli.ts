@@ -1,6 +1,8 @@
 import { rmSync } from 'node:fs';
 import { Command, InvalidArgumentError, Option } from 'commander';
 import { catalogue } from '../rules/index.js';
+import type { BatchFlags } from './batch/wants.js';
+import { wantsBatch } from './batch/wants.js';
 import { endingFor } from './cli-exit.js';
 import { memorySize, sheetNote } from './cli-options.js';
 import { planOutputs, protectInputs, writeDraftFile, writeOutput } from './cli-output.js';
@@ -28,7 +30,7 @@ const CATALOGUE_FORMATS = { text: catalogueText, json: catalogueJson, md: catalo
 const OUT_EXTENSIONS = REPORT_FORMATS.map((f) => `${REPORT_FORMAT_TABLE[f].extensions.join(' ')} ${f}`).join(', ');
 const FAIL_ON = { blocker: true, warning: true, never: true } satisfies Record<FailOn, true>;
 
-interface AuditFlags {
+interface AuditFlags extends BatchFlags {
   roles: string;
   preset?: PresetName;
   format: ReportFormat;
@@ -101,8 +103,8 @@ export function buildProgram(): Command {
 
   program
     .command('audit')
-    .description('profile a delivery, run the rule catalogue, grade it and print the report')
-    .argument('[delivery]', deliveryHelp())
+    .description('profile a delivery (or each of several, with a summary), run the rule catalogue, grade it and print the report')
+    .argument('[deliveries...]', `${deliveryHelp()}; several files, a folder or a quoted pattern audit each (README: Auditing a folder)`)
     .requiredOption('-r, --roles <file>', 'the YAML role map')
     .addOption(
       new Option('--preset <name>', "rule settings merged under the role map's own (README: Presets)").choices(Object.keys(PRESETS)),
@@ -148,7 +150,16 @@ export function buildProgram(): Command {
     .option('--table <name>', 'with --source: the table or view')
     .option('--query <sql>', 'with --source: a query whose rows are the delivery')
     .option('--strict', 'any line that cannot be read is an input error (exit 2), not a finding')
-    .action(async (deliveryArg: string | undefined, flags: AuditFlags) => {
+    .option('--reports-dir <dir>', "batch: write each delivery's HTML and JSON report and problem rows into a folder of its own here")
+    .option('--sender-from <regex>', "batch: the sender's name from the file name: the group named sender, else the first group")
+    .option('--at-once <n>', 'batch: audit at most this many deliveries at once (default: the cores)', count)
+    .option('--recurse', "batch: a folder's subfolders too")
+    .action(async (deliveryArgs: string[], flags: AuditFlags) => {
+      if (wantsBatch(deliveryArgs, flags)) {
+        const { auditBatch } = await import('./batch/command.js');
+        return auditBatch(deliveryArgs, flags, (toFile) => colorLevel(flags, toFile));
+      }
+      const deliveryArg = deliveryArgs[0];
       protectInputs(flags, deliveryArg);
       const roles = loadRoles(flags.roles, catalogue, { preset: flags.preset });
       const resolved = await deliveryInput(deliveryArg, flags);

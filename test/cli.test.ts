@@ -1,4 +1,4 @@
-import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -173,9 +173,12 @@ describe.concurrent('nestready audit: usage and input errors exit 2 with one lin
     expect(line).toBe('nestready: no/such/roles.yaml: cannot read the role map (ENOENT)');
   });
 
-  it('a directory instead of a delivery', async ({ expect }) => {
-    const line = expectUsageError(await nestready('audit', DEMO, '-r', `${DEMO}/repairs-clean.roles.yaml`));
-    expect(line).toBe(`nestready: ${DEMO}: not a file`);
+  it('a directory without a delivery (a directory is a batch: README, Auditing a folder)', async ({ expect }) => {
+    const empty = join(dir, 'no-deliveries');
+    mkdirSync(empty);
+    writeFileSync(join(empty, 'notes.md'), '# nothing to audit\n');
+    const line = expectUsageError(await nestready('audit', empty, '-r', `${DEMO}/repairs-clean.roles.yaml`));
+    expect(line).toBe(`nestready: ${empty}: no delivery found (1 file(s) skipped: their names name no delivery format)`);
   });
 
   it('an empty (0-byte) delivery', async ({ expect }) => {

@@ -38,6 +38,8 @@ export function benchOptions(args) {
       sizes: { type: 'string' },
       'groups-list': { type: 'string' },
       cases: { type: 'string' },
+      batch: { type: 'string' },
+      'batch-groups': { type: 'string', default: '500' },
       'memory-limit': { type: 'string' },
       'rule-sets': { type: 'string', default: 'core,full' },
       keep: { type: 'boolean', default: false },
@@ -53,7 +55,7 @@ export function benchOptions(args) {
   const groupsList = opt['groups-list'] ? list('groups-list', opt['groups-list']) : [count('groups', opt.groups)];
   /** @type {Case[]} */
   const cases = opt.cases
-    ? items(opt.cases).map((x) => {
+    ? items(opt.cases === 'none' ? '' : opt.cases).map((x) => {
         const [r, g] = x.split('x');
         return { rows: count('cases', r, 0), groups: count('cases', g ?? '') };
       })
@@ -63,8 +65,17 @@ export function benchOptions(args) {
   if (!ruleSets.length || ruleSets.some((x) => !(x in TARGET_RATIO))) {
     usage(`--rule-sets takes ${Object.keys(TARGET_RATIO).join(', ')} (got "${opt['rule-sets']}")`);
   }
+  const [batchDeliveries, batchRows] = opt.batch ? opt.batch.split('x') : [];
+  const batch = opt.batch
+    ? {
+        deliveries: count('batch', batchDeliveries),
+        rows: count('batch', batchRows ?? ''),
+        groups: count('batch-groups', opt['batch-groups']),
+      }
+    : null;
   return {
     help: /** @type {const} */ (false),
+    batch,
     seed,
     repeat,
     cases,
