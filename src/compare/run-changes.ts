@@ -41,7 +41,28 @@ export function withChanges(
   const current = { snapshot: measured.snapshot, findings: report.findings, outcomes: report.outcomes };
   const changes = runChanges(catalogue, { roles, previous: baseline, current, measured }, options);
   const findings = sortFindings([...report.findings, ...changes]);
-  return { ...report, findings, ...grade(findings), changes: summary(report, measured.snapshot, baseline, measured.skipped) };
+  const changed = summary(report, measured.snapshot, baseline, measured.skipped);
+  const input = { ...report.input, notes: [...(report.input.notes ?? []), ...changeNotes(changed)] };
+  return { ...report, input, findings, ...grade(findings), changes: changed };
+}
+
+/** The comparison in words for the report's notes, which every renderer shows under the input. */
+function changeNotes(c: ChangesSummary): string[] {
+  const how = c.previous.from === 'report' ? 'read from its report' : 'audited as a file';
+  const r = (x: number | null) => (x === null ? 'n/a' : String(Math.round(x * 1000) / 1000));
+  const notes = [
+    `compared with the previous delivery ${c.previous.path} (${how}): ${c.groups.both} groups in both, ${c.groups.appeared} appeared, ` +
+      `${c.groups.vanished} vanished; audit findings ${c.findings.new} new, ${c.findings.resolved} resolved, ${c.findings.persisting} persisting`,
+  ];
+  for (const [name, o] of Object.entries(c.outcomes)) {
+    const icc = (s: IccSide) => `${r(s.icc)} [${r(s.ci95[0])}, ${r(s.ci95[1])}]`;
+    notes.push(
+      `${name}: ICC(1) ${icc(o.previous)} before, ${icc(o.current)} now; REML between-group variance ${r(o.previous.tau2)} → ` +
+        `${r(o.current.tau2)}, within ${r(o.previous.sigma2)} → ${r(o.current.sigma2)}; difference z = ${r(o.z)}, p = ${r(o.p)}`,
+    );
+  }
+  for (const why of c.skipped) notes.push(`not checked: ${why}`);
+  return notes;
 }
 
 /** Only the change findings, graded on their own: what `nestready compare` reports and gates on. */

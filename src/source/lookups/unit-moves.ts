@@ -4,21 +4,23 @@ import type { Source } from '../types.js';
 /** How many examples of each kind of change come back (IDs, record numbers, groups). */
 const EXAMPLES = 20;
 
-/** Per unit ID: its (smallest) group and first record, one row per ID. */
-function unitsQuery(source: Source, unit: string, group: string): string {
-  return (
-    `SELECT u, min(g) AS g, min(__rec) AS r FROM (SELECT ${ident(unit)} AS u, ${ident(group)} AS g, __rec FROM ${source.numbered}) AS t ` +
-    'WHERE u IS NOT NULL GROUP BY u'
-  );
+/**
+ * Each record's unit ID and group (and record number when `numbered`). Not grouped by unit: an ID
+ * on several records (the audit's duplicate-unit-id and unit-in-several-groups report those)
+ * joins once per pair of records, which costs less than grouping a million IDs first.
+ */
+function unitsQuery(source: Source, unit: string, group: string, numbered: boolean): string {
+  const rec = numbered ? '__rec' : 'NULL';
+  return `SELECT ${ident(unit)} AS u, ${ident(group)} AS g, ${rec} AS r FROM ${numbered ? source.numbered : source.view} WHERE ${ident(unit)} IS NOT NULL`;
 }
 
 /**
- * Keep the delivery's unit IDs with their group and first record in a Parquet file, so that the
+ * Keep the delivery's unit IDs with their groups in a Parquet file, so that the
  * next delivery, opened in another DuckDB instance, can join them (unitMoves). The file holds
  * IDs only; it is the caller's to delete.
  */
 export async function exportUnits(source: Source, unit: string, group: string, file: string): Promise<void> {
-  await source.session((db) => db.run(`COPY (${unitsQuery(source, unit, group)}) TO ${literal(file)} (FORMAT parquet)`));
+  await source.session((db) => db.run(`COPY (${unitsQuery(source, unit, group, false)}) TO ${literal(file)} (FORMAT parquet)`));
 }
 
 export interface UnitMoveRows {
@@ -36,7 +38,7 @@ export async function unitMoves(source: Source, unit: string, group: string, pre
   return source.session(async (db) => {
     await db.run(
       'CREATE TEMP TABLE nr_unit_moves AS SELECT p.u AS pu, c.u AS cu, p.g AS pg, c.g AS cg, p.r AS pr, c.r AS cr ' +
-        `FROM read_parquet(${literal(previousFile)}) AS p FULL OUTER JOIN (${unitsQuery(source, unit, group)}) AS c ON p.u = c.u ` +
+        `FROM read_parquet(${literal(previousFile)}) AS p FULL OUTER JOIN (${unitsQuery(source, unit, group, true)}) AS c ON p.u = c.u ` +
         'WHERE p.u IS NULL OR c.u IS NULL OR p.g IS DISTINCT FROM c.g',
     );
     try {
@@ -48,7 +50,7 @@ export async function unitMoves(source: Source, unit: string, group: string, pre
           'count(*) FILTER (WHERE pu IS NULL) AS joined FROM nr_unit_moves',
       );
       const moved = await pick('pu IS NOT NULL AND cu IS NOT NULL', 'cu', 'cg', 'cr', 'cr');
-      const left = await pick('cu IS NULL', 'pu', 'pg', 'pr', 'pr');
+      const left = await pick('cu IS NULL', 'pu', 'pg', 'pr', 'pu');
       const joined = await pick('pu IS NULL', 'cu', 'cg', 'cr', 'cr');
       const ids = (rows: Row[]) => rows.map((x) => String(x.u));
       const groups = (rows: Row[]) => [...new Set(rows.flatMap((x) => (x.g === null ? [] : [String(x.g)])))];
