@@ -52,7 +52,8 @@ function changeNotes(c: ChangesSummary): string[] {
   const r = (x: number | null) => (x === null ? 'n/a' : String(Math.round(x * 1000) / 1000));
   const notes = [
     `compared with the previous delivery ${c.previous.path} (${how}): ${c.groups.both} groups in both, ${c.groups.appeared} appeared, ` +
-      `${c.groups.vanished} vanished; audit findings ${c.findings.new} new, ${c.findings.resolved} resolved, ${c.findings.persisting} persisting`,
+      `${c.groups.vanished} vanished; audit findings ${c.findings.new} new, ${c.findings.resolved} resolved, ` +
+      `${c.findings.persisting} persisting`,
   ];
   for (const [name, o] of Object.entries(c.outcomes)) {
     const icc = (s: IccSide) => `${r(s.icc)} [${r(s.ci95[0])}, ${r(s.ci95[1])}]`;

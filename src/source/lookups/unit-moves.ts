@@ -11,7 +11,8 @@ const EXAMPLES = 20;
  */
 function unitsQuery(source: Source, unit: string, group: string, numbered: boolean): string {
   const rec = numbered ? '__rec' : 'NULL';
-  return `SELECT ${ident(unit)} AS u, ${ident(group)} AS g, ${rec} AS r FROM ${numbered ? source.numbered : source.view} WHERE ${ident(unit)} IS NOT NULL`;
+  const from = numbered ? source.numbered : source.view;
+  return `SELECT ${ident(unit)} AS u, ${ident(group)} AS g, ${rec} AS r FROM ${from} WHERE ${ident(unit)} IS NOT NULL`;
 }
 
 /**
