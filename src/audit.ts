@@ -1,7 +1,11 @@
+import { changeCatalogue } from '../changes/index.js';
 import { catalogue as builtIn } from '../rules/index.js';
 import { buildPlotData } from './analysis/plot-data.js';
 import { plotThresholds } from './analysis/plot-thresholds.js';
 import { rulesRun } from './analysis/rules-run.js';
+import { measure } from './compare/measure.js';
+import { withChanges } from './compare/run-changes.js';
+import type { AnyChangeRule, Baseline } from './compare/types.js';
 import { InputError, readError } from './errors.js';
 import { grade } from './grade.js';
 import { buildProfile, loadArquero } from './profile/build.js';
@@ -52,6 +56,14 @@ export interface AuditOptions {
    * or terminal report does not (they cost a REML fit per level-1 column)
    */
   plotData?: boolean;
+  /** add the snapshot a later delivery is compared with (one extra pass; README: Snapshot) */
+  snapshot?: boolean;
+  /** compare with this previous delivery: the report gains `changes` and change findings (implies `snapshot`) */
+  baseline?: Baseline;
+  /** keep the unit IDs with their groups in this Parquet file, for `compare` (DuckDB only) */
+  keepUnits?: string;
+  /** the change checks (default changes/) */
+  changeCatalogue?: readonly AnyChangeRule[];
 }
 
 /** A delivery: a file path (`-` for standard input), or a table or query in PostgreSQL. */
@@ -107,7 +119,10 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
     if (ran.status === 'rejected') throw ran.reason;
     if (plotted.status === 'rejected') throw plotted.reason;
     const [findings, plots] = [ran.value, plotted.value];
-    return {
+    const includeValues = options.includeValues ?? true;
+    const measured =
+      options.snapshot || options.baseline ? await measure(source, profile, roles, { ...options, includeValues }) : undefined;
+    const report: Report = {
       schema: REPORT_SCHEMA,
       tool: TOOL,
       input: {
@@ -125,7 +140,10 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
       ...grade(findings),
       ...(plots && { plots }),
       rulesRun: rulesRun(catalogue, roles),
+      ...(measured && { snapshot: measured.snapshot }),
     };
+    if (!measured || !options.baseline) return report;
+    return withChanges(report, measured, options.baseline, roles, options.changeCatalogue ?? changeCatalogue, { includeValues });
   } catch (e) {
     throw readError(e, path);
   } finally {

@@ -1,11 +1,12 @@
 import { rmSync } from 'node:fs';
 import { Command, InvalidArgumentError, Option } from 'commander';
+import { changeCatalogue } from '../changes/index.js';
 import { catalogue } from '../rules/index.js';
 import type { BatchFlags } from './batch/wants.js';
 import { wantsBatch } from './batch/wants.js';
 import { endingFor } from './cli-exit.js';
 import { memorySize, sheetNote } from './cli-options.js';
-import { planOutputs, protectInputs, writeDraftFile, writeOutput } from './cli-output.js';
+import { planOutputs, protectInputs, refuseInputOverwrite, writeDraftFile, writeOutput } from './cli-output.js';
 import { startProgress } from './cli-progress.js';
 import { InputError } from './errors.js';
 import type { FailOn } from './grade.js';
@@ -51,7 +52,10 @@ interface AuditFlags extends BatchFlags {
   table?: string;
   query?: string;
   strict?: boolean;
+  baseline?: string;
 }
+
+type CompareFlags = Pick<AuditFlags, 'roles' | 'preset' | 'format' | 'out' | 'quiet' | 'failOn' | 'values' | 'color' | 'memoryLimit'>;
 
 interface DraftFlags {
   group?: string;
@@ -154,6 +158,7 @@ export function buildProgram(): Command {
     .option('--sender-from <regex>', "batch: the sender's name from the file name: the group named sender, else the first group")
     .option('--at-once <n>', 'batch: audit at most this many deliveries at once (default: the cores)', count)
     .option('--recurse', "batch: a folder's subfolders too")
+    .option('--baseline <report>', "compare with the previous delivery's JSON report: change findings join the audit's (README: Compare)")
     .action(async (deliveryArgs: string[], flags: AuditFlags) => {
       if (wantsBatch(deliveryArgs, flags)) {
         const { auditBatch } = await import('./batch/command.js');
@@ -161,7 +166,7 @@ export function buildProgram(): Command {
       }
       const deliveryArg = deliveryArgs[0];
       protectInputs(flags, deliveryArg);
-      const roles = loadRoles(flags.roles, catalogue, { preset: flags.preset });
+      const roles = loadRoles(flags.roles, [...catalogue, ...changeCatalogue], { preset: flags.preset });
       const resolved = await deliveryInput(deliveryArg, flags);
       const delivery = isFileInput(resolved.input) ? resolved.input : resolved.label;
       const note = isFileInput(resolved.input) ? sheetNote(resolved.input, resolved.label, flags.sheet, flags.inputFormat) : null;
@@ -172,7 +177,9 @@ export function buildProgram(): Command {
         const { audit } = await import('./audit.js');
         const targets = planOutputs(flags.out, flags.format);
         const withPlotData = flags.withPlotData === true;
+        const { baselineFor } = await import('./compare/cli-compare.js');
         const report = await audit(resolved.input, roles, {
+          ...baselineFor(flags.baseline, roles.roles, targets),
           plotData: targets.some((t) => needsPlotData(t.format, { withPlotData })),
           includeValues: flags.values,
           memoryLimit: flags.memoryLimit,
@@ -211,6 +218,51 @@ export function buildProgram(): Command {
       } finally {
         resolved.done();
       }
+    });
+
+  program
+    .command('compare')
+    .description('compare a delivery with the previous one (the delivery or its JSON report): what changed, as findings')
+    .argument('<previous>', 'the previous delivery, or the JSON report of it (written with --format json)')
+    .argument('<current>', 'the current delivery')
+    .requiredOption('-r, --roles <file>', 'the YAML role map (its rules: section sets the change checks too)')
+    .addOption(new Option('--preset <name>', "rule settings merged under the role map's own").choices(Object.keys(PRESETS)))
+    .addOption(
+      new Option('-f, --format <format>', 'report format on stdout, or for --out files without a known extension')
+        .choices(REPORT_FORMATS)
+        .default('text'),
+    )
+    .option('-o, --out <file>', 'write the report to this file instead of stdout; repeat it for several files', collect, [])
+    .option('-q, --quiet', 'no progress line and no "wrote" line per file')
+    .addOption(
+      new Option('--fail-on <severity>', 'exit 1 when a change finding is at least this severe')
+        .choices(Object.keys(FAIL_ON))
+        .default('blocker'),
+    )
+    .option('--no-values', 'leave raw data values out of every output')
+    .option('--color', 'force colour')
+    .option('--no-color', 'no colour')
+    .option('--memory-limit <size>', 'DuckDB memory before it spills to disk', memorySize, '100MB')
+    .action(async (previous: string, current: string, flags: CompareFlags) => {
+      const all = { ...flags, withPlotData: false } as AuditFlags;
+      refuseInputOverwrite(
+        flags.out.map((path) => ({ path, option: '--out' })),
+        [flags.roles, previous, current].map((path) => ({ path, what: 'an input' })),
+      );
+      const roles = loadRoles(flags.roles, [...catalogue, ...changeCatalogue], { preset: flags.preset });
+      const stop = startProgress(current, 'comparing', { quiet: flags.quiet === true });
+      const { compare } = await import('./compare/compare.js');
+      const targets = planOutputs(flags.out, flags.format);
+      const report = await compare(previous, current, roles, {
+        plotData: targets.some((t) => needsPlotData(t.format, { withPlotData: false })),
+        includeValues: flags.values,
+        memoryLimit: flags.memoryLimit,
+      }).finally(stop);
+      for (const target of targets) {
+        const options = { color: colorLevel(all, target.path !== null), failOn: flags.failOn, withPlotData: false };
+        await writeOutput(target, () => renderReport(report, target.format, options), { quiet: flags.quiet === true });
+      }
+      process.exitCode = exitCode(report.findings, flags.failOn);
     });
 
   program

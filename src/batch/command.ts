@@ -1,4 +1,5 @@
 import { availableParallelism } from 'node:os';
+import { changeCatalogue } from '../../changes/index.js';
 import { catalogue } from '../../rules/index.js';
 import { planOutputs, refuseInputOverwrite, writeFileAtomic } from '../cli-output.js';
 import { InputError } from '../errors.js';
@@ -28,6 +29,9 @@ export async function auditBatch(args: readonly string[], flags: BatchFlags, col
   if (flags.problems !== undefined) {
     throw new InputError("--problems names one file: in a batch each delivery's problem rows go into its folder under --reports-dir");
   }
+  if (flags.baseline !== undefined) {
+    throw new InputError('--baseline names one previous report: compare each delivery with its own (nestready compare)');
+  }
   if (flags.atOnce !== undefined && flags.atOnce < 1) throw new InputError('--at-once must be at least 1');
   const targets = planOutputs(flags.out, flags.format).map((t) => {
     if (isBatchFormat(t.format)) return { path: t.path, format: t.format };
@@ -35,7 +39,8 @@ export async function auditBatch(args: readonly string[], flags: BatchFlags, col
       `${t.path ?? '--format'}: the batch summary has no ${formatName(t.format)} form; write text, JSON, Markdown or HTML`,
     );
   });
-  const roles = loadRoles(flags.roles, catalogue, { preset: flags.preset });
+  // the role map may set change checks too (a map shared with compare): known ids, not errors
+  const roles = loadRoles(flags.roles, [...catalogue, ...changeCatalogue], { preset: flags.preset });
   const pattern = flags.senderFrom === undefined ? undefined : senderPattern(flags.senderFrom);
   const exclude = [...flags.out, ...(flags.reportsDir === undefined ? [] : [flags.reportsDir])];
   const found = discover(args, { recurse: flags.recurse === true, exclude });

@@ -12,6 +12,8 @@ export interface BatchFlags {
   out: string[];
   withPlotData?: boolean;
   problems?: string;
+  /** refused in a batch: a baseline is one previous report */
+  baseline?: string;
   maxRows: number;
   quiet?: boolean;
   failOn: FailOn;

@@ -1,4 +1,7 @@
-import type { AnyRule } from '../rules/define.js';
+import type { RuleMeta } from '../rules/types.js';
+
+/** What the catalogue's docs read of a rule or change check. */
+type AnyRule = { meta: RuleMeta };
 
 interface ParamDoc {
   name: string;

@@ -1,3 +1,4 @@
+import { changesSchema, snapshotSchema } from './snapshot-schema.js';
 import { REPORT_SCHEMA } from './types.js';
 
 // a statistic the data leave undefined (NaN, ±Infinity) is written as null
@@ -188,12 +189,15 @@ export const reportSchema = {
             description: 'the first 20 record numbers, 1-based',
           },
           values: { ...texts, maxItems: 20, description: 'raw values seen; absent with --no-values' },
+          change: { const: true, description: 'a change since the previous delivery (compare, audit --baseline)' },
         },
       },
     },
     score: { type: 'integer', minimum: 0, maximum: 100 },
     grade: { enum: ['A', 'B', 'C', 'D', 'F'] },
     verdict: { enum: ['ready', 'caveats', 'not-ready'] },
+    snapshot: snapshotSchema,
+    changes: changesSchema,
     plots: { type: 'object', description: 'with --with-plot-data only; not a stable field' },
     rulesRun: { type: 'array', description: 'with --with-plot-data only; not a stable field' },
   },

@@ -4,6 +4,7 @@ import type { Roles } from '../roles/types.js';
 import type { Finding } from '../rules/types.js';
 import type { ValueReading } from '../source/types.js';
 import type { OutcomeStats } from '../stats/types.js';
+import type { ChangesSummary, Snapshot } from './snapshot.js';
 
 export const REPORT_SCHEMA = 'nestready/report@1';
 
@@ -35,6 +36,10 @@ export interface Report {
    * `--format json` like `plots`.
    */
   rulesRun?: RuleRun[];
+  /** compact per-group summary for comparing the next delivery with this one (README: Snapshot) */
+  snapshot?: Snapshot;
+  /** the comparison with the previous delivery (`compare`, `audit --baseline`) */
+  changes?: ChangesSummary;
 }
 
 export type { GroupMean, GroupMeans, PlotData, RuleRun } from '../analysis/types.js';

@@ -5,7 +5,11 @@ import { isNode, LineCounter, parseDocument } from 'yaml';
 import { InputError, quoteName } from '../errors.js';
 import type { PresetName } from '../presets/index.js';
 import { mergeRuleSettings, PRESETS } from '../presets/index.js';
-import type { AnyRule } from '../rules/define.js';
+import type { RuleMeta } from '../rules/types.js';
+
+/** What the loader reads of a rule or change check: its id and params schema. */
+type Checked = { meta: RuleMeta };
+
 import { createAjv, describeAjvError, pointerToPath } from '../util/ajv.js';
 import { closestName } from './did-you-mean.js';
 import { modelPlan } from './model-plan.js';
@@ -30,7 +34,7 @@ export interface RoleOptions {
 }
 
 /** Read, validate and normalise a role map file. Errors are one line naming file:line:col. */
-export function loadRoles(file: string, catalogue: readonly AnyRule[], options: RoleOptions = {}): LoadedRoles {
+export function loadRoles(file: string, catalogue: readonly Checked[], options: RoleOptions = {}): LoadedRoles {
   let text: string;
   try {
     text = readFileSync(file, 'utf8');
@@ -41,7 +45,7 @@ export function loadRoles(file: string, catalogue: readonly AnyRule[], options: 
 }
 
 /** Validate and normalise role-map text; `file` is only used in messages. */
-export function parseRoles(text: string, file: string, catalogue: readonly AnyRule[], options: RoleOptions = {}): LoadedRoles {
+export function parseRoles(text: string, file: string, catalogue: readonly Checked[], options: RoleOptions = {}): LoadedRoles {
   const lineCounter = new LineCounter();
   const doc = parseDocument(text, { lineCounter, prettyErrors: false, uniqueKeys: true });
   const at = (offset: number) => {
@@ -129,7 +133,7 @@ function toList(v: unknown): string[] {
 /** Each rule setting is checked against that rule's own params schema (defaults filled in). */
 function validateRuleSettings(
   settings: Record<string, RuleSetting>,
-  catalogue: readonly AnyRule[],
+  catalogue: readonly Checked[],
   locate: LoadedRoles['locate'],
 ): Record<string, RuleSetting> {
   const out: Record<string, RuleSetting> = {};

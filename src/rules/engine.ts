@@ -2,7 +2,7 @@ import type { Roles, Severity } from '../roles/types.js';
 import { SEVERITY_ORDER } from '../severity.js';
 import { createAjv } from '../util/ajv.js';
 import type { AnyRule } from './define.js';
-import type { Finding, FindingDraft, RuleContext } from './types.js';
+import type { Finding, FindingDraft, RuleContext, RuleMeta } from './types.js';
 
 export interface EngineOptions {
   /** leave raw data values out of findings (IDs and record numbers stay: they are the fix) */
@@ -10,7 +10,7 @@ export interface EngineOptions {
 }
 
 /** The params a rule runs with: its schema defaults, overlaid with the role map's settings. */
-export function resolveParams(rule: AnyRule, roles: Roles): Record<string, unknown> | 'off' {
+export function resolveParams(rule: { meta: RuleMeta }, roles: Roles): Record<string, unknown> | 'off' {
   const setting = roles.rules[rule.meta.id];
   if (setting === 'off') return 'off';
   const { severity: _severity, ...given } = setting ?? {};
@@ -27,7 +27,7 @@ export function resolveParams(rule: AnyRule, roles: Roles): Record<string, unkno
 }
 
 /** The `default` of each top-level property of a rule's params schema (the catalogue test requires one for each). */
-function schemaDefaults(rule: AnyRule): Record<string, unknown> {
+function schemaDefaults(rule: { meta: RuleMeta }): Record<string, unknown> {
   const properties = (rule.meta.params as { properties?: Record<string, { default?: unknown }> }).properties ?? {};
   return Object.fromEntries(
     Object.entries(properties)
@@ -37,9 +37,9 @@ function schemaDefaults(rule: AnyRule): Record<string, unknown> {
 }
 
 // one Ajv and one compiled validator per rule, not one per call: compiling is the expensive part
-const validators = new WeakMap<AnyRule, ReturnType<ReturnType<typeof createAjv>['compile']>>();
+const validators = new WeakMap<{ meta: RuleMeta }, ReturnType<ReturnType<typeof createAjv>['compile']>>();
 let sharedAjv: ReturnType<typeof createAjv> | null = null;
-function validatorOf(rule: AnyRule) {
+function validatorOf(rule: { meta: RuleMeta }) {
   let validate = validators.get(rule);
   if (!validate) {
     sharedAjv ??= createAjv();
@@ -74,7 +74,8 @@ export async function runRules(
   return sortFindings(findings);
 }
 
-function render(rule: AnyRule, d: FindingDraft, forced: Severity | undefined, options: EngineOptions): Finding {
+/** A rule's draft as a finding: severity, filled message and fix, lists cut to 20, values withheld when asked. */
+export function render(rule: { meta: RuleMeta }, d: FindingDraft, forced: Severity | undefined, options: EngineOptions): Finding {
   const template = rule.meta.messages[d.messageId];
   if (!template) {
     const known = Object.keys(rule.meta.messages).join(', ');

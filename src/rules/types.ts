@@ -64,6 +64,8 @@ export interface Finding {
   groups?: string[];
   rows?: number[];
   values?: string[];
+  /** a change since the previous delivery (`compare`, `audit --baseline`), from the change checks in changes/ */
+  change?: true;
 }
 
 export interface RuleContext<P> {
