@@ -1,4 +1,8 @@
 import { describe, expect, it } from 'vitest';
+import { renderJson } from '../src/report/json.js';
+import { renderMarkdown } from '../src/report/markdown.js';
+import { reportSchema } from '../src/report/report-schema.js';
+import { createAjv } from '../src/util/ajv.js';
 import { auditRows, findingsOf, groupedRows, onlyFinding } from '../test/helpers/delivery.js';
 import { expectMessage } from '../test/helpers/messages.js';
 

@@ -141,7 +141,7 @@ function checkSlope(
     return { messageId: 'fewGroups', column, data: { ...base, minGroups: params.min_groups }, ...listed };
   }
   if (!at.linear) return null;
-  const s = slopeMomentEstimate(informs);
+  const s = slopeMomentEstimate(pairs);
   if (!Number.isFinite(s.tau11)) return null;
   const numbers = { ...base, tau11: formatNumber(s.tau11, 4), informing: s.groups };
   if (s.tau11 <= 0) {
