@@ -15,14 +15,11 @@ const roles = (extra: Record<string, unknown> = {}) => ({ group: 'g', outcome: '
 
 describe('slope-support', () => {
   it('slopes that differ no more than their sampling error: advise a fixed slope', async () => {
-    const f = onlyFinding(
-      await auditRows(
-        rows(() => 2, 1),
-        roles(),
-      ),
-      'slope-support',
-      'x',
+    const report = await auditRows(
+      rows(() => 2, 1),
+      roles(),
     );
+    const f = onlyFinding(report, 'slope-support', 'x');
     expect(f.severity).toBe('warning');
     // every slope is 2, so their variance is 0; v_j = (8/6)/42 = 0.031746 (hand computation)
     expectMessage(f, 'noVariance', {
@@ -34,6 +31,11 @@ describe('slope-support', () => {
       sampling: '0.0317',
       tau11: '-0.0317',
     });
+    // the report carries the estimate for the planned slope, valid against its schema, and shows it
+    expect(report.outcomes.y.slopes?.x.tau11).toBeCloseTo(-(8 / 6) / 42, 12);
+    expect(report.outcomes.y.slopes?.x.groups).toBe(20);
+    expect(createAjv().compile(reportSchema)(JSON.parse(renderJson(report)))).toBe(true);
+    expect(renderMarkdown(report)).toContain('y: planned random slopes');
   });
 
   it('slopes that vary clearly give no finding; a low reliability does (min_reliability from the role map)', async () => {
