@@ -6,7 +6,10 @@ import groupCodeReused from './group-code-reused.js';
 import groupInSeveralParents from './group-in-several-parents.js';
 import groupsPerLevel2Predictor from './groups-per-level2-predictor.js';
 import idVariants from './id-variants.js';
+import interceptVarianceAtZero from './intercept-variance-at-zero.js';
 import level1ConstantWithin from './level1-constant-within.js';
+import level1VarianceHeterogeneity from './level1-variance-heterogeneity.js';
+import level2Collinearity from './level2-collinearity.js';
 import level2PartlyMissing from './level2-partly-missing.js';
 import level2Varies from './level2-varies.js';
 import lowGroupMeanReliability from './low-group-mean-reliability.js';
@@ -19,12 +22,14 @@ import outcomeConstantWithin from './outcome-constant-within.js';
 import predictorBetweenShare from './predictor-between-share.js';
 import sentinelValues from './sentinel-values.js';
 import singletonGroups from './singleton-groups.js';
+import slopeSupport from './slope-support.js';
 import smallGroups from './small-groups.js';
 import unbalancedGroups from './unbalanced-groups.js';
 import undeclaredLevel2 from './undeclared-level2.js';
 import unitInSeveralGroups from './unit-in-several-groups.js';
 import unreadableLines from './unreadable-lines.js';
 import variableWithoutStatistics from './variable-without-statistics.js';
+import withinBetweenGap from './within-between-gap.js';
 
 /** The built-in catalogue, alphabetical by id (a test checks it against the files in rules/). */
 export const catalogue: readonly AnyRule[] = [
@@ -35,7 +40,10 @@ export const catalogue: readonly AnyRule[] = [
   groupInSeveralParents,
   groupsPerLevel2Predictor,
   idVariants,
+  interceptVarianceAtZero,
   level1ConstantWithin,
+  level1VarianceHeterogeneity,
+  level2Collinearity,
   level2PartlyMissing,
   level2Varies,
   lowGroupMeanReliability,
@@ -48,10 +56,12 @@ export const catalogue: readonly AnyRule[] = [
   predictorBetweenShare,
   sentinelValues,
   singletonGroups,
+  slopeSupport,
   smallGroups,
   unbalancedGroups,
   undeclaredLevel2,
   unitInSeveralGroups,
   unreadableLines,
   variableWithoutStatistics,
+  withinBetweenGap,
 ];

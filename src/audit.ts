@@ -3,6 +3,7 @@ import { catalogue as builtIn } from '../rules/index.js';
 import { buildPlotData } from './analysis/plot-data.js';
 import { plotThresholds } from './analysis/plot-thresholds.js';
 import { rulesRun } from './analysis/rules-run.js';
+import { slopeStatistics } from './analysis/slopes.js';
 import { measure } from './compare/measure.js';
 import { withChanges } from './compare/run-changes.js';
 import type { AnyChangeRule, Baseline } from './compare/types.js';
@@ -171,6 +172,8 @@ function outcomeStatistics(profile: Profile, roles: Roles): Record<string, Outco
     // a 0/1 outcome also gets the logistic null model (the binary-outcome rule reads it)
     const zeroOne = col.type === 'binary' && (col.numMin ?? 0) >= 0 && (col.numMax ?? 1) <= 1 && momentsAreZeroOne(moments);
     if (zeroOne) out[name].logistic = logisticNullModel(binaryGroupsFromMoments(moments));
+    const slopes = roles.slopes?.length && col.type !== 'binary' ? slopeStatistics(profile, name, roles.slopes) : undefined;
+    if (slopes) out[name].slopes = slopes;
   }
   return out;
 }

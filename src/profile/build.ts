@@ -8,6 +8,7 @@ import type { Storage } from '../source/sql.js';
 import type { GroupMoments } from '../stats/types.js';
 import { columnProfile } from './columns.js';
 import { groupSizes, groupStat } from './group-stats.js';
+import { plannedPairs } from './pairs.js';
 import { roleOf } from './role-of.js';
 import type { ColumnProfile, Profile } from './types.js';
 
@@ -32,6 +33,7 @@ export function planColumns(
   storage: Map<string, Storage>,
   hints: { probe?: ReadonlySet<string>; textOnly?: ReadonlySet<string> } = {},
 ): ProfileColumnPlan[] {
+  const pairs = plannedPairs(roles);
   return header
     .filter((name) => name !== roles.group)
     .map((name) => {
@@ -42,7 +44,8 @@ export function planColumns(
         s === 'double' ||
         hints.probe?.has(name) === true ||
         (isVariable && roles.types[name] !== 'categorical' && !hints.textOnly?.has(name));
-      return { name, storage: s, numberStats, ...(name === roles.unit && { textRange: false }) };
+      const pairsWith = pairs.get(name);
+      return { name, storage: s, numberStats, ...(name === roles.unit && { textRange: false }), ...(pairsWith && { pairsWith }) };
     });
 }
 

@@ -3,6 +3,7 @@ import { bySeverity, listed, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, VERDICT_HEADLINE, verdictSentence } from './labels.js';
 import { mdText as m, mdHeading, mdLine } from './md-escape.js';
 import { readingLines } from './reading.js';
+import { slopesTable } from './slopes-table.js';
 import type { StatTable } from './stat-tables.js';
 import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from './stat-tables.js';
 import type { Report } from './types.js';
@@ -65,11 +66,17 @@ export function renderMarkdown(report: Report): string {
     out.push(`### Outcome ${mdHeading(name)}`, '', ...table(componentsTable(name, o)), ...table(anovaTable(name, o)));
     const ext = extremesTable(report, name);
     if (ext) out.push(...table(ext));
+    out.push(...optionalTable(slopesTable(name, o)));
   }
   const predictors = predictorsTable(report);
   if (predictors) out.push('### Level-1 predictors', '', ...table(predictors));
   out.push('---', '', `_${m(THRESHOLD_CAVEAT)}_`, '', `${mdLine(report.tool.name)} ${m(report.tool.version)} (${m(report.schema)})`);
   return `${out.join('\n')}\n`;
+}
+
+/** A table that may be absent (null: nothing). */
+function optionalTable(t: StatTable | null): string[] {
+  return t ? table(t) : [];
 }
 
 function table(t: StatTable): string[] {

@@ -1,4 +1,5 @@
 import type { LogisticNullModel } from './logistic-null-model.js';
+import type { SlopeMomentEstimate } from './slope-moment-estimate.js';
 
 /** Sufficient statistics of one group for one numeric variable. */
 export interface GroupMoments {
@@ -46,4 +47,6 @@ export interface OutcomeStats {
   meanReliability: number;
   /** 0/1 outcomes only: the random-intercept logistic null model (ML, adaptive Gauss–Hermite) */
   logistic?: LogisticNullModel;
+  /** per planned random slope (role map `slopes`, outcomes not binary): the moment estimate of its variance */
+  slopes?: Record<string, SlopeMomentEstimate>;
 }

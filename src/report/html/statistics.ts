@@ -1,4 +1,5 @@
 import { escapeHtml as e } from '../escape-html.js';
+import { slopesTable } from '../slopes-table.js';
 import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from '../stat-tables.js';
 import type { Report } from '../types.js';
 import { statTableHtml } from './stat-table.js';
@@ -52,6 +53,8 @@ export function statisticsHtml(report: Report, svgs: ChartSvgs): string {
     );
     const ext = extremesTable(report, name);
     if (ext) out.push(statTableHtml(ext));
+    const slopes = slopesTable(name, o);
+    if (slopes) out.push(statTableHtml(slopes));
   }
   if (svgs.icc) {
     out.push(

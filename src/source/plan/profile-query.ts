@@ -2,6 +2,7 @@ import type { Dialect } from '../dialect.js';
 import { duckdb } from '../dialect.js';
 import type { Storage } from '../sql.js';
 import { finiteDouble, ident } from '../sql.js';
+import { pairAggregates } from './pair-aggregates.js';
 
 export interface ProfileColumnPlan {
   name: string;
@@ -13,6 +14,8 @@ export interface ProfileColumnPlan {
    * ID, whose constancy within a group no rule asks about (two string aggregates over every record)
    */
   textRange?: boolean;
+  /** for an outcome: the level-1 variables whose per-group co-moments with it are asked for (src/profile/pairs.ts) */
+  pairsWith?: readonly string[];
 }
 
 /** Aggregate key for column `c` and statistic `stat`, e.g. `visits:mean`. */
@@ -50,6 +53,12 @@ export function profileQuery(view: string, group: string, plan: readonly Profile
       // var_pop is computed stably by the engine; times n it is the within-group sum of squares
       `var_pop(${x}) * count(${x}) AS ${as('ss')}`,
     );
+  });
+  plan.forEach((col, i) => {
+    for (const other of col.numberStats ? (col.pairsWith ?? []) : []) {
+      const k = plan.findIndex((p) => p.name === other && p.numberStats);
+      if (k >= 0) aggs.push(...pairAggregates(`x${i}`, `x${k}`, col.name, other, d));
+    }
   });
   // ordered by the engine (byte order, the missing-ID group first), so the profile need not sort
   return (
