@@ -15,7 +15,7 @@ import { DEFAULT_MAX_ROWS } from './problems/types.js';
 import { catalogueJson, catalogueMarkdown, catalogueText } from './report/catalogue.js';
 import type { ReportFormat } from './report/render.js';
 import { needsPlotData, REPORT_FORMAT_TABLE, REPORT_FORMATS, renderReport } from './report/render.js';
-import { loadRoles } from './roles/load.js';
+import { loadRoles } from './roles/load-file.js';
 import { roleMapSchema } from './roles/schema.js';
 import { databaseInput, isFileInput } from './source/engines/kinds.js';
 import { deliveryHelp } from './source/formats/registry.js';
