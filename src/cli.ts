@@ -235,6 +235,19 @@ export function buildProgram(): Command {
     });
 
   program
+    .command('page')
+    .description("write the sender's page: a static folder that runs this audit in a browser, the records never leaving it")
+    .requiredOption('-r, --roles <file>', 'the YAML role map baked into the page')
+    .addOption(new Option('--preset <name>', "rule settings merged under the role map's own").choices(Object.keys(PRESETS)))
+    .requiredOption('-o, --out <folder>', 'the folder to write (new or empty)')
+    .option('-q, --quiet', 'no "wrote" line')
+    .action(async (flags: { roles: string; preset?: PresetName; out: string; quiet?: boolean }) => {
+      const { writePage } = await import('./page-command.js');
+      const files = writePage(flags);
+      if (!flags.quiet) process.stderr.write(`wrote the page to ${flags.out} (${files.length} files; open index.html from a web server)\n`);
+    });
+
+  program
     .command('rules')
     .description('list the rule catalogue: id, what it catches, default severity, params')
     .addOption(new Option('-f, --format <format>', 'output format').choices(Object.keys(CATALOGUE_FORMATS)).default('text'))

@@ -64,12 +64,13 @@ export async function gunzip(bytes: Uint8Array, limit = Number.POSITIVE_INFINITY
 export async function prepare(picked: PickedFile): Promise<PreparedFile> {
   let { bytes } = picked;
   let gzip = isGzip(bytes);
-  const first = gzip ? await gunzip(bytes, SAMPLE_BYTES) : { text: bytes.subarray(0, SAMPLE_BYTES), whole: bytes.length <= SAMPLE_BYTES };
+  // a copy: registering the file hands its buffer to DuckDB's worker
+  const first = gzip ? await gunzip(bytes, SAMPLE_BYTES) : { text: bytes.slice(0, SAMPLE_BYTES), whole: bytes.length <= SAMPLE_BYTES };
   if (!endsMixed(first.text)) return { bytes, gzip, head: first.text, whole: first.whole };
   if (gzip) bytes = (await gunzip(bytes)).text;
   gzip = false;
   bytes = crlfToLf(bytes);
-  return { bytes, gzip, head: bytes.subarray(0, SAMPLE_BYTES), whole: bytes.length <= SAMPLE_BYTES };
+  return { bytes, gzip, head: bytes.slice(0, SAMPLE_BYTES), whole: bytes.length <= SAMPLE_BYTES };
 }
 
 function crlfToLf(b: Uint8Array): Uint8Array {
