@@ -47,7 +47,7 @@ export async function bundlePage(options = {}) {
     platform: 'browser',
     target: ['chrome110', 'firefox110', 'safari16'],
     minify: true,
-    legalComments: 'linked',
+    legalComments: options.outfile ? 'linked' : 'none',
     plugins: [browserOnly],
     logLevel: 'silent',
   });

@@ -41,7 +41,7 @@ export function writePage(options: { roles: string; preset?: PresetName; out: st
         roles: { file: options.roles.split(/[\\/]/).pop() ?? options.roles, text },
         ...(options.preset && { preset: options.preset }),
       });
-      const html = readFileSync(join(from, name), 'utf8').split('__NR_SETTINGS__');
+      const html = readFileSync(join(from, name), 'utf8').split('"__NR_SETTINGS__"');
       if (html.length !== 2 || !html[0].includes(`id="${SETTINGS_ID}"`)) throw new Error('dist/page/index.html: no settings slot');
       writeFileSync(target, html.join(settings));
     } else copyFileSync(join(from, name), target);

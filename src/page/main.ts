@@ -33,7 +33,7 @@ function say(text: string, kind: 'progress' | 'error' | 'done' = 'progress'): vo
 
 function download(id: string, name: string, type: string, text: string): void {
   const link = $<HTMLAnchorElement>(id);
-  if (link.href) URL.revokeObjectURL(link.href);
+  if (link.href.startsWith('blob:')) URL.revokeObjectURL(link.href);
   link.href = URL.createObjectURL(new Blob([text], { type }));
   link.download = name;
   link.hidden = false;
