@@ -7,6 +7,7 @@ import { renderJson } from '../report/json.js';
 import type { LoadedRoles } from '../roles/load.js';
 import { parseRoles } from '../roles/load.js';
 import type { WasmDatabase } from '../source/engines/wasm/types.js';
+import type { Phase } from './audit-file.js';
 import { auditPicked } from './audit-file.js';
 import { startDatabase } from './engine.js';
 import type { PageSettings } from './settings.js';
@@ -20,6 +21,12 @@ const settings = JSON.parse($(SETTINGS_ID).textContent ?? '{}') as PageSettings;
 let roles: LoadedRoles = parseRoles(settings.roles.text, settings.roles.file, catalogue, preset());
 let database: Promise<WasmDatabase> | undefined;
 let busy = false;
+
+const PHASE_WORDS: Record<Phase, string> = {
+  reading: 'Reading the file',
+  checking: 'Checking the records',
+  'problem rows': 'Listing the problem rows',
+};
 
 function preset(): { preset?: PresetName } {
   return settings.preset ? { preset: settings.preset as PresetName } : {};
@@ -56,9 +63,7 @@ async function check(file: File): Promise<void> {
     const db = await database;
     const bytes = new Uint8Array(await file.arrayBuffer());
     const { report, rows } = await auditPicked(db, { name: file.name, bytes }, roles, settings, (phase) =>
-      say(
-        `${phase === 'reading' ? 'Reading the file' : phase === 'checking' ? 'Checking the records' : 'Listing the problem rows'}… ${seconds()}`,
-      ),
+      say(`${PHASE_WORDS[phase]}… ${seconds()}`),
     );
     $<HTMLIFrameElement>('nr-report').srcdoc = await renderHtml(report);
     $('nr-verdict').textContent = `${report.verdict} · grade ${report.grade} · ${report.input.rows} records read`;
@@ -82,7 +87,8 @@ function useRoleMap(text: string, name: string): void {
   const out = $('nr-roles-status');
   try {
     roles = parseRoles(text, name, catalogue, preset());
-    out.textContent = `Using ${name}: group ${roles.roles.group}${roles.roles.outcomes.length ? `, outcomes ${roles.roles.outcomes.join(', ')}` : ''}.`;
+    const { group, outcomes } = roles.roles;
+    out.textContent = `Using ${name}: group ${group}${outcomes.length ? `, outcomes ${outcomes.join(', ')}` : ''}.`;
     out.dataset.kind = 'done';
   } catch (e) {
     out.textContent = e instanceof InputError ? e.message : String(e);
