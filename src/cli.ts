@@ -18,7 +18,7 @@ import { DEFAULT_MAX_ROWS } from './problems/types.js';
 import { catalogueJson, catalogueMarkdown, catalogueText } from './report/catalogue.js';
 import type { ReportFormat } from './report/render.js';
 import { needsPlotData, REPORT_FORMAT_TABLE, REPORT_FORMATS, renderReport } from './report/render.js';
-import { loadRoles } from './roles/load.js';
+import { loadRoles } from './roles/load-file.js';
 import { roleMapSchema } from './roles/schema.js';
 import { databaseInput, isFileInput } from './source/engines/kinds.js';
 import { deliveryHelp } from './source/formats/registry.js';
@@ -295,6 +295,19 @@ export function buildProgram(): Command {
       } finally {
         resolved.done();
       }
+    });
+
+  program
+    .command('page')
+    .description("write the sender's page: a static folder that runs this audit in a browser, the records never leaving it")
+    .requiredOption('-r, --roles <file>', 'the YAML role map baked into the page')
+    .addOption(new Option('--preset <name>', "rule settings merged under the role map's own").choices(Object.keys(PRESETS)))
+    .requiredOption('-o, --out <folder>', 'the folder to write (new or empty)')
+    .option('-q, --quiet', 'no "wrote" line')
+    .action(async (flags: { roles: string; preset?: PresetName; out: string; quiet?: boolean }) => {
+      const { writePage } = await import('./page-command.js');
+      const files = writePage(flags);
+      if (!flags.quiet) process.stderr.write(`wrote the page to ${flags.out} (${files.length} files; open index.html from a web server)\n`);
     });
 
   program

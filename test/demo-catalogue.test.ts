@@ -3,7 +3,8 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { catalogue } from '../rules/index.js';
 import { audit } from '../src/audit.js';
 import type { Report } from '../src/report/types.js';
-import { loadRoles, parseRoles } from '../src/roles/load.js';
+import { parseRoles } from '../src/roles/load.js';
+import { loadRoles } from '../src/roles/load-file.js';
 import { findingsOf, onlyFinding } from './helpers/delivery.js';
 import { expectMessage } from './helpers/messages.js';
 

@@ -4,7 +4,7 @@ import { catalogue } from '../../rules/index.js';
 import { planOutputs, refuseInputOverwrite, writeFileAtomic } from '../cli-output.js';
 import { InputError } from '../errors.js';
 import { formatName } from '../report/render.js';
-import { loadRoles } from '../roles/load.js';
+import { loadRoles } from '../roles/load-file.js';
 import { discover } from './discover.js';
 import { standing } from './labels.js';
 import { summaryAt } from './links.js';

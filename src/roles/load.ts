@@ -1,4 +1,3 @@
-import { readFileSync } from 'node:fs';
 import type { ErrorObject } from 'ajv';
 import type { Document } from 'yaml';
 import { isNode, LineCounter, parseDocument } from 'yaml';
@@ -31,17 +30,6 @@ export interface LoadedRoles {
 export interface RoleOptions {
   /** a named preset (src/presets) whose rule settings are merged under the role map's own */
   preset?: PresetName;
-}
-
-/** Read, validate and normalise a role map file. Errors are one line naming file:line:col. */
-export function loadRoles(file: string, catalogue: readonly Checked[], options: RoleOptions = {}): LoadedRoles {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8');
-  } catch (e) {
-    throw new InputError(`${file}: cannot read the role map (${(e as NodeJS.ErrnoException).code ?? e})`);
-  }
-  return parseRoles(text, file, catalogue, options);
 }
 
 /** Validate and normalise role-map text; `file` is only used in messages. */

@@ -1,6 +1,6 @@
-import { createRequire } from 'node:module';
 import type { Ajv, ErrorObject } from 'ajv';
 import { quoteName } from '../errors.js';
+import { ajvClass } from './ajv-class.js';
 
 /**
  * The one Ajv factory: all errors, defaults filled in, unknown keywords tolerated in docs. The
@@ -8,9 +8,7 @@ import { quoteName } from '../errors.js';
  * (`checkSchemas`); checking them again on every run would compile the meta-schema each time.
  */
 export function createAjv(options: { checkSchemas?: boolean } = {}): Ajv {
-  // loaded on first use: an audit whose role map sets no rule params never needs it (the role
-  // map itself is checked by precompiled code), and loading it would delay every start
-  const { Ajv: AjvClass } = createRequire(import.meta.url)('ajv') as typeof import('ajv');
+  const AjvClass = ajvClass();
   return new AjvClass({ allErrors: true, useDefaults: true, strict: false, validateSchema: options.checkSchemas ?? false });
 }
 

@@ -8,7 +8,7 @@ import { compare } from '../../src/compare/compare.js';
 import { renderJson } from '../../src/report/json.js';
 import { reportSchema } from '../../src/report/report-schema.js';
 import type { Report } from '../../src/report/types.js';
-import { loadRoles } from '../../src/roles/load.js';
+import { loadRoles } from '../../src/roles/load-file.js';
 import { createAjv } from '../../src/util/ajv.js';
 import { PLANTED, writeHsbDeliveries } from './hsb-deliveries.js';
 

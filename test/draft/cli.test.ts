@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { catalogue } from '../../rules/index.js';
-import { loadRoles } from '../../src/roles/load.js';
+import { loadRoles } from '../../src/roles/load-file.js';
 import { nestready } from '../helpers/cli.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'nr-draft-cli-'));

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { catalogue } from '../../rules/index.js';
 import { draftRoles } from '../../src/draft/draft.js';
-import { loadRoles } from '../../src/roles/load.js';
+import { loadRoles } from '../../src/roles/load-file.js';
 import { toCsv } from '../helpers/delivery.js';
 import { mulberry32 } from '../helpers/prng.js';
 

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { catalogue } from '../../rules/index.js';
 import { audit } from '../../src/audit.js';
 import type { Report } from '../../src/report/types.js';
-import { loadRoles } from '../../src/roles/load.js';
+import { loadRoles } from '../../src/roles/load-file.js';
 import { redactUrl } from '../../src/source/engines/postgres/input.js';
 import { expectSameAudit } from '../source/formats/same.js';
 import { dropTables, loadCsv, TYPED } from './load.js';

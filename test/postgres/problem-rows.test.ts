@@ -6,7 +6,7 @@ import { catalogue } from '../../rules/index.js';
 import { audit } from '../../src/audit.js';
 import { problemRows } from '../../src/problem-rows.js';
 import type { ProblemRows } from '../../src/problems/types.js';
-import { loadRoles } from '../../src/roles/load.js';
+import { loadRoles } from '../../src/roles/load-file.js';
 import { nestready } from '../helpers/cli.js';
 import type { Delivery, Row } from '../helpers/delivery.js';
 import { writeDelivery } from '../helpers/delivery.js';

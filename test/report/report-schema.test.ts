@@ -3,7 +3,8 @@ import { catalogue } from '../../rules/index.js';
 import { audit } from '../../src/audit.js';
 import { renderJson } from '../../src/report/json.js';
 import { reportSchema } from '../../src/report/report-schema.js';
-import { loadRoles, parseRoles } from '../../src/roles/load.js';
+import { parseRoles } from '../../src/roles/load.js';
+import { loadRoles } from '../../src/roles/load-file.js';
 import { createAjv } from '../../src/util/ajv.js';
 import { demoReport } from './fixtures/reports.js';
 

@@ -2,7 +2,8 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { catalogue } from '../../rules/index.js';
 import { InputError } from '../../src/errors.js';
-import { loadRoles, parseRoles } from '../../src/roles/load.js';
+import { parseRoles } from '../../src/roles/load.js';
+import { loadRoles } from '../../src/roles/load-file.js';
 import { DEFAULT_MISSING } from '../../src/roles/schema.js';
 
 const parse = (text: string) => parseRoles(text, 'r.yaml', catalogue);

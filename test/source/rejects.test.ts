@@ -2,7 +2,7 @@ import { execFileSync, spawnSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
 import { catalogue } from '../../rules/index.js';
 import { audit } from '../../src/audit.js';
-import { loadRoles } from '../../src/roles/load.js';
+import { loadRoles } from '../../src/roles/load-file.js';
 import { writeDelivery } from '../helpers/delivery.js';
 
 const ROLES = 'fixtures/demo/repairs-delivery.roles.yaml';

@@ -1,4 +1,3 @@
-import { closeSync, openSync, readSync } from 'node:fs';
 import { InputError } from '../../errors.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
 import type { CsvOptions } from '../engines/duckdb/read-csv.js';
@@ -6,11 +5,9 @@ import { readCsv, typedColumns } from '../engines/duckdb/read-csv.js';
 import type { Storage } from '../sql.js';
 import type { RejectedLine, SourceFormat } from '../types.js';
 import { decimalCommaColumns } from './decimal-comma.js';
-import { lfCopy, mixedLineEnds } from './line-ends.js';
-import type { ReadContext } from './registry.js';
-import type { Utf8Check } from './utf8-check.js';
-import { checkUtf8, encodingAdvice, mostlyNotUtf8 } from './utf8-check.js';
-import { transcodeToUtf8 } from './windows-1252.js';
+import type { ReadContext, ReadHost } from './registry.js';
+import type { Utf8Check } from './utf8-advice.js';
+import { encodingAdvice, mostlyNotUtf8 } from './utf8-advice.js';
 
 /**
  * CSV/TSV: one sniff (DESCRIBE) gives the header and DuckDB's type guesses; the delivery is then
@@ -19,13 +16,13 @@ import { transcodeToUtf8 } from './windows-1252.js';
  * A Latin-1 or windows-1252 delivery is read from a UTF-8 copy (windows-1252.ts); a UTF-8 one
  * whose start is mostly not UTF-8 is an input error naming the likely encoding (utf8-check.ts).
  */
-export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: string | undefined): Promise<DuckLayout> {
-  const { engine, display, roles, missing } = ctx;
+export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat, delim: string | undefined): Promise<DuckLayout> {
+  const { engine, display, roles, missing, files } = ctx;
   let { file, gzip } = ctx;
   const encoding = ctx.options.encoding ?? 'utf-8';
   let utf8: Utf8Check | null = null;
   if (encoding === 'utf-8') {
-    utf8 = checkUtf8(file, gzip);
+    utf8 = files.checkUtf8(file, gzip);
     if (mostlyNotUtf8(utf8)) {
       throw new InputError(
         `${display}: not UTF-8 text: ${utf8.invalid} of the ${utf8.nonAscii} lines with non-ASCII bytes in its first megabyte ` +
@@ -35,13 +32,13 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
   } else {
     // Latin-1 is read as windows-1252, its superset in practice (WHATWG Encoding Standard): a
     // byte 0x80-0x9F in a file called Latin-1 is a ’ € –, never a control character
-    const utf8File = await transcodeToUtf8(file, gzip);
+    const utf8File = await files.transcodeToUtf8(file, gzip);
     engine.cleanup.push(utf8File.dir);
     file = utf8File.file;
     gzip = false;
   }
-  if (mixedLineEnds(file, gzip)) {
-    const lf = await lfCopy(file, gzip);
+  if (files.mixedLineEnds(file, gzip)) {
+    const lf = await files.lfCopy(file, gzip);
     engine.cleanup.push(lf.dir);
     file = lf.file;
     gzip = false;
@@ -51,7 +48,7 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     ...(gzip && !/\.gz$/i.test(file) ? { compression: 'gzip' as const } : {}),
     ...(ctx.options.decimalComma && { decimalSeparator: ',' as const }),
   };
-  const { all, con } = engine;
+  const { all } = engine;
   // one sniff: the dialect and the columns with DuckDB's type guesses (from a sample: hints only)
   const [found] = await all<{
     Delimiter: string;
@@ -76,7 +73,7 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     newline: none(found.NewLineDelimiter) || '\\n',
     skip: Number(found.SkipRows),
   };
-  if (dialect.quote === '' && hasQuote(file, options)) {
+  if (dialect.quote === '' && !options.compression && !/\.gz$/i.test(file) && files.hasQuote(file)) {
     // the sniffer gave up quoting: some quotes are broken. Read as RFC 4180 ('"' quotes, '""'
     // escapes), so that the good quoted fields lose their quotes and the broken lines are rejected
     dialect.quote = '"';
@@ -140,23 +137,10 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     async beforeRetype() {
       // a scan without rejects writes nothing to the rejects tables, so the previous pass's CAST
       // rejects would still read as the latest: start the log afresh for the re-read
-      await con.run('DROP TABLE IF EXISTS nr_rejects');
-      await con.run('DROP TABLE IF EXISTS nr_scans');
+      await engine.run('DROP TABLE IF EXISTS nr_rejects');
+      await engine.run('DROP TABLE IF EXISTS nr_scans');
     },
   };
-}
-
-/** Whether the first megabyte of a (plain) file holds a double quote. */
-function hasQuote(file: string, options: CsvOptions): boolean {
-  if (options.compression || /\.gz$/i.test(file)) return false;
-  const fd = openSync(file, 'r');
-  try {
-    const buf = Buffer.alloc(1 << 20);
-    const n = readSync(fd, buf, 0, buf.length, 0);
-    return buf.subarray(0, n).includes(0x22);
-  } finally {
-    closeSync(fd);
-  }
 }
 
 /** A header name the quote-less sniff kept its quotes on. */

@@ -1,5 +1,6 @@
 import { Transform } from 'node:stream';
 import { tempCopy } from './temp-copy.js';
+import { endsMixed } from './text-sample.js';
 import { sample } from './utf8-check.js';
 
 /**
@@ -7,14 +8,7 @@ import { sample } from './utf8-check.js';
  * file edited on both Windows and elsewhere): DuckDB's CSV sniffer and reader refuse such a file.
  */
 export function mixedLineEnds(file: string, gzip: boolean): boolean {
-  const { bytes } = sample(file, gzip);
-  let crlf = false;
-  let lf = false;
-  for (let i = bytes.indexOf(0x0a); i >= 0 && !(crlf && lf); i = bytes.indexOf(0x0a, i + 1)) {
-    if (i > 0 && bytes[i - 1] === 0x0d) crlf = true;
-    else lf = true;
-  }
-  return crlf && lf;
+  return endsMixed(sample(file, gzip).bytes);
 }
 
 /**

@@ -1,15 +1,22 @@
 import type { Roles } from '../../roles/types.js';
 import type { DuckEngine } from '../engines/duckdb/engine.js';
+import type { DuckHost } from '../engines/duckdb/host.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
 import type { OpenOptions } from '../types.js';
 import { delimiterHint } from './delimiter-hint.js';
+import type { TextFiles } from './text-files.js';
 
 /** An option of `OpenOptions` that only some formats read. */
 export type FormatOption = 'encoding' | 'sheet';
 
+/** What the readers DuckDB-WASM shares (CSV, staged tables) use of the engine. */
+export type ReadHost = Pick<DuckHost, 'all' | 'run' | 'cleanup'>;
+
 /** What a format's reader gets: the engine, the file and what detection found. */
-export interface ReadContext {
-  engine: DuckEngine;
+export interface ReadContext<E extends ReadHost = DuckEngine> {
+  engine: E;
+  /** the delivery's first bytes and the copies the CSV reader may need */
+  files: TextFiles;
   /** the file to read (a spooled stdin is a temp file) */
   file: string;
   /** what messages and the report call it */

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { catalogue } from '../../../rules/index.js';
 import { audit } from '../../../src/audit.js';
-import { loadRoles } from '../../../src/roles/load.js';
+import { loadRoles } from '../../../src/roles/load-file.js';
 import { expectMessage } from '../../helpers/messages.js';
 
 const CLEAN = 'fixtures/demo/repairs-clean.csv';

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { catalogue } from '../../../rules/index.js';
 import { audit } from '../../../src/audit.js';
 import type { Report } from '../../../src/report/types.js';
-import { loadRoles } from '../../../src/roles/load.js';
+import { loadRoles } from '../../../src/roles/load-file.js';
 import { windows1252ToUtf8 } from '../../../src/source/formats/windows-1252.js';
 import { expectSameAudit } from './same.js';
 

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { catalogue } from '../../../rules/index.js';
 import { audit } from '../../../src/audit.js';
 import type { Report } from '../../../src/report/types.js';
-import { loadRoles } from '../../../src/roles/load.js';
+import { loadRoles } from '../../../src/roles/load-file.js';
 import { lfCopy, mixedLineEnds } from '../../../src/source/formats/line-ends.js';
 import { expectSameAudit } from './same.js';
 

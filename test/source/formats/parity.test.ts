@@ -4,7 +4,7 @@ import type { AuditOptions } from '../../../src/audit.js';
 import { audit } from '../../../src/audit.js';
 import { problemRows } from '../../../src/problem-rows.js';
 import type { Report } from '../../../src/report/types.js';
-import { loadRoles } from '../../../src/roles/load.js';
+import { loadRoles } from '../../../src/roles/load-file.js';
 import { detectFormat } from '../../../src/source/formats/detect.js';
 import { INPUT_FORMATS } from '../../../src/source/formats/registry.js';
 import { expectSameAudit } from './same.js';

@@ -2,15 +2,16 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { DuckDBConnection } from '@duckdb/node-api';
-import { withMemory } from './memory.js';
+import type { DuckHost } from './host.js';
+import { fitMemory, withMemory } from './memory.js';
 import type { DuckDB } from './native.js';
 import { native } from './native.js';
 import type { ConnectionPool } from './pool.js';
 import { connectionPool } from './pool.js';
-import { readAll } from './stream.js';
+import { readAll, readColumns } from './stream.js';
 
 /** An embedded DuckDB with its own spill directory (deleted on close). */
-export interface DuckEngine {
+export interface DuckEngine extends DuckHost {
   /** the connection that holds the views and runs the profile (its rejects log is its own) */
   con: DuckDBConnection;
   all<T = Record<string, unknown>>(sql: string): Promise<T[]>;
@@ -101,6 +102,17 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
       await settings.run(`SET memory_limit = '${Math.ceil(bytes / 2 ** 20)}MiB'`);
     },
     all: (sql) => withMemory(engine, () => readAll(con, sql)),
+    run: async (sql) => void (await con.run(sql)),
+    columns: (sql, onScanned) => readColumns(engine, sql, onScanned),
+    lookupAll: (sql) => engine.lookups.use((c) => withMemory(engine, () => readAll(c, sql))),
+    session: (fn) =>
+      engine.lookups.use((c) =>
+        fn({
+          all: (sql) => withMemory(engine, () => readAll(c, sql)),
+          run: (sql) => withMemory(engine, async () => void (await c.run(sql))),
+        }),
+      ),
+    fitMemory: (needs) => fitMemory(engine, { ...needs, threads, scans: 1 + LOOKUP_CONNECTIONS }),
     lookups: connectionPool(lookupConnections),
     close() {
       if (closed) return;

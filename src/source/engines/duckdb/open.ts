@@ -3,6 +3,7 @@ import { InputError } from '../../../errors.js';
 import type { Roles } from '../../../roles/types.js';
 import { detectFormat } from '../../formats/detect.js';
 import { formatSpec } from '../../formats/registry.js';
+import { nodeTextFiles } from '../../formats/text-files-node.js';
 import { spoolStdin } from '../../stdin.js';
 import type { OpenOptions, Source } from '../../types.js';
 import { STDIN } from '../../types.js';
@@ -45,6 +46,7 @@ export async function openDelivery(path: string, roles: Roles, options: OpenOpti
     format = detected.format;
     const layout = await formatSpec(detected.format).read({
       engine,
+      files: nodeTextFiles,
       file,
       display,
       roles,

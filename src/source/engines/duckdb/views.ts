@@ -4,15 +4,13 @@ import { wordsAsDigits } from '../../plan/binary-words.js';
 import { sampleHints } from '../../plan/sample-hints.js';
 import { blankAsNull, ident } from '../../sql.js';
 import type { BinaryWords, Source } from '../../types.js';
-import type { DuckEngine } from './engine.js';
-import { LOOKUP_CONNECTIONS } from './engine.js';
+import type { DuckHost } from './host.js';
 import type { DuckLayout } from './layout.js';
-import { estimateGroups, fitMemory, withMemory } from './memory.js';
-import { readAll, readColumns } from './stream.js';
+import { estimateGroups } from './memory.js';
 
 /** The Source over a layout: the views nr_delivery and nr_numbered, the sample hints, the look-up API. */
-export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: Roles, missing: readonly string[]): Promise<Source> {
-  const { con, all } = engine;
+export async function duckSource(engine: DuckHost, layout: DuckLayout, roles: Roles, missing: readonly string[]): Promise<Source> {
+  const { all } = engine;
   const { header, storage } = layout;
   // a blank-looking group ID is missing; a variable's two words are read as 0/1 (plan/binary-words.ts)
   let words = new Map<string, BinaryWords>();
@@ -32,13 +30,13 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
     const rel = layout.relation(storage) + (guarded ? ` WHERE ${everyColumn}` : '');
     const group = replace();
     if (layout.numbering === 'rowid') {
-      await con.run(`CREATE OR REPLACE VIEW nr_numbered AS SELECT *${group} FROM ${rel}`);
-      await con.run('CREATE OR REPLACE VIEW nr_delivery AS SELECT * EXCLUDE (__rec) FROM nr_numbered');
+      await engine.run(`CREATE OR REPLACE VIEW nr_numbered AS SELECT *${group} FROM ${rel}`);
+      await engine.run('CREATE OR REPLACE VIEW nr_delivery AS SELECT * EXCLUDE (__rec) FROM nr_numbered');
     } else {
       // a blank-looking group ID (only spaces, or a missing token with spaces around it) is
       // missing; other IDs keep their spaces ("W-014 " is a variant to report, not W-014)
-      await con.run(`CREATE OR REPLACE VIEW nr_delivery AS SELECT *${group} FROM ${rel}`);
-      await con.run('CREATE OR REPLACE VIEW nr_numbered AS SELECT row_number() OVER () AS __rec, * FROM nr_delivery');
+      await engine.run(`CREATE OR REPLACE VIEW nr_delivery AS SELECT *${group} FROM ${rel}`);
+      await engine.run('CREATE OR REPLACE VIEW nr_numbered AS SELECT row_number() OVER () AS __rec, * FROM nr_delivery');
     }
   };
   await define();
@@ -53,13 +51,7 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
       sum + 1 + (storage.get(c) === 'text' && c !== roles.unit ? 2 : 0) + (storage.get(c) === 'double' || !textOnly.has(c) ? 5 : 0),
     1,
   );
-  await fitMemory(engine, {
-    format: layout.format,
-    threads: engine.threads,
-    scans: 1 + LOOKUP_CONNECTIONS,
-    groups: estimateGroups(groups),
-    aggregates,
-  });
+  await engine.fitMemory({ format: layout.format, groups: estimateGroups(groups), aggregates });
   if (hints.binaryWords.size) {
     words = hints.binaryWords;
     await define();
@@ -81,15 +73,9 @@ export async function duckSource(engine: DuckEngine, layout: DuckLayout, roles: 
     get viewVersion() {
       return viewVersion;
     },
-    all: (sql) => engine.lookups.use((c) => withMemory(engine, () => readAll(c, sql))),
-    columns: (sql, options) => readColumns(engine, sql, options?.onScanned),
-    session: (fn) =>
-      engine.lookups.use((c) =>
-        fn({
-          all: (sql) => withMemory(engine, () => readAll(c, sql)),
-          run: (sql) => withMemory(engine, async () => void (await c.run(sql))),
-        }),
-      ),
+    all: (sql) => engine.lookupAll(sql),
+    columns: (sql, options) => engine.columns(sql, options?.onScanned),
+    session: (fn) => engine.session(fn),
     async rejects() {
       const rejected = await layout.rejects();
       if (!guarded && layout.typedReader && rejected.some((r) => r.kind === 'INVALID ENCODING')) {
