@@ -42,7 +42,9 @@ export function planColumns(
         s === 'double' ||
         hints.probe?.has(name) === true ||
         (isVariable && roles.types[name] !== 'categorical' && !hints.textOnly?.has(name));
-      return { name, storage: s, numberStats, ...(name === roles.unit && { textRange: false }) };
+      // a count outcome's zeros, per group: the count-outcome rule sets them against its model's
+      const zeros = numberStats && role === 'outcome' && roles.types[name] === 'count';
+      return { name, storage: s, numberStats, ...(name === roles.unit && { textRange: false }), ...(zeros && { zeros }) };
     });
 }
 

@@ -13,6 +13,8 @@ export interface ProfileColumnPlan {
    * ID, whose constancy within a group no rule asks about (two string aggregates over every record)
    */
   textRange?: boolean;
+  /** per group, the values that read as 0 (a count outcome's zeros, against those its model expects) */
+  zeros?: boolean;
 }
 
 /** Aggregate key for column `c` and statistic `stat`, e.g. `visits:mean`. */
@@ -50,6 +52,7 @@ export function profileQuery(view: string, group: string, plan: readonly Profile
       // var_pop is computed stably by the engine; times n it is the within-group sum of squares
       `var_pop(${x}) * count(${x}) AS ${as('ss')}`,
     );
+    if (col.zeros) aggs.push(`${d.double(`count(CASE WHEN ${x} = 0 THEN 1 END)`)} AS ${as('zeros')}`);
   });
   // ordered by the engine (byte order, the missing-ID group first), so the profile need not sort
   return (
