@@ -1,4 +1,5 @@
 import { catalogue as builtIn } from '../rules/index.js';
+import { countOutcome } from './analysis/count-outcome.js';
 import { buildPlotData } from './analysis/plot-data.js';
 import { plotThresholds } from './analysis/plot-thresholds.js';
 import { rulesRun } from './analysis/rules-run.js';
@@ -98,6 +99,8 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
       );
     }
     const outcomes = outcomeStatistics(profile, roles);
+    for (const name of roles.outcomes)
+      if (outcomes[name] && roles.types[name] === 'count') outcomes[name].poisson = await countOutcome(profile, name, lookup);
     // the plots' data needs no finding: it is computed while the rules' look-ups run, and both
     // are let finish before an error is passed on (none may be left querying a closed source)
     const [ran, plotted] = await Promise.allSettled([

@@ -2,6 +2,7 @@ import { SEVERITIES, SEVERITY_ACTION, SEVERITY_WORD } from '../severity.js';
 import { bySeverity, listed, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, VERDICT_HEADLINE, verdictSentence } from './labels.js';
 import { mdText as m, mdHeading, mdLine } from './md-escape.js';
+import { poissonTable } from './poisson-table.js';
 import { readingLines } from './reading.js';
 import type { StatTable } from './stat-tables.js';
 import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from './stat-tables.js';
@@ -63,8 +64,8 @@ export function renderMarkdown(report: Report): string {
   }
   for (const [name, o] of Object.entries(report.outcomes)) {
     out.push(`### Outcome ${mdHeading(name)}`, '', ...table(componentsTable(name, o)), ...table(anovaTable(name, o)));
-    const ext = extremesTable(report, name);
-    if (ext) out.push(...table(ext));
+    // the extreme group means (with plot data) and the tables an outcome's kind adds (count: the Poisson model)
+    out.push(...[extremesTable(report, name), poissonTable(name, o)].flatMap((t) => (t ? table(t) : [])));
   }
   const predictors = predictorsTable(report);
   if (predictors) out.push('### Level-1 predictors', '', ...table(predictors));

@@ -1,4 +1,5 @@
 import { escapeHtml as e } from '../escape-html.js';
+import { poissonTable } from '../poisson-table.js';
 import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from '../stat-tables.js';
 import type { Report } from '../types.js';
 import { statTableHtml } from './stat-table.js';
@@ -52,6 +53,8 @@ export function statisticsHtml(report: Report, svgs: ChartSvgs): string {
     );
     const ext = extremesTable(report, name);
     if (ext) out.push(statTableHtml(ext));
+    const poisson = poissonTable(name, o);
+    if (poisson) out.push(statTableHtml(poisson));
   }
   if (svgs.icc) {
     out.push(
