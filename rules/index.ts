@@ -1,5 +1,6 @@
 import type { AnyRule } from '../src/rules/define.js';
 import binaryOutcome from './binary-outcome.js';
+import binarySeparation from './binary-separation.js';
 import countOutcome from './count-outcome.js';
 import duplicateUnitId from './duplicate-unit-id.js';
 import fewGroups from './few-groups.js';
@@ -30,6 +31,7 @@ import variableWithoutStatistics from './variable-without-statistics.js';
 /** The built-in catalogue, alphabetical by id (a test checks it against the files in rules/). */
 export const catalogue: readonly AnyRule[] = [
   binaryOutcome,
+  binarySeparation,
   countOutcome,
   duplicateUnitId,
   fewGroups,
