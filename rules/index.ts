@@ -1,6 +1,7 @@
 import type { AnyRule } from '../src/rules/define.js';
 import binaryOutcome from './binary-outcome.js';
 import binarySeparation from './binary-separation.js';
+import boundedFloorCeiling from './bounded-floor-ceiling.js';
 import countOutcome from './count-outcome.js';
 import duplicateUnitId from './duplicate-unit-id.js';
 import fewGroups from './few-groups.js';
@@ -32,6 +33,7 @@ import variableWithoutStatistics from './variable-without-statistics.js';
 export const catalogue: readonly AnyRule[] = [
   binaryOutcome,
   binarySeparation,
+  boundedFloorCeiling,
   countOutcome,
   duplicateUnitId,
   fewGroups,
