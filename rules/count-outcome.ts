@@ -54,7 +54,9 @@ export default defineRule<Params>({
           '{column} is a count ({records} records, {zeros} zeros): Poisson random intercept (ML) β0 = {intercept}, τ² = {tau2} on the ' +
           'log scale, latent-scale ICC {icc} (lognormal approximation); within-group dispersion {ratio} ({dispersionP}); linear ICC ' +
           'of the counts {linear}',
-        fix: 'No change to the delivery; model {column} with a count model (Poisson or negative binomial random intercept) rather than a linear one',
+        fix:
+          'No change to the delivery; model {column} with a count model (Poisson or negative binomial random intercept) rather ' +
+          'than a linear one',
       },
       overdispersed: {
         message:

@@ -80,7 +80,8 @@ export async function extremeShares(
   const byGroup =
     `SELECT ${d.text(g)} AS g, count(*) AS n, count(CASE WHEN x <= ${bounds.lower} THEN 1 END) AS f, ` +
     `count(CASE WHEN x >= ${bounds.upper} THEN 1 END) AS c ` +
-    `FROM (SELECT ${g}, ${reading(source, column)} AS x FROM ${source.view} AS d) AS t WHERE x IS NOT NULL AND ${g} IS NOT NULL GROUP BY ${g}`;
+    `FROM (SELECT ${g}, ${reading(source, column)} AS x FROM ${source.view} AS d) AS t ` +
+    `WHERE x IS NOT NULL AND ${g} IS NOT NULL GROUP BY ${g}`;
   const ranked =
     'SELECT g, n, f, c, sum(n) OVER () AS tn, sum(f) OVER () AS tf, sum(c) OVER () AS tc, ' +
     `row_number() OVER (ORDER BY ${d.double('f')} / n DESC, n DESC, ${d.ordered('g')}) AS rf, ` +
