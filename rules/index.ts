@@ -1,5 +1,8 @@
 import type { AnyRule } from '../src/rules/define.js';
 import binaryOutcome from './binary-outcome.js';
+import binarySeparation from './binary-separation.js';
+import boundedFloorCeiling from './bounded-floor-ceiling.js';
+import countOutcome from './count-outcome.js';
 import duplicateUnitId from './duplicate-unit-id.js';
 import fewGroups from './few-groups.js';
 import groupCodeReused from './group-code-reused.js';
@@ -34,6 +37,9 @@ import withinBetweenGap from './within-between-gap.js';
 /** The built-in catalogue, alphabetical by id (a test checks it against the files in rules/). */
 export const catalogue: readonly AnyRule[] = [
   binaryOutcome,
+  binarySeparation,
+  boundedFloorCeiling,
+  countOutcome,
   duplicateUnitId,
   fewGroups,
   groupCodeReused,

@@ -1,5 +1,6 @@
 import { changeCatalogue } from '../changes/index.js';
 import { catalogue as builtIn } from '../rules/index.js';
+import { countOutcome } from './analysis/count-outcome.js';
 import { buildPlotData } from './analysis/plot-data.js';
 import { plotThresholds } from './analysis/plot-thresholds.js';
 import { rulesRun } from './analysis/rules-run.js';
@@ -20,6 +21,7 @@ import type { LoadedRoles } from './roles/load.js';
 import type { Roles } from './roles/types.js';
 import type { AnyRule } from './rules/define.js';
 import { runRules } from './rules/engine.js';
+import type { Lookup } from './source/lookups/lookup.js';
 import { createLookup } from './source/lookups/lookup.js';
 import { withheldWords } from './source/plan/binary-words.js';
 import type { Source } from './source/types.js';
@@ -86,6 +88,7 @@ export async function auditSource(source: Source, roleMap: LoadedRoles | Roles, 
       );
     }
     const outcomes = outcomeStatistics(profile, roles);
+    await kindModels(profile, roles, outcomes, lookup);
     // the plots' data needs no finding: it is computed while the rules' look-ups run, and both
     // are let finish before an error is passed on (none may be left querying a closed source)
     const [ran, plotted] = await Promise.allSettled([
@@ -125,6 +128,13 @@ export async function auditSource(source: Source, roleMap: LoadedRoles | Roles, 
   } finally {
     // look-ups started early are let finish (an error is the rules' to report, if they ask)
     await Promise.all(early);
+  }
+}
+
+/** The models an outcome's declared kind adds (count: the Poisson null model, one look-up each). */
+async function kindModels(profile: Profile, roles: Roles, outcomes: Record<string, OutcomeStats>, lookup: Lookup): Promise<void> {
+  for (const name of roles.outcomes) {
+    if (outcomes[name] && roles.types[name] === 'count') outcomes[name].poisson = await countOutcome(profile, name, lookup);
   }
 }
 

@@ -45,7 +45,16 @@ export function planColumns(
         hints.probe?.has(name) === true ||
         (isVariable && roles.types[name] !== 'categorical' && !hints.textOnly?.has(name));
       const pairsWith = pairs.get(name);
-      return { name, storage: s, numberStats, ...(name === roles.unit && { textRange: false }), ...(pairsWith && { pairsWith }) };
+      // a count outcome's zeros, per group: the count-outcome rule sets them against its model's
+      const zeros = numberStats && role === 'outcome' && roles.types[name] === 'count';
+      return {
+        name,
+        storage: s,
+        numberStats,
+        ...(name === roles.unit && { textRange: false }),
+        ...(pairsWith && { pairsWith }),
+        ...(zeros && { zeros }),
+      };
     });
 }
 

@@ -52,6 +52,14 @@ export function groupStat<S extends GroupStat>(groups: GroupTable, column: strin
   return groups.array(key(column, AGGREGATE[stat])) as GroupStatValues[S][];
 }
 
+/**
+ * Per group, how many values of a count outcome read as 0, in the group table's order (profiled
+ * only for outcomes declared `count`, see planColumns).
+ */
+export function groupZeros(groups: GroupTable, column: string): number[] {
+  return groups.array(key(column, 'zeros')) as number[];
+}
+
 /** The group IDs as text, in the group table's order. */
 export function groupIds(groups: GroupTable): string[] {
   return groups.array('group') as string[];

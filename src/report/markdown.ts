@@ -2,6 +2,7 @@ import { SEVERITIES, SEVERITY_ACTION, SEVERITY_WORD } from '../severity.js';
 import { bySeverity, listed, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, VERDICT_HEADLINE, verdictSentence } from './labels.js';
 import { mdText as m, mdHeading, mdLine } from './md-escape.js';
+import { poissonTable } from './poisson-table.js';
 import { readingLines } from './reading.js';
 import { slopesTable } from './slopes-table.js';
 import type { StatTable } from './stat-tables.js';
@@ -64,19 +65,13 @@ export function renderMarkdown(report: Report): string {
   }
   for (const [name, o] of Object.entries(report.outcomes)) {
     out.push(`### Outcome ${mdHeading(name)}`, '', ...table(componentsTable(name, o)), ...table(anovaTable(name, o)));
-    const ext = extremesTable(report, name);
-    if (ext) out.push(...table(ext));
-    out.push(...optionalTable(slopesTable(name, o)));
+    // the extreme group means (with plot data) and the tables the role map asks for (slopes; count: the Poisson model)
+    out.push(...[extremesTable(report, name), slopesTable(name, o), poissonTable(name, o)].flatMap((t) => (t ? table(t) : [])));
   }
   const predictors = predictorsTable(report);
   if (predictors) out.push('### Level-1 predictors', '', ...table(predictors));
   out.push('---', '', `_${m(THRESHOLD_CAVEAT)}_`, '', `${mdLine(report.tool.name)} ${m(report.tool.version)} (${m(report.schema)})`);
   return `${out.join('\n')}\n`;
-}
-
-/** A table that may be absent (null: nothing). */
-function optionalTable(t: StatTable | null): string[] {
-  return t ? table(t) : [];
 }
 
 function table(t: StatTable): string[] {

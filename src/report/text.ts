@@ -6,6 +6,7 @@ import { SEVERITIES, SEVERITY_ACTION, SEVERITY_SHAPE, SEVERITY_WORD } from '../s
 import { formatNumber, pClause } from '../util/format.js';
 import { bySeverity, listed, origin, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, verdictSentence } from './labels.js';
+import { poissonTable } from './poisson-table.js';
 import { readingLines } from './reading.js';
 import type { Report } from './types.js';
 
@@ -102,6 +103,8 @@ function statisticsLines(report: Report, c: ChalkInstance): string[] {
       `    design effect ${formatNumber(o.designEffect, 3)}, effective N ${formatNumber(o.effectiveN, 1)}, mean reliability of group ` +
         `means ${formatNumber(o.meanReliability, 3)}`,
     );
+    const poisson = poissonTable(name, o);
+    if (poisson) lines.push(`    ${poisson.caption.slice(name.length + 2)}`, ...poisson.rows.map(([k, v]) => `      ${k}: ${v}`));
   }
   return lines;
 }

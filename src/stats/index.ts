@@ -32,6 +32,13 @@ export { effectiveGroupSize } from './n0.js';
 export { nonEmptyGroups } from './non-empty-groups.js';
 // everything for one outcome
 export { outcomeStats } from './outcome-stats.js';
+// count outcomes: random-intercept Poisson null model
+export { poissonExpectedZeros } from './poisson-expected-zeros.js';
+export { poissonLatentIcc } from './poisson-latent-icc.js';
+export type { CountGroup, PoissonFit, PoissonOptions } from './poisson-null-model.js';
+export { countGroupsFromMoments, poissonMarginalLogLik, poissonNullModel } from './poisson-null-model.js';
+export type { PooledDispersion } from './pooled-dispersion.js';
+export { pooledDispersion } from './pooled-dispersion.js';
 export { groupMeanReliability, meanReliability } from './reliability.js';
 export { remlComponents } from './reml-components.js';
 export { remlDeviance, remlDevianceDerivative } from './reml-deviance.js';

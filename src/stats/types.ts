@@ -1,4 +1,6 @@
 import type { LogisticNullModel } from './logistic-null-model.js';
+import type { PoissonFit } from './poisson-null-model.js';
+import type { PooledDispersion } from './pooled-dispersion.js';
 import type { SlopeMomentEstimate } from './slope-moment-estimate.js';
 
 /** Sufficient statistics of one group for one numeric variable. */
@@ -49,4 +51,18 @@ export interface OutcomeStats {
   logistic?: LogisticNullModel;
   /** per planned random slope (role map `slopes`, outcomes not binary): the moment estimate of its variance */
   slopes?: Record<string, SlopeMomentEstimate>;
+  /** outcomes declared `count` only: the random-intercept Poisson null model and its checks */
+  poisson?: PoissonOutcome;
+}
+
+/** A count outcome: the Poisson null model (ML, adaptive Gauss–Hermite), its latent ICC, dispersion and zeros. */
+export interface PoissonOutcome extends PoissonFit {
+  /** τ² / (τ² + ln(1 + 1/λ)), λ = exp(β0 + τ²/2) (Nakagawa et al. 2017, lognormal approximation) */
+  latentIcc: number;
+  /** the index of dispersion within groups, pooled, against χ² on its df */
+  dispersion: PooledDispersion;
+  /** records whose value is 0, and how many the fitted model expects */
+  zeros: { observed: number; expected: number };
+  /** records whose value is not a whole number ≥ 0 (the model is then not fitted: its fields are NaN) */
+  nonCounts: number;
 }

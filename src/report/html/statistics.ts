@@ -1,4 +1,5 @@
 import { escapeHtml as e } from '../escape-html.js';
+import { poissonTable } from '../poisson-table.js';
 import { slopesTable } from '../slopes-table.js';
 import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from '../stat-tables.js';
 import type { Report } from '../types.js';
@@ -55,6 +56,8 @@ export function statisticsHtml(report: Report, svgs: ChartSvgs): string {
     if (ext) out.push(statTableHtml(ext));
     const slopes = slopesTable(name, o);
     if (slopes) out.push(statTableHtml(slopes));
+    const poisson = poissonTable(name, o);
+    if (poisson) out.push(statTableHtml(poisson));
   }
   if (svgs.icc) {
     out.push(

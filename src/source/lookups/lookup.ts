@@ -1,12 +1,22 @@
 import { finiteDouble, ident, literal } from '../sql.js';
 import type { Source } from '../types.js';
 import { modalValueSql } from './modal-value.js';
+import { crossTabs, extremeShares, valueFrequencies } from './outcome-tables.js';
 import type { Lookup, UnitIdSummary } from './types.js';
 import { EXAMPLE_LIMIT } from './types.js';
 import { unitIdSummary } from './unit-ids.js';
 
 export { normalizedIdQuery, normalizeId } from './normalize-id.js';
-export type { Lookup, ParentSubset, UnitIdExample, UnitIdSummary, ValueCounts } from './types.js';
+export type {
+  CrossTabCell,
+  ExtremeShares,
+  Lookup,
+  ParentSubset,
+  UnitIdExample,
+  UnitIdSummary,
+  ValueCounts,
+  ValueFrequencies,
+} from './types.js';
 export { EXAMPLE_LIMIT } from './types.js';
 
 /** The rules' look-ups over an opened delivery: bounded queries, in the source's dialect. */
@@ -137,5 +147,8 @@ export function createLookup(source: Source, group: string): Lookup {
         ),
       }));
     },
+    valueFrequencies: (column, limit) => valueFrequencies(source, column, limit),
+    crossTabs: (outcome, predictors, maxLevels) => crossTabs(source, outcome, predictors, maxLevels),
+    extremeShares: (column, bounds, top) => extremeShares(source, group, column, bounds, top),
   };
 }

@@ -32,6 +32,37 @@ export interface Lookup {
   rowsWithValue(column: string, value: number, limit?: number): Promise<number[]>;
   /** per (group, parent) pair in `groups`: records and, per column, whether it is constant and its value */
   parentSubsets(parent: string, groups: readonly string[], columns: readonly string[]): Promise<ParentSubset[]>;
+  /** each numeric value of a column with its count, smallest first (at most `limit` values) */
+  valueFrequencies(column: string, limit: number): Promise<ValueFrequencies>;
+  /** records and ones of a 0/1 outcome per level of each predictor (predictors over `maxLevels` levels not tabulated) */
+  crossTabs(outcome: string, predictors: readonly string[], maxLevels: number): Promise<CrossTabCell[]>;
+  /** records at the floor and at the ceiling of a numeric column, overall and in the `top` groups where each share is largest */
+  extremeShares(column: string, bounds: { lower: number; upper: number }, top: number): Promise<ExtremeShares>;
+}
+
+export interface ValueFrequencies {
+  values: { value: number; count: number }[];
+  /** more distinct values than asked for */
+  truncated: boolean;
+}
+
+/** One level of one predictor against a 0/1 outcome. */
+export interface CrossTabCell {
+  predictor: string;
+  /** the level as text; null for a predictor with too many levels to tabulate */
+  level: string | null;
+  records: number;
+  ones: number;
+  /** the predictor's number of levels */
+  levels: number;
+}
+
+/** Records at the floor and at the ceiling, with the groups where each share is largest. */
+export interface ExtremeShares {
+  /** records with a numeric value */
+  records: number;
+  floor: { count: number; groups: { group: string; records: number; count: number }[] };
+  ceiling: { count: number; groups: { group: string; records: number; count: number }[] };
 }
 
 /** A unit ID that needs a look: repeated, in several groups, or one of several spellings. */

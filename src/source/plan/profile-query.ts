@@ -16,6 +16,8 @@ export interface ProfileColumnPlan {
   textRange?: boolean;
   /** for an outcome: the level-1 variables whose per-group co-moments with it are asked for (src/profile/pairs.ts) */
   pairsWith?: readonly string[];
+  /** per group, the values that read as 0 (a count outcome's zeros, against those its model expects) */
+  zeros?: boolean;
 }
 
 /** Aggregate key for column `c` and statistic `stat`, e.g. `visits:mean`. */
@@ -53,6 +55,7 @@ export function profileQuery(view: string, group: string, plan: readonly Profile
       // var_pop is computed stably by the engine; times n it is the within-group sum of squares
       `var_pop(${x}) * count(${x}) AS ${as('ss')}`,
     );
+    if (col.zeros) aggs.push(`${d.double(`count(CASE WHEN ${x} = 0 THEN 1 END)`)} AS ${as('zeros')}`);
   });
   plan.forEach((col, i) => {
     for (const other of col.numberStats ? (col.pairsWith ?? []) : []) {
