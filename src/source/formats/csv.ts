@@ -1,4 +1,3 @@
-import { closeSync, openSync, readSync } from 'node:fs';
 import { InputError } from '../../errors.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
 import type { CsvOptions } from '../engines/duckdb/read-csv.js';
@@ -6,10 +5,11 @@ import { readCsv, typedColumns } from '../engines/duckdb/read-csv.js';
 import type { Storage } from '../sql.js';
 import type { RejectedLine, SourceFormat } from '../types.js';
 import { decimalCommaColumns } from './decimal-comma.js';
+import { headerFields, withEdgeSpaces } from './header-line.js';
 import { lfCopy, mixedLineEnds } from './line-ends.js';
 import type { ReadContext } from './registry.js';
 import type { Utf8Check } from './utf8-check.js';
-import { checkUtf8, encodingAdvice, mostlyNotUtf8 } from './utf8-check.js';
+import { checkUtf8, encodingAdvice, mostlyNotUtf8, sample } from './utf8-check.js';
 import { transcodeToUtf8 } from './windows-1252.js';
 
 /**
@@ -76,13 +76,17 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     newline: none(found.NewLineDelimiter) || '\\n',
     skip: Number(found.SkipRows),
   };
-  if (dialect.quote === '' && hasQuote(file, options)) {
-    // the sniffer gave up quoting: some quotes are broken. Read as RFC 4180 ('"' quotes, '""'
-    // escapes), so that the good quoted fields lose their quotes and the broken lines are rejected
+  const start = sample(file, gzip).bytes;
+  if (dialect.quote === '' && start.includes(0x22)) {
+    // the sniffer read no quoting though the text holds quotes (some are broken, or only the
+    // header quotes a name). Read as RFC 4180 ('"' quotes, '""' escapes), so that the good quoted
+    // fields lose their quotes and the broken lines are rejected
     dialect.quote = '"';
     dialect.escape = '"';
     sniffed = sniffed.map((d) => ({ ...d, column_name: unquote(d.column_name) }));
   }
+  // DuckDB trims the header's names: " pad " would be "pad", and a role map naming it as written refused
+  sniffed = withEdgeSpaces(sniffed, headerFields(start, dialect));
   options = { ...options, dialect };
   if (options.decimalSeparator && dialect.delim === ',') {
     throw new InputError(`${display}: numbers with a decimal comma need fields separated by something else than a comma`);
@@ -144,19 +148,6 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
       await con.run('DROP TABLE IF EXISTS nr_scans');
     },
   };
-}
-
-/** Whether the first megabyte of a (plain) file holds a double quote. */
-function hasQuote(file: string, options: CsvOptions): boolean {
-  if (options.compression || /\.gz$/i.test(file)) return false;
-  const fd = openSync(file, 'r');
-  try {
-    const buf = Buffer.alloc(1 << 20);
-    const n = readSync(fd, buf, 0, buf.length, 0);
-    return buf.subarray(0, n).includes(0x22);
-  } finally {
-    closeSync(fd);
-  }
 }
 
 /** A header name the quote-less sniff kept its quotes on. */
