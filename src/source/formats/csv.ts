@@ -53,20 +53,17 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
   };
   const { all, con } = engine;
   // one sniff: the dialect and the columns with DuckDB's type guesses (from a sample: hints only)
-  const [found] = await all<{
-    Delimiter: string;
-    Quote: string;
-    Escape: string;
-    NewLineDelimiter: string;
-    SkipRows: number | bigint;
-    Columns: { name: string; type: string }[];
-  }>(
-    'SELECT Delimiter, Quote, Escape, NewLineDelimiter, SkipRows, Columns FROM ' +
-      `${readCsv(file, missing, 'sniff', options).replace(/^read_csv\(/, 'sniff_csv(')}`,
-  ).catch((e: Error) => {
-    if (utf8?.invalid) throw new InputError(`${display}: cannot read as ${format.toUpperCase()}: not UTF-8 text; ${encodingAdvice(utf8)}`);
-    throw e;
-  });
+  const sniff = (o: CsvOptions) =>
+    all<Sniffed>(
+      `SELECT Delimiter, Quote, Escape, NewLineDelimiter, SkipRows, Columns FROM ${readCsv(file, missing, 'sniff', o).replace(/^read_csv\(/, 'sniff_csv(')}`,
+    )
+      .then((rows) => rows[0])
+      .catch((e: Error) => {
+        if (utf8?.invalid)
+          throw new InputError(`${display}: cannot read as ${format.toUpperCase()}: not UTF-8 text; ${encodingAdvice(utf8)}`);
+        throw e;
+      });
+  const found = await sniff(options);
   const none = (v: string) => (v === '(empty)' ? '' : v);
   let sniffed = found.Columns.map((c) => ({ column_name: c.name, column_type: c.type }));
   const dialect = {
@@ -83,7 +80,13 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
     // fields lose their quotes and the broken lines are rejected
     dialect.quote = '"';
     dialect.escape = '"';
-    sniffed = sniffed.map((d) => ({ ...d, column_name: unquote(d.column_name) }));
+    const written = headerFields(start, dialect);
+    if (written && written.length !== sniffed.length && new Set(written).size === written.length && written.every((w) => w.trim())) {
+      // a quoted header name holds the delimiter, so the quote-less sniff split it: the header's
+      // names, each with the type the sniff guessed for a column of that name (text otherwise)
+      const guessed = new Map(sniffed.map((d) => [d.column_name, d.column_type]));
+      sniffed = written.map((w) => ({ column_name: w, column_type: guessed.get(w.trim()) ?? 'VARCHAR' }));
+    } else sniffed = sniffed.map((d) => ({ ...d, column_name: unquote(d.column_name) }));
   }
   // DuckDB trims the header's names: " pad " would be "pad", and a role map naming it as written refused
   sniffed = withEdgeSpaces(sniffed, headerFields(start, dialect));
@@ -148,6 +151,16 @@ export async function csvLayout(ctx: ReadContext, format: SourceFormat, delim: s
       await con.run('DROP TABLE IF EXISTS nr_scans');
     },
   };
+}
+
+/** What sniff_csv says of a delimited text. */
+interface Sniffed {
+  Delimiter: string;
+  Quote: string;
+  Escape: string;
+  NewLineDelimiter: string;
+  SkipRows: number | bigint;
+  Columns: { name: string; type: string }[];
 }
 
 /** A header name the quote-less sniff kept its quotes on. */

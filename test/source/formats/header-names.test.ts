@@ -50,6 +50,16 @@ describe('header names as written', () => {
     }
   });
 
+  it('a TSV header name quoting a tab, the only quoted field: one column, not two', async () => {
+    const roles = parseRoles('group: "x\\ty"\nunit: u\noutcomes: [y]\n', 'roles.yaml', catalogue);
+    for (const gzip of [false, true]) {
+      const r = await audit(delivery(`tab${gzip ? '.tsv.gz' : '.tsv'}`, '"x\ty"\tu\ty', '\t', gzip), roles);
+      expect(r.input.columns).toEqual(['x\ty', 'u', 'y']);
+      expect(r.groups.count).toBe(3);
+      expect(r.outcomes.y.n).toBe(9);
+    }
+  });
+
   it('a padded header name is read as written, quoted or not, so a role map naming it so is not refused', async () => {
     for (const [name, head, delim] of [
       ['padded.csv', 'g,u," y "', ','],
