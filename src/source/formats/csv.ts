@@ -5,6 +5,7 @@ import { readCsv, typedColumns } from '../engines/duckdb/read-csv.js';
 import type { Storage } from '../sql.js';
 import type { RejectedLine, SourceFormat } from '../types.js';
 import { decimalCommaColumns } from './decimal-comma.js';
+import { headerFields, withEdgeSpaces } from './header-line.js';
 import type { ReadContext, ReadHost } from './registry.js';
 import type { Utf8Check } from './utf8-advice.js';
 import { encodingAdvice, mostlyNotUtf8 } from './utf8-advice.js';
@@ -50,20 +51,17 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
   };
   const { all } = engine;
   // one sniff: the dialect and the columns with DuckDB's type guesses (from a sample: hints only)
-  const [found] = await all<{
-    Delimiter: string;
-    Quote: string;
-    Escape: string;
-    NewLineDelimiter: string;
-    SkipRows: number | bigint;
-    Columns: { name: string; type: string }[];
-  }>(
-    'SELECT Delimiter, Quote, Escape, NewLineDelimiter, SkipRows, Columns FROM ' +
-      `${readCsv(file, missing, 'sniff', options).replace(/^read_csv\(/, 'sniff_csv(')}`,
-  ).catch((e: Error) => {
-    if (utf8?.invalid) throw new InputError(`${display}: cannot read as ${format.toUpperCase()}: not UTF-8 text; ${encodingAdvice(utf8)}`);
-    throw e;
-  });
+  const sniff = (o: CsvOptions) =>
+    all<Sniffed>(
+      `SELECT Delimiter, Quote, Escape, NewLineDelimiter, SkipRows, Columns FROM ${readCsv(file, missing, 'sniff', o).replace(/^read_csv\(/, 'sniff_csv(')}`,
+    )
+      .then((rows) => rows[0])
+      .catch((e: Error) => {
+        if (utf8?.invalid)
+          throw new InputError(`${display}: cannot read as ${format.toUpperCase()}: not UTF-8 text; ${encodingAdvice(utf8)}`);
+        throw e;
+      });
+  const found = await sniff(options);
   const none = (v: string) => (v === '(empty)' ? '' : v);
   let sniffed = found.Columns.map((c) => ({ column_name: c.name, column_type: c.type }));
   const dialect = {
@@ -73,13 +71,23 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
     newline: none(found.NewLineDelimiter) || '\\n',
     skip: Number(found.SkipRows),
   };
-  if (dialect.quote === '' && !options.compression && !/\.gz$/i.test(file) && files.hasQuote(file)) {
-    // the sniffer gave up quoting: some quotes are broken. Read as RFC 4180 ('"' quotes, '""'
-    // escapes), so that the good quoted fields lose their quotes and the broken lines are rejected
+  const start = files.head(file, gzip);
+  if (dialect.quote === '' && start.includes(0x22)) {
+    // the sniffer read no quoting though the text holds quotes (some are broken, or only the
+    // header quotes a name). Read as RFC 4180 ('"' quotes, '""' escapes), so that the good quoted
+    // fields lose their quotes and the broken lines are rejected
     dialect.quote = '"';
     dialect.escape = '"';
-    sniffed = sniffed.map((d) => ({ ...d, column_name: unquote(d.column_name) }));
+    const written = headerFields(start, dialect);
+    if (written && written.length !== sniffed.length && new Set(written).size === written.length && written.every((w) => w.trim())) {
+      // a quoted header name holds the delimiter, so the quote-less sniff split it: the header's
+      // names, each with the type the sniff guessed for a column of that name (text otherwise)
+      const guessed = new Map(sniffed.map((d) => [d.column_name, d.column_type]));
+      sniffed = written.map((w) => ({ column_name: w, column_type: guessed.get(w.trim()) ?? 'VARCHAR' }));
+    } else sniffed = sniffed.map((d) => ({ ...d, column_name: unquote(d.column_name) }));
   }
+  // DuckDB trims the header's names: " pad " would be "pad", and a role map naming it as written refused
+  sniffed = withEdgeSpaces(sniffed, headerFields(start, dialect));
   options = { ...options, dialect };
   if (options.decimalSeparator && dialect.delim === ',') {
     throw new InputError(`${display}: numbers with a decimal comma need fields separated by something else than a comma`);
@@ -141,6 +149,16 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
       await engine.run('DROP TABLE IF EXISTS nr_scans');
     },
   };
+}
+
+/** What sniff_csv says of a delimited text. */
+interface Sniffed {
+  Delimiter: string;
+  Quote: string;
+  Escape: string;
+  NewLineDelimiter: string;
+  SkipRows: number | bigint;
+  Columns: { name: string; type: string }[];
 }
 
 /** A header name the quote-less sniff kept its quotes on. */

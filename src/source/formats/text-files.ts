@@ -10,8 +10,8 @@ export interface TextFiles {
   checkUtf8(file: string, gzip: boolean): Utf8Check;
   /** whether the first megabyte ends some lines with CRLF and others with LF */
   mixedLineEnds(file: string, gzip: boolean): boolean;
-  /** whether the first megabyte of a plain (not compressed) file holds a double quote */
-  hasQuote(file: string): boolean;
+  /** the first megabyte of the text (gzip undone): the quote check and the header as written read it */
+  head(file: string, gzip: boolean): Uint8Array;
   /** a UTF-8 copy of a windows-1252 delivery; `dir` is deleted on close */
   transcodeToUtf8(file: string, gzip: boolean): Promise<{ file: string; dir: string }>;
   /** a copy with every CRLF written as LF; `dir` is deleted on close */

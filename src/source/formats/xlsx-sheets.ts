@@ -15,10 +15,10 @@ const RELS = 'xl/_rels/workbook.xml.rels';
 const asList = <T>(v: T | T[] | undefined): T[] => (v === undefined ? [] : Array.isArray(v) ? v : [v]);
 
 /**
- * The worksheets of an .xlsx in the workbook's order, named as xl/workbook.xml names them. A
- * streaming reader meets the sheets in the order of the zip's entries, and writers that put
- * workbook.xml after the sheets (common in Python) leave it only "Sheet1", "Sheet2", …
- * Empty when the workbook cannot be read so (the streaming reader's names are used then).
+ * The worksheets of an .xlsx in the workbook's order, named as xl/workbook.xml names them (a
+ * zip's entries may come in any order; writers common in Python put workbook.xml after the
+ * sheets). Empty when the workbook cannot be read so (xlsx-book.ts names the sheets by their
+ * entries then).
  */
 export function workbookSheets(file: string): SheetEntry[] {
   let entries: Map<string, Buffer>;

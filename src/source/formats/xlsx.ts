@@ -1,12 +1,12 @@
-import ExcelJS from 'exceljs';
 import { InputError } from '../../errors.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
 import type { RejectedLine } from '../types.js';
 import type { ReadContext } from './registry.js';
 import type { StagedColumn, StagedValue } from './staged.js';
 import { Stager, stagedLayout } from './staged.js';
-import type { SheetEntry } from './xlsx-sheets.js';
-import { roleColumns, workbookSheets } from './xlsx-sheets.js';
+import type { Workbook } from './xlsx-book.js';
+import { openWorkbook } from './xlsx-book.js';
+import { roleColumns } from './xlsx-sheets.js';
 
 /** A cell's value as the text a CSV export of the sheet would hold (numbers stay numbers). */
 export function cellText(v: unknown): string | number | null {
@@ -52,13 +52,14 @@ function headerOf(values: (string | number | null)[]): string[] {
  */
 export async function xlsxLayout(ctx: ReadContext): Promise<DuckLayout> {
   const { display, roles, options } = ctx;
-  const named = workbookSheets(ctx.file);
+  const book = await openBook(ctx);
+  const named = book.sheets;
   const wanted = roleColumns(roles);
   const holds = (header: readonly string[]) => wanted.filter((c) => header.includes(c)).length;
   let pick: (name: string, header: string[]) => boolean =
     options.sheet !== undefined ? (name) => name === options.sheet : (_, header) => holds(header) === wanted.length;
-  let read = await readSheet(ctx, named, pick);
-  const order = named.length ? named.map((s) => s.name) : read.seen.map((s) => s.name);
+  let read = await readSheet(ctx, book, pick);
+  const order = named.map((s) => s.name);
   if (options.sheet !== undefined && !read.chosen) {
     throw new InputError(`${display}: no worksheet named "${options.sheet}" (sheets: ${order.join(', ') || 'none'})`);
   }
@@ -71,7 +72,7 @@ export async function xlsxLayout(ctx: ReadContext): Promise<DuckLayout> {
       holds(b.header ?? []) > holds(a.header ?? []) || (holds(b.header ?? []) === holds(a.header ?? []) && rank(b) < rank(a)) ? b : a,
     );
     pick = (name) => name === nearest.name;
-    read = await readSheet(ctx, named, pick);
+    read = await readSheet(ctx, book, pick);
   }
   const chosen = read.chosen as SheetSeen & { header: string[] };
   const notes: string[] = [];
@@ -90,49 +91,43 @@ export async function xlsxLayout(ctx: ReadContext): Promise<DuckLayout> {
   return notes.length ? { ...layout, notes } : layout;
 }
 
+/** The workbook, or an input error naming the file when it cannot be opened as one. */
+async function openBook({ file, display }: ReadContext): Promise<Workbook> {
+  const book = await openWorkbook(file).catch((e: Error) => {
+    throw new InputError(`${display}: cannot read as Excel .xlsx (${e.message.split('\n')[0]})`);
+  });
+  if (!book) throw new InputError(`${display}: cannot read as Excel .xlsx (not a zip archive, or one cut short)`);
+  return book;
+}
+
 /**
- * Stream every sheet of the workbook (to its end, so that exceljs deletes the temp files it
- * spools sheets to) and stage the first one `pick` takes, from its header on.
+ * Read each sheet's header (its first non-empty row) in the workbook's order and stage the rows
+ * of the first sheet `pick` takes; a sheet not taken is left after its header.
  */
 async function readSheet(
-  { engine, file, display }: ReadContext,
-  named: readonly SheetEntry[],
+  { engine, display }: ReadContext,
+  book: Workbook,
   pick: (name: string, header: string[]) => boolean,
 ): Promise<{ seen: SheetSeen[]; chosen: SheetSeen | null; columns: StagedColumn[] | null; rejected: RejectedLine[] }> {
-  const workbook = new ExcelJS.stream.xlsx.WorkbookReader(file, {
-    worksheets: 'emit',
-    sharedStrings: 'cache',
-    styles: 'cache',
-    hyperlinks: 'ignore',
-    entries: 'emit',
-  });
-  // the zip entry of the sheet being emitted: exceljs announces it just before the sheet
-  let entry = '';
-  (workbook as unknown as NodeJS.EventEmitter).on('entry', (e: { type: string; id: string }) => {
-    if (e.type === 'worksheet') entry = `xl/worksheets/sheet${e.id}.xml`;
-  });
   const seen: SheetSeen[] = [];
   let chosen: SheetSeen | null = null;
   let target: SheetTable | null = null;
   try {
-    for await (const ws of workbook) {
-      const sheet: SheetSeen = {
-        name: named.find((s) => s.path === entry)?.name ?? (ws as unknown as { name: string }).name,
-        header: null,
-      };
+    for (const entry of book.sheets) {
+      const sheet: SheetSeen = { name: entry.name, header: null };
       seen.push(sheet);
-      for await (const row of ws) {
-        if (sheet.header && sheet !== chosen) continue; // drain a sheet that is not read
+      for await (const row of book.rows(entry)) {
         const values = rowValues(row.values as unknown[]);
         if (!values.length) continue;
-        if (sheet.header) target?.add(values, row.number);
-        else {
-          sheet.header = headerOf(values);
-          if (chosen || !pick(sheet.name, sheet.header)) continue;
-          chosen = sheet;
-          target = new SheetTable(engine, sheet.header);
-          await target.stager.open();
+        if (sheet.header) {
+          target?.add(values, row.number);
+          continue;
         }
+        sheet.header = headerOf(values);
+        if (chosen || !pick(sheet.name, sheet.header)) break;
+        chosen = sheet;
+        target = new SheetTable(engine, sheet.header);
+        await target.stager.open();
       }
     }
   } catch (e) {

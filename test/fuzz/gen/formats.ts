@@ -126,8 +126,12 @@ export async function writeParquet(t: Table, dir: string, path: string): Promise
   const con = await db.connect();
   try {
     const q = (s: string) => `'${s.replace(/'/g, "''")}'`;
+    // DuckDB's CSV reader trims header names: the columns are named again as written (unless
+    // duplicated, which DuckDB renames)
+    const names =
+      new Set(t.header).size === t.header.length ? ` AS t(${t.header.map((h) => `"${h.replace(/"/g, '""')}"`).join(', ')})` : '';
     await con.run(
-      `COPY (SELECT * FROM read_csv(${q(csv)}, header = true, all_varchar = true, delim = ',', quote = '"', escape = '"')) ` +
+      `COPY (SELECT * FROM read_csv(${q(csv)}, header = true, all_varchar = true, delim = ',', quote = '"', escape = '"')${names}) ` +
         `TO ${q(path)} (FORMAT parquet)`,
     );
   } finally {

@@ -131,7 +131,7 @@ describe('Excel sheets', () => {
     expect(got.input.notes).toBeUndefined();
   });
 
-  it('every sheet is read to its end, so exceljs leaves no temp file', async () => {
+  it('no sheet is spooled to a temp file', async () => {
     const path = await workbook(
       'spooled.xlsx',
       [

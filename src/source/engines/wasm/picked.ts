@@ -102,7 +102,7 @@ export function pageTextFiles(file: PreparedFile): TextFiles {
   return {
     checkUtf8: () => countUtf8Lines(file.head, file.whole, isAscii, isUtf8),
     mixedLineEnds: () => false,
-    hasQuote: () => file.head.includes(0x22),
+    head: () => file.head,
     transcodeToUtf8: () => Promise.reject(new Error('the page reads UTF-8 only')),
     lfCopy: () => Promise.reject(new Error('line ends are made one when the file is picked')),
   };
