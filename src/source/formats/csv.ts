@@ -53,7 +53,8 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
   // one sniff: the dialect and the columns with DuckDB's type guesses (from a sample: hints only)
   const sniff = (o: CsvOptions) =>
     all<Sniffed>(
-      `SELECT Delimiter, Quote, Escape, NewLineDelimiter, SkipRows, Columns FROM ${readCsv(file, missing, 'sniff', o).replace(/^read_csv\(/, 'sniff_csv(')}`,
+      'SELECT Delimiter, Quote, Escape, NewLineDelimiter, SkipRows, Columns FROM ' +
+        readCsv(file, missing, 'sniff', o).replace(/^read_csv\(/, 'sniff_csv('),
     )
       .then((rows) => rows[0])
       .catch((e: Error) => {
