@@ -20,6 +20,7 @@ import predictorBetweenShare from './predictor-between-share.js';
 import sentinelValues from './sentinel-values.js';
 import singletonGroups from './singleton-groups.js';
 import smallGroups from './small-groups.js';
+import threeLevelShares from './three-level-shares.js';
 import unbalancedGroups from './unbalanced-groups.js';
 import undeclaredLevel2 from './undeclared-level2.js';
 import unitInSeveralGroups from './unit-in-several-groups.js';
@@ -49,6 +50,7 @@ export const catalogue: readonly AnyRule[] = [
   sentinelValues,
   singletonGroups,
   smallGroups,
+  threeLevelShares,
   unbalancedGroups,
   undeclaredLevel2,
   unitInSeveralGroups,

@@ -2,6 +2,7 @@ import { catalogue as builtIn } from '../rules/index.js';
 import { buildPlotData } from './analysis/plot-data.js';
 import { plotThresholds } from './analysis/plot-thresholds.js';
 import { rulesRun } from './analysis/rules-run.js';
+import { threeLevelOf } from './analysis/three-level.js';
 import { InputError, readError } from './errors.js';
 import { grade } from './grade.js';
 import { buildProfile, loadArquero } from './profile/build.js';
@@ -153,6 +154,8 @@ function outcomeStatistics(profile: Profile, roles: Roles): Record<string, Outco
     // a 0/1 outcome also gets the logistic null model (the binary-outcome rule reads it)
     const zeroOne = col.type === 'binary' && (col.numMin ?? 0) >= 0 && (col.numMax ?? 1) <= 1 && momentsAreZeroOne(moments);
     if (zeroOne) out[name].logistic = logisticNullModel(binaryGroupsFromMoments(moments));
+    const threeLevel = roles.parent ? threeLevelOf(profile, roles.parent, name) : undefined;
+    if (threeLevel) out[name].threeLevel = threeLevel;
   }
   return out;
 }

@@ -1,3 +1,4 @@
+import { threeLevelSchema } from './three-level-schema.js';
 import { REPORT_SCHEMA } from './types.js';
 
 // a statistic the data leave undefined (NaN, ±Infinity) is written as null
@@ -158,6 +159,7 @@ export const reportSchema = {
               converged: { type: 'boolean' },
             },
           },
+          threeLevel: threeLevelSchema,
         },
       },
     },

@@ -1,4 +1,5 @@
 import type { LogisticNullModel } from './logistic-null-model.js';
+import type { ThreeLevelModel } from './three-level-model.js';
 
 /** Sufficient statistics of one group for one numeric variable. */
 export interface GroupMoments {
@@ -46,4 +47,12 @@ export interface OutcomeStats {
   meanReliability: number;
   /** 0/1 outcomes only: the random-intercept logistic null model (ML, adaptive Gauss–Hermite) */
   logistic?: LogisticNullModel;
+  /** with a parent declared: the three-level null model (groups within parents) */
+  threeLevel?: ThreeLevelStats;
+}
+
+/** The three-level null model of an outcome and the groups it had to leave out. */
+export interface ThreeLevelStats extends ThreeLevelModel {
+  /** groups under more than one parent, or none: not in the fit */
+  excludedGroups: number;
 }
