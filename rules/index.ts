@@ -16,6 +16,7 @@ import missingGroupId from './missing-group-id.js';
 import missingUnitId from './missing-unit-id.js';
 import nonNumericValues from './non-numeric-values.js';
 import outcomeConstantWithin from './outcome-constant-within.js';
+import outlyingGroups from './outlying-groups.js';
 import predictorBetweenShare from './predictor-between-share.js';
 import sentinelValues from './sentinel-values.js';
 import singletonGroups from './singleton-groups.js';
@@ -46,6 +47,7 @@ export const catalogue: readonly AnyRule[] = [
   missingUnitId,
   nonNumericValues,
   outcomeConstantWithin,
+  outlyingGroups,
   predictorBetweenShare,
   sentinelValues,
   singletonGroups,
