@@ -61,8 +61,7 @@ export default defineRule<Params>({
     },
     messages: {
       outlying: {
-        message:
-          '{column}: {count} group(s) with a standardised empirical-Bayes effect beyond ±{limit} (REML null model, ICC {icc}): ' + '{list}',
+        message: '{column}: {count} group(s) with a standardised empirical-Bayes effect beyond ±{limit} (REML ICC {icc}): {list}',
         fix:
           'Ask the sender to check the listed groups’ records (units, codes, another site’s rows); if they are right, the ' +
           'analysis plan decides whether to keep them (guidance, not a verdict)',
