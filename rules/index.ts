@@ -6,6 +6,7 @@ import groupCodeReused from './group-code-reused.js';
 import groupInSeveralParents from './group-in-several-parents.js';
 import groupsPerLevel2Predictor from './groups-per-level2-predictor.js';
 import idVariants from './id-variants.js';
+import informativeGroupSize from './informative-group-size.js';
 import level1ConstantWithin from './level1-constant-within.js';
 import level2PartlyMissing from './level2-partly-missing.js';
 import level2Varies from './level2-varies.js';
@@ -37,6 +38,7 @@ export const catalogue: readonly AnyRule[] = [
   groupInSeveralParents,
   groupsPerLevel2Predictor,
   idVariants,
+  informativeGroupSize,
   level1ConstantWithin,
   level2PartlyMissing,
   level2Varies,
