@@ -24,9 +24,9 @@ export interface InformativeSize {
  * @param sizes n_j
  * @param means ȳ_j
  */
-export function weightingGap(sizes: ArrayLike<number>, means: ArrayLike<number>): number {
+export function weightingGap(sizes: readonly number[] | Float64Array, means: readonly number[]): number {
   let total = 0;
-  for (let j = 0; j < sizes.length; j++) total += sizes[j];
+  for (const n of sizes) total += n;
   let gap = 0;
   for (let j = 0; j < sizes.length; j++) gap += (sizes[j] / total - 1 / sizes.length) * means[j];
   return gap;
@@ -41,7 +41,7 @@ export function weightingGap(sizes: ArrayLike<number>, means: ArrayLike<number>)
  * @param means ȳ_j
  * @returns r, NaN when either varies not at all
  */
-export function sizeMeanCorrelation(sizes: ArrayLike<number>, means: ArrayLike<number>): number {
+export function sizeMeanCorrelation(sizes: readonly number[], means: readonly number[]): number {
   const count = sizes.length;
   let mx = 0;
   let my = 0;
