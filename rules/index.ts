@@ -5,6 +5,7 @@ import fewGroups from './few-groups.js';
 import groupCodeReused from './group-code-reused.js';
 import groupInSeveralParents from './group-in-several-parents.js';
 import groupsPerLevel2Predictor from './groups-per-level2-predictor.js';
+import hiddenLevel from './hidden-level.js';
 import idVariants from './id-variants.js';
 import informativeGroupSize from './informative-group-size.js';
 import level1ConstantWithin from './level1-constant-within.js';
@@ -37,6 +38,7 @@ export const catalogue: readonly AnyRule[] = [
   groupCodeReused,
   groupInSeveralParents,
   groupsPerLevel2Predictor,
+  hiddenLevel,
   idVariants,
   informativeGroupSize,
   level1ConstantWithin,

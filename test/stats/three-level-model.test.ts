@@ -1,9 +1,9 @@
 import { afterAll, describe, expect, it } from 'vitest';
-import { momentsFromValues } from '../../src/stats/index.js';
+import { momentsFromValues, remlComponents } from '../../src/stats/index.js';
 import { threeLevelCriterion } from '../../src/stats/three-level-deviance.js';
 import { threeLevelModel } from '../../src/stats/three-level-model.js';
 import type { ParentBlocks } from '../../src/stats/three-level-terms.js';
-import { expectRel, logRelativeErrors, readReferenceCsv } from './helpers.js';
+import { expectRel, logRelativeErrors, readReferenceCsv, referenceMoments } from './helpers.js';
 
 const TOL = 1e-6;
 afterAll(logRelativeErrors);
@@ -112,5 +112,12 @@ describe('three-level null model against lme4 (fixtures/reference/README.md, pas
     expect(threeLevelModel({ ...one, start: Int32Array.from([0, 1, 2]) })).toBeNull();
     const singles = { n: Float64Array.from([1, 1, 1, 1]), mean: Float64Array.from([0, 1, 2, 3]), ss: new Float64Array(4) };
     expect(threeLevelModel({ ...singles, start: Int32Array.from([0, 2, 4]) })).toBeNull();
+  });
+
+  it('one-way REML by batch alone (the share hidden-level reports for a column above the groups)', () => {
+    const fit = remlComponents(referenceMoments('pastes.csv', 'batch', 'strength'));
+    // R 4.2.2 + lme4 1.1-31: lmer(strength ~ 1 + (1|batch), data = Pastes), same control as above
+    expectRel(fit.tau2, 3.3440418425879, TOL, 'pastes one-way batch tau2');
+    expectRel(fit.sigma2, 7.42493337025452, TOL, 'pastes one-way batch sigma2');
   });
 });

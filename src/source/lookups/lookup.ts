@@ -1,12 +1,13 @@
 import { finiteDouble, ident, literal } from '../sql.js';
 import type { Source } from '../types.js';
+import { columnValueStats, screenColumns } from './column-pairs.js';
 import { modalValueSql } from './modal-value.js';
 import type { Lookup, UnitIdSummary } from './types.js';
 import { EXAMPLE_LIMIT } from './types.js';
 import { unitIdSummary } from './unit-ids.js';
 
 export { normalizedIdQuery, normalizeId } from './normalize-id.js';
-export type { Lookup, ParentSubset, UnitIdExample, UnitIdSummary, ValueCounts } from './types.js';
+export type { ColumnScreen, ColumnValueStats, Lookup, ParentSubset, UnitIdExample, UnitIdSummary, ValueCounts } from './types.js';
 export { EXAMPLE_LIMIT } from './types.js';
 
 /** The rules' look-ups over an opened delivery: bounded queries, in the source's dialect. */
@@ -15,6 +16,8 @@ export function createLookup(source: Source, group: string): Lookup {
   const inList = (ids: readonly string[]) => `(${ids.map(literal).join(', ')})`;
   const unitCache = new Map<string, Promise<UnitIdSummary>>();
   return {
+    screenColumns: (columns) => screenColumns(source, group, columns),
+    columnValueStats: (columns, outcomes) => columnValueStats(source, group, columns, outcomes),
     async rowsMissingGroup(limit = EXAMPLE_LIMIT) {
       const rows = await source.all<{ __rec: bigint }>(
         `SELECT __rec FROM ${source.numbered} WHERE ${g} IS NULL ORDER BY __rec LIMIT ${limit}`,

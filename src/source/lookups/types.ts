@@ -32,6 +32,29 @@ export interface Lookup {
   rowsWithValue(column: string, value: number, limit?: number): Promise<number[]>;
   /** per (group, parent) pair in `groups`: records and, per column, whether it is constant and its value */
   parentSubsets(parent: string, groups: readonly string[], columns: readonly string[]): Promise<ParentSubset[]>;
+  /** per column: distinct values, non-missing values, groups with a value, values not whole numbers (one aggregate) */
+  screenColumns(columns: readonly string[]): Promise<ColumnScreen[]>;
+  /** per value of each column: its groups and the outcomes' moments (one query; bound it by the screen's counts) */
+  columnValueStats(columns: readonly string[], outcomes: readonly string[]): Promise<ColumnValueStats[]>;
+}
+
+/** What one aggregate says of a column before its values are grouped. */
+export interface ColumnScreen {
+  column: string;
+  /** distinct values */
+  values: number;
+  nonMissing: number;
+  /** groups in which it has a value */
+  groups: number;
+  /** values that are not whole numbers (a column read as numbers; 0 for text) */
+  fractional: number;
+}
+
+/** One value of a column: how many groups it occurs in, and each outcome's moments among its records. */
+export interface ColumnValueStats {
+  column: string;
+  groups: number;
+  outcomes: { n: number; mean: number; ss: number }[];
 }
 
 /** A unit ID that needs a look: repeated, in several groups, or one of several spellings. */
