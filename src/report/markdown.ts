@@ -5,6 +5,7 @@ import { mdText as m, mdHeading, mdLine } from './md-escape.js';
 import { readingLines } from './reading.js';
 import type { StatTable } from './stat-tables.js';
 import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from './stat-tables.js';
+import { threeLevelTables } from './three-level-table.js';
 import type { Report } from './types.js';
 
 /**
@@ -63,6 +64,7 @@ export function renderMarkdown(report: Report): string {
   }
   for (const [name, o] of Object.entries(report.outcomes)) {
     out.push(`### Outcome ${mdHeading(name)}`, '', ...table(componentsTable(name, o)), ...table(anovaTable(name, o)));
+    out.push(...threeLevelTables(name, o).flatMap(table));
     const ext = extremesTable(report, name);
     if (ext) out.push(...table(ext));
   }

@@ -7,6 +7,7 @@ import { formatNumber, pClause } from '../util/format.js';
 import { bySeverity, listed, origin, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, verdictSentence } from './labels.js';
 import { readingLines } from './reading.js';
+import { threeLevelLines } from './three-level-table.js';
 import type { Report } from './types.js';
 
 export interface TextOptions {
@@ -102,6 +103,7 @@ function statisticsLines(report: Report, c: ChalkInstance): string[] {
       `    design effect ${formatNumber(o.designEffect, 3)}, effective N ${formatNumber(o.effectiveN, 1)}, mean reliability of group ` +
         `means ${formatNumber(o.meanReliability, 3)}`,
     );
+    lines.push(...threeLevelLines(o));
   }
   return lines;
 }
