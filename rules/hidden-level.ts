@@ -74,7 +74,9 @@ export default defineRule<Params>({
         message:
           '{column} holds each {group} within one of its {valueCount} values and {share} of the {outcome} variance lies between ' +
           'them (one-way REML): a level above the groups that the role map does not declare',
-        fix: 'Declare {column} as the parent in the role map if it is a level of the design, and ask the analyst whether the model needs it',
+        fix:
+          'Declare {column} as the parent in the role map if it is a level of the design, and ask the analyst whether ' +
+          'the model needs it',
       },
       levelBelow: {
         message:

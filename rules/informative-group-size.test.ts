@@ -36,9 +36,9 @@ describe('informative-group-size', () => {
     ]);
   });
 
-  it('size that goes with the mean: a warning with r, both means, the gap and the permutation p', () => {
+  it('size that goes with the mean: a note with r, both means, the gap and the permutation p', () => {
     const f = onlyFinding(planted, 'informative-group-size');
-    expect(f.severity).toBe('warning');
+    expect(f.severity).toBe('note');
     expect(f.column).toBe('y');
     expectMessage(f, 'informative', {
       column: 'y',

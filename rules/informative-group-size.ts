@@ -18,7 +18,7 @@ export default defineRule<Params>({
     id: 'informative-group-size',
     title: 'Group size goes with the outcome',
     level: 'variance',
-    defaultSeverity: 'warning',
+    defaultSeverity: 'note',
     description:
       'For each numeric outcome, the correlation of group size with group mean and the difference between the ' +
       'record-weighted and the group-weighted mean, with a permutation p-value (sizes permuted over groups, a fixed seed; ' +

@@ -43,7 +43,8 @@ export function threeLevelLines(o: OutcomeStats): string[] {
   return [
     line('REML', t.reml),
     line('ML', t.ml),
-    `    two-level group tau2 on the same ${t.groups} groups ${f(t.groupsOnly.tau2, 4)}; parent variance test p ${formatP(t.parentTest.p)}` +
+    `    two-level group tau2 on the same ${t.groups} groups ${f(t.groupsOnly.tau2, 4)}; ` +
+      `parent variance test p ${formatP(t.parentTest.p)}` +
       (t.excludedGroups ? `; ${t.excludedGroups} group(s) under several parents or none left out` : ''),
   ];
 }

@@ -49,7 +49,8 @@ export async function columnValueStats(
   const stats = outcomes.flatMap((_, k) => [`count(y${k}) AS n${k}`, `avg(y${k}) AS m${k}`, `var_pop(y${k}) * count(y${k}) AS s${k}`]);
   const parts = columns.map((column, i) => {
     const c = ident(column);
-    const inner = `SELECT ${d.text(c)} AS v, ${g} AS g${ys.map((y) => `, ${y}`).join('')} FROM ${source.view} WHERE ${g} IS NOT NULL AND ${c} IS NOT NULL`;
+    const picked = [`${d.text(c)} AS v`, `${g} AS g`, ...ys].join(', ');
+    const inner = `SELECT ${picked} FROM ${source.view} WHERE ${g} IS NOT NULL AND ${c} IS NOT NULL`;
     return `SELECT ${i} AS c, v, count(DISTINCT g) AS k${stats.map((s) => `, ${s}`).join('')} FROM (${inner}) AS r${i} GROUP BY v`;
   });
   const rows = await source.all<Record<string, unknown>>(`${parts.join(' UNION ALL ')} ORDER BY 1, 2`);
