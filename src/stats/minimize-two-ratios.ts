@@ -3,19 +3,29 @@ import { minimizeOverLambda } from './minimize-over-lambda.js';
 /** A criterion of two variance ratios with its gradient. */
 export type TwoRatioCriterion = (a: number, b: number) => { value: number; da: number; db: number };
 
+/** The best point on each edge, when the caller has a cheaper way to find them than a 1-D search of f. */
+export interface TwoRatioEdges {
+  /** on b = 0: the best a and the criterion there */
+  bZero(): { a: number; value: number };
+  /** on a = 0: the best b and the criterion there */
+  aZero(): { b: number; value: number };
+}
+
 /** Where a criterion of two ratios is smallest over a, b ≥ 0. */
 export interface TwoRatioOptimum {
   a: number;
   b: number;
   value: number;
-  /** the best point on the edge b = 0 (a 1-D fit of a alone) */
-  edgeB: { a: number; value: number };
+  /** the best point on the edge b = 0 (a 1-D fit of a alone); absent when a warm start sufficed */
+  edgeB?: { a: number; value: number };
 }
 
 // the same span of log ratios as minimizeOverLambda: below it a ratio is taken as the boundary 0
 const LOG_MIN = -25;
 const LOG_MAX = 12;
 const MAX_ITERATIONS = 200;
+// a warm-started answer this far inside the span is interior: no edge can be lower nearby
+const WELL_INSIDE = LOG_MIN + 5;
 // forward-difference step of the gradient on the log scale (the Hessian needs no more accuracy:
 // it shapes the steps, the analytic gradient decides where they stop)
 const HESSIAN_STEP = 1e-5;
@@ -30,29 +40,51 @@ const HESSIAN_STEP = 1e-5;
  * Newton and Levenberg–Marquardt steps); boundary handling as in lme4 (Bates et al. 2015), which
  * bounds the relative covariance factors at zero.
  *
+ * A warm start (e.g. the REML optimum for the ML fit) is tried first; when Newton steps from it
+ * settle well inside the region, the edges are not searched.
+ *
  * @param f the criterion and its partial derivatives in a and b
+ * @param warm ratios to start from, when close to the optimum
+ * @param edges the edge optima, when the caller can find them more cheaply (else 1-D searches of f)
  * @returns the minimising ratios (exactly 0 on an edge) and the criterion there
  */
-export function minimizeTwoRatios(f: TwoRatioCriterion): TwoRatioOptimum {
-  const edgeB = minimizeOverLambda(
-    (a) => f(a, 0).value,
-    (a) => f(a, 0).da,
-  );
-  const edgeA = minimizeOverLambda(
-    (b) => f(0, b).value,
-    (b) => f(0, b).db,
-  );
-  const onEdgeB = { a: edgeB.lambda, value: edgeB.deviance };
+export function minimizeTwoRatios(f: TwoRatioCriterion, warm?: { a: number; b: number }, edges = searchEdges(f)): TwoRatioOptimum {
+  if (warm && warm.a > 0 && warm.b > 0) {
+    const near = dampedNewton(f, [Math.log(warm.a), Math.log(warm.b)]);
+    if (near && Math.log(near.a) > WELL_INSIDE && Math.log(near.b) > WELL_INSIDE) return near;
+  }
+  const onEdgeB = edges.bZero();
+  const onEdgeA = edges.aZero();
   let best: TwoRatioOptimum =
-    edgeB.deviance <= edgeA.deviance
-      ? { a: edgeB.lambda, b: 0, value: edgeB.deviance, edgeB: onEdgeB }
-      : { a: 0, b: edgeA.lambda, value: edgeA.deviance, edgeB: onEdgeB };
+    onEdgeB.value <= onEdgeA.value
+      ? { a: onEdgeB.a, b: 0, value: onEdgeB.value, edgeB: onEdgeB }
+      : { a: 0, b: onEdgeA.b, value: onEdgeA.value, edgeB: onEdgeB };
   // each edge fit puts the other level's variance into its own ratio: half of each is a start
   // inside the region, near the interior optimum when there is one
-  const start: [number, number] = [Math.log(Math.max(edgeB.lambda / 2, 1e-3)), Math.log(Math.max(edgeA.lambda / 2, 1e-3))];
+  const start: [number, number] = [Math.log(Math.max(onEdgeB.a / 2, 1e-3)), Math.log(Math.max(onEdgeA.b / 2, 1e-3))];
   const inner = dampedNewton(f, start);
   if (inner && inner.value < best.value) best = { ...inner, edgeB: onEdgeB };
   return best;
+}
+
+/** Each edge by the 1-D search of minimizeOverLambda over f itself. */
+function searchEdges(f: TwoRatioCriterion): TwoRatioEdges {
+  return {
+    bZero() {
+      const o = minimizeOverLambda(
+        (a) => f(a, 0).value,
+        (a) => f(a, 0).da,
+      );
+      return { a: o.lambda, value: o.deviance };
+    },
+    aZero() {
+      const o = minimizeOverLambda(
+        (b) => f(0, b).value,
+        (b) => f(0, b).db,
+      );
+      return { b: o.lambda, value: o.deviance };
+    },
+  };
 }
 
 /** Gradient of f on the log scale (chain rule: ∂/∂log a = a ∂/∂a). */

@@ -1,7 +1,11 @@
 import chisquareCdf from '@stdlib/stats-base-dists-chisquare-cdf';
+import type { TwoRatioEdges } from './minimize-two-ratios.js';
 import { minimizeTwoRatios } from './minimize-two-ratios.js';
+import { mlComponents } from './ml-components.js';
+import { remlComponents } from './reml-components.js';
 import { threeLevelCriterion } from './three-level-deviance.js';
 import type { ParentBlocks } from './three-level-terms.js';
+import type { GroupMoments, VarianceComponents } from './types.js';
 
 /** Variance components of the three-level null model and each level's share of their sum. */
 export interface ThreeLevelComponents {
@@ -64,8 +68,10 @@ export function threeLevelModel(blocks: ParentBlocks): ThreeLevelModel | null {
   const centre = sum / n;
   const centred: ParentBlocks = { ...blocks, mean: blocks.mean.map((m) => m - centre) };
   if (threeLevelCriterion(centred, 0, 0, false).sigma2 === 0) return null;
-  const { best: reml, groupsOnly: flat } = fitCriterion(centred, true);
-  const ml = fitCriterion(centred, false).best;
+  const { best: reml, groupsOnly } = fitCriterion(centred, true);
+  // the ML optimum lies near the REML one: started there, it rarely needs the edge searches
+  const ml = fitCriterion(centred, false, reml).best;
+  const flat = groupsOnly as Optimum;
   const statistic = Math.max(0, flat.deviance - reml.deviance);
   return {
     parents,
@@ -78,16 +84,59 @@ export function threeLevelModel(blocks: ParentBlocks): ThreeLevelModel | null {
   };
 }
 
-function fitCriterion(blocks: ParentBlocks, reml: boolean): { best: Optimum; groupsOnly: Optimum } {
+function fitCriterion(blocks: ParentBlocks, reml: boolean, warm?: Optimum): { best: Optimum; groupsOnly?: Optimum } {
   const at = (lg: number, lp: number): Optimum => {
     const c = threeLevelCriterion(blocks, lg, lp, reml);
     return { lg, lp, deviance: c.deviance, sigma2: c.sigma2, mu: c.mu };
   };
-  const o = minimizeTwoRatios((lg, lp) => {
-    const c = threeLevelCriterion(blocks, lg, lp, reml);
-    return { value: c.deviance, da: c.dGroup, db: c.dParent };
-  });
-  return { best: at(o.a, o.b), groupsOnly: at(o.edgeB.a, 0) };
+  const o = minimizeTwoRatios(
+    (lg, lp) => {
+      const c = threeLevelCriterion(blocks, lg, lp, reml);
+      return { value: c.deviance, da: c.dGroup, db: c.dParent };
+    },
+    warm && { a: warm.lg, b: warm.lp },
+    oneWayEdges(blocks, reml),
+  );
+  return { best: at(o.a, o.b), groupsOnly: o.edgeB && at(o.edgeB.a, 0) };
+}
+
+/**
+ * Each edge of the three-level model is a one-way model: τ²_parent = 0 leaves the groups'
+ * random intercepts, τ²_group = 0 the parents' (over the records of each parent pooled). Their
+ * exact one-way fits (size classes make them cheap) replace two 1-D searches of the full criterion.
+ */
+function oneWayEdges(blocks: ParentBlocks, reml: boolean): TwoRatioEdges {
+  const fit = reml ? remlComponents : mlComponents;
+  const edge = (c: VarianceComponents) => ({ ratio: c.tau2 / c.sigma2, value: -2 * c.logLik });
+  return {
+    bZero() {
+      const groups: GroupMoments[] = Array.from(blocks.n, (n, j) => ({ n, mean: blocks.mean[j], ss: blocks.ss[j] }));
+      const e = edge(fit(groups));
+      return { a: e.ratio, value: e.value };
+    },
+    aZero() {
+      const e = edge(fit(pooledByParent(blocks)));
+      return { b: e.ratio, value: e.value };
+    },
+  };
+}
+
+/** Each parent's records as one group: n_k, mean_k and ss_k = Σ ss_j + Σ n_j (ȳ_j − mean_k)². */
+function pooledByParent(blocks: ParentBlocks): GroupMoments[] {
+  const out: GroupMoments[] = [];
+  for (let k = 0; k + 1 < blocks.start.length; k++) {
+    let n = 0;
+    let sum = 0;
+    for (let j = blocks.start[k]; j < blocks.start[k + 1]; j++) {
+      n += blocks.n[j];
+      sum += blocks.n[j] * blocks.mean[j];
+    }
+    const mean = sum / n;
+    let ss = 0;
+    for (let j = blocks.start[k]; j < blocks.start[k + 1]; j++) ss += blocks.ss[j] + blocks.n[j] * (blocks.mean[j] - mean) ** 2;
+    out.push({ n, mean, ss });
+  }
+  return out;
 }
 
 function components(o: Optimum, centre: number): ThreeLevelComponents {
