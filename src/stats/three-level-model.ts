@@ -106,16 +106,16 @@ function fitCriterion(blocks: ParentBlocks, reml: boolean, warm?: Optimum): { be
  * exact one-way fits (size classes make them cheap) replace two 1-D searches of the full criterion.
  */
 function oneWayEdges(blocks: ParentBlocks, reml: boolean): TwoRatioEdges {
-  const fit = reml ? remlComponents : mlComponents;
+  const fitOneWay = reml ? remlComponents : mlComponents;
   const edge = (c: VarianceComponents) => ({ ratio: c.tau2 / c.sigma2, value: -2 * c.logLik });
   return {
     bZero() {
       const groups: GroupMoments[] = Array.from(blocks.n, (n, j) => ({ n, mean: blocks.mean[j], ss: blocks.ss[j] }));
-      const e = edge(fit(groups));
+      const e = edge(fitOneWay(groups));
       return { a: e.ratio, value: e.value };
     },
     aZero() {
-      const e = edge(fit(pooledByParent(blocks)));
+      const e = edge(fitOneWay(pooledByParent(blocks)));
       return { b: e.ratio, value: e.value };
     },
   };
