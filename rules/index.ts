@@ -8,7 +8,9 @@ import fewGroups from './few-groups.js';
 import groupCodeReused from './group-code-reused.js';
 import groupInSeveralParents from './group-in-several-parents.js';
 import groupsPerLevel2Predictor from './groups-per-level2-predictor.js';
+import hiddenLevel from './hidden-level.js';
 import idVariants from './id-variants.js';
+import informativeGroupSize from './informative-group-size.js';
 import interceptVarianceAtZero from './intercept-variance-at-zero.js';
 import level1ConstantWithin from './level1-constant-within.js';
 import level1VarianceHeterogeneity from './level1-variance-heterogeneity.js';
@@ -22,11 +24,13 @@ import missingGroupId from './missing-group-id.js';
 import missingUnitId from './missing-unit-id.js';
 import nonNumericValues from './non-numeric-values.js';
 import outcomeConstantWithin from './outcome-constant-within.js';
+import outlyingGroups from './outlying-groups.js';
 import predictorBetweenShare from './predictor-between-share.js';
 import sentinelValues from './sentinel-values.js';
 import singletonGroups from './singleton-groups.js';
 import slopeSupport from './slope-support.js';
 import smallGroups from './small-groups.js';
+import threeLevelShares from './three-level-shares.js';
 import unbalancedGroups from './unbalanced-groups.js';
 import undeclaredLevel2 from './undeclared-level2.js';
 import unitInSeveralGroups from './unit-in-several-groups.js';
@@ -45,8 +49,10 @@ export const catalogue: readonly AnyRule[] = [
   groupCodeReused,
   groupInSeveralParents,
   groupsPerLevel2Predictor,
+  hiddenLevel,
   idVariants,
   interceptVarianceAtZero,
+  informativeGroupSize,
   level1ConstantWithin,
   level1VarianceHeterogeneity,
   level2Collinearity,
@@ -59,11 +65,13 @@ export const catalogue: readonly AnyRule[] = [
   missingUnitId,
   nonNumericValues,
   outcomeConstantWithin,
+  outlyingGroups,
   predictorBetweenShare,
   sentinelValues,
   singletonGroups,
   slopeSupport,
   smallGroups,
+  threeLevelShares,
   unbalancedGroups,
   undeclaredLevel2,
   unitInSeveralGroups,

@@ -5,6 +5,7 @@ import { buildPlotData } from './analysis/plot-data.js';
 import { plotThresholds } from './analysis/plot-thresholds.js';
 import { rulesRun } from './analysis/rules-run.js';
 import { slopeStatistics } from './analysis/slopes.js';
+import { threeLevelOf } from './analysis/three-level.js';
 import { measure } from './compare/measure.js';
 import { withChanges } from './compare/run-changes.js';
 import type { AnyChangeRule, Baseline } from './compare/types.js';
@@ -158,6 +159,8 @@ function outcomeStatistics(profile: Profile, roles: Roles): Record<string, Outco
     if (zeroOne) out[name].logistic = logisticNullModel(binaryGroupsFromMoments(moments));
     const slopes = roles.slopes?.length && col.type !== 'binary' ? slopeStatistics(profile, name, roles.slopes) : undefined;
     if (slopes) out[name].slopes = slopes;
+    const threeLevel = roles.parent ? threeLevelOf(profile, roles.parent, name) : undefined;
+    if (threeLevel) out[name].threeLevel = threeLevel;
   }
   return out;
 }

@@ -7,6 +7,7 @@ import { readingLines } from './reading.js';
 import { slopesTable } from './slopes-table.js';
 import type { StatTable } from './stat-tables.js';
 import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from './stat-tables.js';
+import { threeLevelTables } from './three-level-table.js';
 import type { Report } from './types.js';
 
 /**
@@ -65,6 +66,7 @@ export function renderMarkdown(report: Report): string {
   }
   for (const [name, o] of Object.entries(report.outcomes)) {
     out.push(`### Outcome ${mdHeading(name)}`, '', ...table(componentsTable(name, o)), ...table(anovaTable(name, o)));
+    out.push(...threeLevelTables(name, o).flatMap(table));
     // the extreme group means (with plot data) and the tables the role map asks for (slopes; count: the Poisson model)
     out.push(...[extremesTable(report, name), slopesTable(name, o), poissonTable(name, o)].flatMap((t) => (t ? table(t) : [])));
   }

@@ -1,4 +1,5 @@
 import { changesSchema, snapshotSchema } from './snapshot-schema.js';
+import { threeLevelSchema } from './three-level-schema.js';
 import { REPORT_SCHEMA } from './types.js';
 
 // a statistic the data leave undefined (NaN, ±Infinity) is written as null
@@ -204,6 +205,7 @@ export const reportSchema = {
               nonCounts: count,
             },
           },
+          threeLevel: threeLevelSchema,
         },
       },
     },

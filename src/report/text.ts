@@ -8,6 +8,7 @@ import { bySeverity, listed, origin, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, verdictSentence } from './labels.js';
 import { poissonTable } from './poisson-table.js';
 import { readingLines } from './reading.js';
+import { threeLevelLines } from './three-level-table.js';
 import type { Report } from './types.js';
 
 export interface TextOptions {
@@ -105,6 +106,7 @@ function statisticsLines(report: Report, c: ChalkInstance): string[] {
     );
     const poisson = poissonTable(name, o);
     if (poisson) lines.push(`    ${poisson.caption.slice(name.length + 2)}`, ...poisson.rows.map(([k, v]) => `      ${k}: ${v}`));
+    lines.push(...threeLevelLines(o));
   }
   return lines;
 }

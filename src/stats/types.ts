@@ -2,6 +2,7 @@ import type { LogisticNullModel } from './logistic-null-model.js';
 import type { PoissonFit } from './poisson-null-model.js';
 import type { PooledDispersion } from './pooled-dispersion.js';
 import type { SlopeMomentEstimate } from './slope-moment-estimate.js';
+import type { ThreeLevelModel } from './three-level-model.js';
 
 /** Sufficient statistics of one group for one numeric variable. */
 export interface GroupMoments {
@@ -53,6 +54,8 @@ export interface OutcomeStats {
   slopes?: Record<string, SlopeMomentEstimate>;
   /** outcomes declared `count` only: the random-intercept Poisson null model and its checks */
   poisson?: PoissonOutcome;
+  /** with a parent declared: the three-level null model (groups within parents) */
+  threeLevel?: ThreeLevelStats;
 }
 
 /** A count outcome: the Poisson null model (ML, adaptive Gauss–Hermite), its latent ICC, dispersion and zeros. */
@@ -65,4 +68,10 @@ export interface PoissonOutcome extends PoissonFit {
   zeros: { observed: number; expected: number };
   /** records whose value is not a whole number ≥ 0 (the model is then not fitted: its fields are NaN) */
   nonCounts: number;
+}
+
+/** The three-level null model of an outcome and the groups it had to leave out. */
+export interface ThreeLevelStats extends ThreeLevelModel {
+  /** groups under more than one parent, or none: not in the fit */
+  excludedGroups: number;
 }

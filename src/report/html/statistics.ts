@@ -2,6 +2,7 @@ import { escapeHtml as e } from '../escape-html.js';
 import { poissonTable } from '../poisson-table.js';
 import { slopesTable } from '../slopes-table.js';
 import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from '../stat-tables.js';
+import { threeLevelTables } from '../three-level-table.js';
 import type { Report } from '../types.js';
 import { statTableHtml } from './stat-table.js';
 
@@ -43,6 +44,7 @@ export function statisticsHtml(report: Report, svgs: ChartSvgs): string {
       '<div class="tables">',
       statTableHtml(componentsTable(name, o)),
       statTableHtml(anovaTable(name, o)),
+      ...threeLevelTables(name, o).map(statTableHtml),
       '</div>',
     );
     out.push(

@@ -1,5 +1,6 @@
 import { finiteDouble, ident, literal } from '../sql.js';
 import type { Source } from '../types.js';
+import { columnValueStats, screenColumns } from './column-pairs.js';
 import { modalValueSql } from './modal-value.js';
 import { crossTabs, extremeShares, valueFrequencies } from './outcome-tables.js';
 import type { Lookup, UnitIdSummary } from './types.js';
@@ -8,6 +9,8 @@ import { unitIdSummary } from './unit-ids.js';
 
 export { normalizedIdQuery, normalizeId } from './normalize-id.js';
 export type {
+  ColumnScreen,
+  ColumnValueStats,
   CrossTabCell,
   ExtremeShares,
   Lookup,
@@ -25,6 +28,8 @@ export function createLookup(source: Source, group: string): Lookup {
   const inList = (ids: readonly string[]) => `(${ids.map(literal).join(', ')})`;
   const unitCache = new Map<string, Promise<UnitIdSummary>>();
   return {
+    screenColumns: (columns) => screenColumns(source, group, columns),
+    columnValueStats: (columns, outcomes) => columnValueStats(source, group, columns, outcomes),
     async rowsMissingGroup(limit = EXAMPLE_LIMIT) {
       const rows = await source.all<{ __rec: bigint }>(
         `SELECT __rec FROM ${source.numbered} WHERE ${g} IS NULL ORDER BY __rec LIMIT ${limit}`,

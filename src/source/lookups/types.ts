@@ -38,6 +38,10 @@ export interface Lookup {
   crossTabs(outcome: string, predictors: readonly string[], maxLevels: number): Promise<CrossTabCell[]>;
   /** records at the floor and at the ceiling of a numeric column, overall and in the `top` groups where each share is largest */
   extremeShares(column: string, bounds: { lower: number; upper: number }, top: number): Promise<ExtremeShares>;
+  /** per column: distinct values, non-missing values, groups with a value, values not whole numbers (one aggregate) */
+  screenColumns(columns: readonly string[]): Promise<ColumnScreen[]>;
+  /** per value of each column: its groups and the outcomes' moments (one query; bound it by the screen's counts) */
+  columnValueStats(columns: readonly string[], outcomes: readonly string[]): Promise<ColumnValueStats[]>;
 }
 
 export interface ValueFrequencies {
@@ -63,6 +67,25 @@ export interface ExtremeShares {
   records: number;
   floor: { count: number; groups: { group: string; records: number; count: number }[] };
   ceiling: { count: number; groups: { group: string; records: number; count: number }[] };
+}
+
+/** What one aggregate says of a column before its values are grouped. */
+export interface ColumnScreen {
+  column: string;
+  /** distinct values */
+  values: number;
+  nonMissing: number;
+  /** groups in which it has a value */
+  groups: number;
+  /** values that are not whole numbers (a column read as numbers; 0 for text) */
+  fractional: number;
+}
+
+/** One value of a column: how many groups it occurs in, and each outcome's moments among its records. */
+export interface ColumnValueStats {
+  column: string;
+  groups: number;
+  outcomes: { n: number; mean: number; ss: number }[];
 }
 
 /** A unit ID that needs a look: repeated, in several groups, or one of several spellings. */

@@ -1,0 +1,139 @@
+import { seededUniform } from './seeded-uniform.js';
+
+/** Whether group size goes with the group mean of the outcome. */
+export interface InformativeSize {
+  /** Pearson correlation of n_j with ȳ_j over the groups */
+  correlation: number;
+  /** record-weighted mean Σ n_j ȳ_j / N minus group-weighted mean Σ ȳ_j / J */
+  gap: number;
+  /** two-sided permutation p-value of the gap (sizes permuted over groups) */
+  p: number;
+  /** permutations drawn, or J! when every one was enumerated */
+  permutations: number;
+  exact: boolean;
+}
+
+/**
+ * The difference between the record-weighted and the group-weighted mean of group means,
+ * Σ n_j ȳ_j / N − Σ ȳ_j / J = Σ (n_j/N − 1/J) ȳ_j: zero in expectation when size says nothing
+ * about the outcome; otherwise the average record and the average group differ (informative
+ * cluster size). Source: Kahan, B. C., Li, F., Copas, A. J., & Harhay, M. O. (2023). Estimands in
+ * cluster-randomized trials: choosing analyses that answer the right question. *International
+ * Journal of Epidemiology*, 52(1), 107–118.
+ *
+ * @param sizes n_j
+ * @param means ȳ_j
+ */
+export function weightingGap(sizes: readonly number[] | Float64Array, means: readonly number[]): number {
+  let total = 0;
+  for (const n of sizes) total += n;
+  let gap = 0;
+  for (let j = 0; j < sizes.length; j++) gap += (sizes[j] / total - 1 / sizes.length) * means[j];
+  return gap;
+}
+
+/**
+ * Pearson's correlation of group size with group mean.
+ * Source: Pearson (1896); any statistics text, e.g. Snedecor & Cochran (1989), *Statistical
+ * Methods* (8th ed.), §10.
+ *
+ * @param sizes n_j
+ * @param means ȳ_j
+ * @returns r, NaN when either varies not at all
+ */
+export function sizeMeanCorrelation(sizes: readonly number[], means: readonly number[]): number {
+  const count = sizes.length;
+  let mx = 0;
+  let my = 0;
+  for (let j = 0; j < count; j++) {
+    mx += sizes[j] / count;
+    my += means[j] / count;
+  }
+  let sxy = 0;
+  let sxx = 0;
+  let syy = 0;
+  for (let j = 0; j < count; j++) {
+    sxy += (sizes[j] - mx) * (means[j] - my);
+    sxx += (sizes[j] - mx) ** 2;
+    syy += (means[j] - my) ** 2;
+  }
+  return sxx > 0 && syy > 0 ? sxy / Math.sqrt(sxx * syy) : NaN;
+}
+
+/**
+ * Permutation test of informative group size: the sizes are permuted over the groups and the
+ * weighting gap recomputed; since Σ n_j, Σ n_j², Σ ȳ_j and Σ ȳ_j² do not change under a
+ * permutation, the gap and the size–mean correlation give the same test. With J! no larger than
+ * `permutations` every permutation is enumerated (exact p = share with |gap| ≥ observed);
+ * otherwise p = (1 + hits)/(1 + B) from B seeded random permutations (Phipson & Smyth 2010,
+ * *Stat. Appl. Genet. Mol. Biol.* 9(1), art. 39: never 0). Source: Good (2005), *Permutation,
+ * Parametric and Bootstrap Tests of Hypotheses* (3rd ed.), ch. 3; Kahan et al. (2023), above.
+ *
+ * @param sizes n_j (J ≥ 2)
+ * @param means ȳ_j
+ * @param options random permutations to draw and the generator's seed
+ */
+export function informativeSize(
+  sizes: readonly number[],
+  means: readonly number[],
+  options: { permutations: number; seed: number },
+): InformativeSize {
+  const observed = Math.abs(weightingGap(sizes, means));
+  // permuted gaps equal to the observed one but for rounding count as at least as large
+  const bar = observed * (1 - 1e-9);
+  const count = sizes.length;
+  const correlation = sizeMeanCorrelation(sizes, means);
+  const shuffled = Float64Array.from(sizes);
+  if (factorialAtMost(count, options.permutations)) {
+    let hits = 0;
+    let total = 0;
+    permute(shuffled, count, () => {
+      total++;
+      if (Math.abs(weightingGap(shuffled, means)) >= bar) hits++;
+    });
+    return { correlation, gap: weightingGap(sizes, means), p: hits / total, permutations: total, exact: true };
+  }
+  const random = seededUniform(options.seed);
+  let hits = 0;
+  for (let b = 0; b < options.permutations; b++) {
+    for (let j = count - 1; j > 0; j--) {
+      const k = Math.floor(random() * (j + 1));
+      const t = shuffled[j];
+      shuffled[j] = shuffled[k];
+      shuffled[k] = t;
+    }
+    if (Math.abs(weightingGap(shuffled, means)) >= bar) hits++;
+  }
+  return {
+    correlation,
+    gap: weightingGap(sizes, means),
+    p: (1 + hits) / (1 + options.permutations),
+    permutations: options.permutations,
+    exact: false,
+  };
+}
+
+function factorialAtMost(n: number, limit: number): boolean {
+  let f = 1;
+  for (let k = 2; k <= n; k++) {
+    f *= k;
+    if (f > limit) return false;
+  }
+  return true;
+}
+
+/** Every ordering of a[0 … k − 1] in turn (Heap's algorithm, Heap 1963, *Comput. J.* 6(3)). */
+function permute(a: Float64Array, k: number, visit: () => void): void {
+  if (k <= 1) {
+    visit();
+    return;
+  }
+  for (let i = 0; i < k - 1; i++) {
+    permute(a, k - 1, visit);
+    const j = k % 2 === 0 ? i : 0;
+    const t = a[j];
+    a[j] = a[k - 1];
+    a[k - 1] = t;
+  }
+  permute(a, k - 1, visit);
+}
