@@ -5,9 +5,10 @@ import { stagedLayout } from '../../formats/staged.js';
 import type { OpenOptions, Source } from '../../types.js';
 import type { DuckLayout } from '../duckdb/layout.js';
 import { duckSource } from '../duckdb/views.js';
-import { detectPicked } from './detect.js';
+import { binaryPicked, detectPicked } from './detect.js';
 import { wasmHost } from './host.js';
 import { stageJson } from './json.js';
+import { stageParquet } from './parquet.js';
 import type { PickedFile } from './picked.js';
 import { gunzip, pageTextFiles, prepare } from './picked.js';
 import type { WasmDatabase } from './types.js';
@@ -29,11 +30,12 @@ export async function openPicked(
 ): Promise<Source> {
   const display = picked.name;
   if (picked.bytes.length === 0) throw new InputError(`${display}: the file is empty (no header, no records)`);
+  const missing = [...new Set(['', ...options.missing])];
+  if (binaryPicked(display, picked.bytes) === 'parquet') return openParquet(db, picked, roles, missing);
   const file = await prepare(picked).catch((e: unknown) => {
     throw e instanceof InputError ? new InputError(`${display}: ${e.message}`) : e;
   });
   const detected = detectPicked(display, file.head);
-  const missing = [...new Set(['', ...options.missing])];
   const registered = `${DELIVERY}.${detected.format}${file.gzip ? '.gz' : ''}`;
   const files: string[] = [];
   const host = await wasmHost(db, files);
@@ -72,5 +74,24 @@ export async function openPicked(
     throw new InputError(
       `${display}: cannot read as ${detected.format.toUpperCase()} (${String((e as Error)?.message ?? e).split('\n')[0]})`,
     );
+  }
+}
+
+/** Parquet, decoded in the page and staged (parquet.ts), behind the same views. */
+async function openParquet(db: WasmDatabase, picked: PickedFile, roles: Roles, missing: string[]): Promise<Source> {
+  const host = await wasmHost(db, []);
+  try {
+    const staging = await db.connect();
+    let columns: { name: string; type: string }[];
+    try {
+      columns = await stageParquet(staging, picked.name, picked.bytes);
+    } finally {
+      await staging.close();
+    }
+    return await duckSource(host, stagedLayout(picked.name, 'parquet', columns, roles, missing, []), roles, missing);
+  } catch (e) {
+    await host.close();
+    if (e instanceof InputError) throw e;
+    throw new InputError(`${picked.name}: cannot read as Parquet (${String((e as Error)?.message ?? e).split('\n')[0]})`);
   }
 }
