@@ -127,11 +127,12 @@ describe.skipIf(!available)("the sender's page in a real browser", () => {
     expect(await frame?.evaluate(() => document.querySelector('h1')?.textContent)).toBe('repairs-delivery.csv');
   }, 120_000);
 
-  it('reads JSON and Parquet deliveries as the command line does, and names Excel as not read here', async () => {
+  it('reads JSON, Parquet and Arrow deliveries as the command line does, and names Excel as not read here', async () => {
     await compare('fixtures/formats/repairs.ndjson', demoRoles);
     // decoded in the page (hyparquet) and staged with the types DuckDB's Parquet reader gives
     const { json } = await compare('fixtures/formats/repairs.parquet', demoRoles);
     expect(json.findings.length).toBeGreaterThan(5);
+    await compare('fixtures/formats/repairs-zstd.arrows', demoRoles);
     const excel = await check('fixtures/formats/repairs.xlsx');
     expect(excel).toEqual({
       state: 'error',

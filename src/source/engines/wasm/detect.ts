@@ -5,22 +5,19 @@ import { delimiterHint } from '../../formats/delimiter-hint.js';
 export type PageFormat = 'csv' | 'tsv' | 'json' | 'ndjson';
 
 /** Binary formats the page decodes itself (parquet.ts), recognised before any text is looked at. */
-export type PageBinaryFormat = 'parquet';
+export type PageBinaryFormat = 'parquet' | 'arrow';
 
 const BINARY: { format: PageBinaryFormat; magic: (b: Uint8Array) => boolean; extensions: string[] }[] = [
   { format: 'parquet', magic: (b) => latin1(b, 0, 4) === 'PAR1', extensions: ['parquet', 'pq'] },
-];
-
-/**
- * Formats the command line reads that the page cannot: the Arrow and Excel readers read files
- * from disk.
- */
-const ELSEWHERE: { name: string; magic: (b: Uint8Array) => boolean; extensions: string[] }[] = [
   {
-    name: 'Arrow',
+    format: 'arrow',
     magic: (b) => latin1(b, 0, 6) === 'ARROW1' || (b.length >= 4 && b[0] === 0xff && b[1] === 0xff && b[2] === 0xff && b[3] === 0xff),
     extensions: ['arrow', 'arrows', 'feather', 'ipc'],
   },
+];
+
+/** Formats the command line reads that the page cannot: the Excel reader reads files from disk. */
+const ELSEWHERE: { name: string; magic: (b: Uint8Array) => boolean; extensions: string[] }[] = [
   { name: 'Excel', magic: (b) => latin1(b, 0, 4) === 'PK\x03\x04', extensions: ['xlsx'] },
 ];
 
@@ -70,7 +67,7 @@ export function detectPicked(name: string, head: Uint8Array): PageDetected {
   const other = ELSEWHERE.find((f) => f.magic(head)) ?? ELSEWHERE.find((f) => f.extensions.includes(ext));
   if (other) {
     throw new InputError(
-      `${name}: ${other.name} files cannot be read in this page; save the delivery as CSV (or JSON, Parquet) and pick that`,
+      `${name}: ${other.name} files cannot be read in this page; save the delivery as CSV (or JSON, Parquet, Arrow) and pick that`,
     );
   }
   let text = new TextDecoder().decode(head.subarray(0, 65536));

@@ -5,6 +5,8 @@ import { stagedLayout } from '../../formats/staged.js';
 import type { OpenOptions, Source } from '../../types.js';
 import type { DuckLayout } from '../duckdb/layout.js';
 import { duckSource } from '../duckdb/views.js';
+import { stageArrow } from './arrow.js';
+import type { PageBinaryFormat } from './detect.js';
 import { binaryPicked, detectPicked } from './detect.js';
 import { wasmHost } from './host.js';
 import { stageJson } from './json.js';
@@ -31,7 +33,8 @@ export async function openPicked(
   const display = picked.name;
   if (picked.bytes.length === 0) throw new InputError(`${display}: the file is empty (no header, no records)`);
   const missing = [...new Set(['', ...options.missing])];
-  if (binaryPicked(display, picked.bytes) === 'parquet') return openParquet(db, picked, roles, missing);
+  const binary = binaryPicked(display, picked.bytes);
+  if (binary) return openBinary(db, picked, binary, roles, missing);
   const file = await prepare(picked).catch((e: unknown) => {
     throw e instanceof InputError ? new InputError(`${display}: ${e.message}`) : e;
   });
@@ -77,21 +80,28 @@ export async function openPicked(
   }
 }
 
-/** Parquet, decoded in the page and staged (parquet.ts), behind the same views. */
-async function openParquet(db: WasmDatabase, picked: PickedFile, roles: Roles, missing: string[]): Promise<Source> {
+/** Parquet and Arrow IPC, decoded in the page and staged (parquet.ts, arrow.ts), behind the same views. */
+async function openBinary(
+  db: WasmDatabase,
+  picked: PickedFile,
+  format: PageBinaryFormat,
+  roles: Roles,
+  missing: string[],
+): Promise<Source> {
   const host = await wasmHost(db, []);
   try {
     const staging = await db.connect();
     let columns: { name: string; type: string }[];
     try {
-      columns = await stageParquet(staging, picked.name, picked.bytes);
+      columns = await (format === 'parquet' ? stageParquet : stageArrow)(staging, picked.name, picked.bytes);
     } finally {
       await staging.close();
     }
-    return await duckSource(host, stagedLayout(picked.name, 'parquet', columns, roles, missing, []), roles, missing);
+    return await duckSource(host, stagedLayout(picked.name, format, columns, roles, missing, []), roles, missing);
   } catch (e) {
     await host.close();
     if (e instanceof InputError) throw e;
-    throw new InputError(`${picked.name}: cannot read as Parquet (${String((e as Error)?.message ?? e).split('\n')[0]})`);
+    const kind = format === 'parquet' ? 'Parquet' : 'Arrow IPC';
+    throw new InputError(`${picked.name}: cannot read as ${kind} (${String((e as Error)?.message ?? e).split('\n')[0]})`);
   }
 }
