@@ -127,12 +127,16 @@ describe.skipIf(!available)("the sender's page in a real browser", () => {
     expect(await frame?.evaluate(() => document.querySelector('h1')?.textContent)).toBe('repairs-delivery.csv');
   }, 120_000);
 
-  it('reads a JSON delivery as the command line does, and names Parquet as not read here', async () => {
+  it('reads JSON, Parquet and Arrow deliveries as the command line does, and names Excel as not read here', async () => {
     await compare('fixtures/formats/repairs.ndjson', demoRoles);
-    const parquet = await check('fixtures/formats/repairs.parquet');
-    expect(parquet).toEqual({
+    // decoded in the page (hyparquet) and staged with the types DuckDB's Parquet reader gives
+    const { json } = await compare('fixtures/formats/repairs.parquet', demoRoles);
+    expect(json.findings.length).toBeGreaterThan(5);
+    await compare('fixtures/formats/repairs-zstd.arrows', demoRoles);
+    const excel = await check('fixtures/formats/repairs.xlsx');
+    expect(excel).toEqual({
       state: 'error',
-      status: expect.stringMatching(/^repairs\.parquet: Parquet files cannot be read in this page/),
+      status: expect.stringMatching(/^repairs\.xlsx: Excel files cannot be read in this page/),
     });
   }, 120_000);
 

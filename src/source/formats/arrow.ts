@@ -1,28 +1,12 @@
 import { open } from 'node:fs/promises';
-import type { Field } from 'apache-arrow';
-import { DataType, RecordBatchReader } from 'apache-arrow';
+import { RecordBatchReader } from 'apache-arrow';
 import { InputError } from '../../errors.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
+import { isTemporal, stagedType, toValue } from './arrow-cells.js';
 import { registerArrowCodecs } from './arrow-codecs.js';
 import type { ReadContext } from './registry.js';
 import type { StagedColumn, StagedValue } from './staged.js';
 import { Stager, stagedLayout } from './staged.js';
-
-function stagedType(f: Field): StagedColumn['type'] {
-  return DataType.isInt(f.type) || DataType.isFloat(f.type) ? 'DOUBLE' : 'VARCHAR';
-}
-
-function toValue(v: unknown, type: StagedColumn['type'], temporal: boolean): StagedValue {
-  if (v === null || v === undefined) return null;
-  if (type === 'DOUBLE') return typeof v === 'bigint' ? Number(v) : (v as number);
-  if (typeof v === 'string') return v;
-  // dates and timestamps come as epoch milliseconds (or Date): written as ISO text, as a CSV holds them
-  if (v instanceof Date || (temporal && (typeof v === 'number' || typeof v === 'bigint'))) {
-    const iso = new Date(v instanceof Date ? v.getTime() : Number(v)).toISOString();
-    return iso.endsWith('T00:00:00.000Z') ? iso.slice(0, 10) : iso;
-  }
-  return String(v);
-}
 
 /**
  * Arrow IPC (file or stream format): DuckDB has no Arrow reader built in here, so record
@@ -41,7 +25,7 @@ export async function arrowLayout({ engine, file, display, roles, missing }: Rea
       throw new InputError(`${display}: cannot read as Arrow IPC (${(e as Error).message.split('\n')[0]})`);
     }
     const columns: StagedColumn[] = reader.schema.fields.map((f) => ({ name: f.name, type: stagedType(f) }));
-    const temporal = reader.schema.fields.map((f) => DataType.isDate(f.type) || DataType.isTimestamp(f.type));
+    const temporal = reader.schema.fields.map(isTemporal);
     const stager = new Stager(engine, columns);
     await stager.open();
     try {

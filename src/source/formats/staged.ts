@@ -60,7 +60,7 @@ export class Stager {
 export function stagedLayout(
   display: string,
   format: SourceFormat,
-  columns: StagedColumn[],
+  columns: readonly { name: string; type: string }[],
   roles: Roles,
   missing: readonly string[],
   rejected: RejectedLine[],

@@ -4,20 +4,37 @@ import { delimiterHint } from '../../formats/delimiter-hint.js';
 /** The formats the page reads (see README, "The sender's page"). */
 export type PageFormat = 'csv' | 'tsv' | 'json' | 'ndjson';
 
-/**
- * Formats the command line reads that the page cannot: DuckDB-WASM has no Parquet or JSON
- * reader of its own (they are extensions it would fetch from elsewhere, which the page never
- * does), and the Arrow and Excel readers read files from disk.
- */
-const ELSEWHERE: { name: string; magic: (b: Uint8Array) => boolean; extensions: string[] }[] = [
-  { name: 'Parquet', magic: (b) => latin1(b, 0, 4) === 'PAR1', extensions: ['parquet', 'pq'] },
+/** Binary formats the page decodes itself (parquet.ts), recognised before any text is looked at. */
+export type PageBinaryFormat = 'parquet' | 'arrow';
+
+const BINARY: { format: PageBinaryFormat; magic: (b: Uint8Array) => boolean; extensions: string[] }[] = [
+  { format: 'parquet', magic: (b) => latin1(b, 0, 4) === 'PAR1', extensions: ['parquet', 'pq'] },
   {
-    name: 'Arrow',
+    format: 'arrow',
     magic: (b) => latin1(b, 0, 6) === 'ARROW1' || (b.length >= 4 && b[0] === 0xff && b[1] === 0xff && b[2] === 0xff && b[3] === 0xff),
     extensions: ['arrow', 'arrows', 'feather', 'ipc'],
   },
+];
+
+/** Formats the command line reads that the page cannot: the Excel reader reads files from disk. */
+const ELSEWHERE: { name: string; magic: (b: Uint8Array) => boolean; extensions: string[] }[] = [
   { name: 'Excel', magic: (b) => latin1(b, 0, 4) === 'PK\x03\x04', extensions: ['xlsx'] },
 ];
+
+function extension(name: string): string {
+  const lower = name.toLowerCase().replace(/\.gz$/, '');
+  return lower.includes('.') ? lower.slice(lower.lastIndexOf('.') + 1) : '';
+}
+
+/**
+ * A binary format the page decodes itself, by its magic number, else by the name's extension
+ * (as formats/detect.ts decides): such a file is never looked at as text (line ends untouched).
+ */
+export function binaryPicked(name: string, bytes: Uint8Array): PageBinaryFormat | undefined {
+  const byMagic = BINARY.find((f) => f.magic(bytes));
+  if (byMagic || ELSEWHERE.some((f) => f.magic(bytes))) return byMagic?.format;
+  return BINARY.find((f) => f.extensions.includes(extension(name)))?.format;
+}
 
 const EXTENSIONS: Record<string, PageFormat> = {
   csv: 'csv',
@@ -46,11 +63,12 @@ export interface PageDetected {
  * @throws InputError for a format the page cannot read
  */
 export function detectPicked(name: string, head: Uint8Array): PageDetected {
-  const lower = name.toLowerCase().replace(/\.gz$/, '');
-  const ext = lower.includes('.') ? lower.slice(lower.lastIndexOf('.') + 1) : '';
+  const ext = extension(name);
   const other = ELSEWHERE.find((f) => f.magic(head)) ?? ELSEWHERE.find((f) => f.extensions.includes(ext));
   if (other) {
-    throw new InputError(`${name}: ${other.name} files cannot be read in this page; save the delivery as CSV (or JSON) and pick that`);
+    throw new InputError(
+      `${name}: ${other.name} files cannot be read in this page; save the delivery as CSV (or JSON, Parquet, Arrow) and pick that`,
+    );
   }
   let text = new TextDecoder().decode(head.subarray(0, 65536));
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);

@@ -27,14 +27,24 @@ export async function stageJson(con: WasmConnection, name: string, text: string,
     name: n,
     type: records.every((r) => r[n] === null || r[n] === undefined || typeof r[n] === 'number') ? 'DOUBLE' : 'VARCHAR',
   }));
-  const vectors = Object.fromEntries(
-    columns.map((c) => {
-      const values = records.map((r) => cell(r[c.name], c.type));
-      return [c.name, c.type === 'DOUBLE' ? vectorFromArray(values, new Float64()) : vectorFromArray(values, new Utf8())];
-    }),
+  await insertStaged(
+    con,
+    columns,
+    columns.map((c) => records.map((r) => cell(r[c.name], c.type))),
+    true,
   );
-  await con.insertArrowFromIPCStream(tableToIPC(new Table(vectors), 'stream'), { name: 'nr_staged', create: true });
   return columns;
+}
+
+/** Append staged values (one array per column) to nr_staged as Arrow, creating it first if asked. */
+export async function insertStaged(con: WasmConnection, columns: StagedColumn[], values: StagedValue[][], create: boolean): Promise<void> {
+  const vectors = Object.fromEntries(
+    columns.map((c, i) => [
+      c.name,
+      c.type === 'DOUBLE' ? vectorFromArray(values[i], new Float64()) : vectorFromArray(values[i], new Utf8()),
+    ]),
+  );
+  await con.insertArrowFromIPCStream(tableToIPC(new Table(vectors), 'stream'), { name: 'nr_staged', create });
 }
 
 function cell(v: unknown, type: StagedColumn['type']): StagedValue {

@@ -5,9 +5,12 @@ import { stagedLayout } from '../../formats/staged.js';
 import type { OpenOptions, Source } from '../../types.js';
 import type { DuckLayout } from '../duckdb/layout.js';
 import { duckSource } from '../duckdb/views.js';
-import { detectPicked } from './detect.js';
+import { stageArrow } from './arrow.js';
+import type { PageBinaryFormat } from './detect.js';
+import { binaryPicked, detectPicked } from './detect.js';
 import { wasmHost } from './host.js';
 import { stageJson } from './json.js';
+import { stageParquet } from './parquet.js';
 import type { PickedFile } from './picked.js';
 import { gunzip, pageTextFiles, prepare } from './picked.js';
 import type { WasmDatabase } from './types.js';
@@ -29,11 +32,13 @@ export async function openPicked(
 ): Promise<Source> {
   const display = picked.name;
   if (picked.bytes.length === 0) throw new InputError(`${display}: the file is empty (no header, no records)`);
+  const missing = [...new Set(['', ...options.missing])];
+  const binary = binaryPicked(display, picked.bytes);
+  if (binary) return openBinary(db, picked, binary, roles, missing);
   const file = await prepare(picked).catch((e: unknown) => {
     throw e instanceof InputError ? new InputError(`${display}: ${e.message}`) : e;
   });
   const detected = detectPicked(display, file.head);
-  const missing = [...new Set(['', ...options.missing])];
   const registered = `${DELIVERY}.${detected.format}${file.gzip ? '.gz' : ''}`;
   const files: string[] = [];
   const host = await wasmHost(db, files);
@@ -72,5 +77,31 @@ export async function openPicked(
     throw new InputError(
       `${display}: cannot read as ${detected.format.toUpperCase()} (${String((e as Error)?.message ?? e).split('\n')[0]})`,
     );
+  }
+}
+
+/** Parquet and Arrow IPC, decoded in the page and staged (parquet.ts, arrow.ts), behind the same views. */
+async function openBinary(
+  db: WasmDatabase,
+  picked: PickedFile,
+  format: PageBinaryFormat,
+  roles: Roles,
+  missing: string[],
+): Promise<Source> {
+  const host = await wasmHost(db, []);
+  try {
+    const staging = await db.connect();
+    let columns: { name: string; type: string }[];
+    try {
+      columns = await (format === 'parquet' ? stageParquet : stageArrow)(staging, picked.name, picked.bytes);
+    } finally {
+      await staging.close();
+    }
+    return await duckSource(host, stagedLayout(picked.name, format, columns, roles, missing, []), roles, missing);
+  } catch (e) {
+    await host.close();
+    if (e instanceof InputError) throw e;
+    const kind = format === 'parquet' ? 'Parquet' : 'Arrow IPC';
+    throw new InputError(`${picked.name}: cannot read as ${kind} (${String((e as Error)?.message ?? e).split('\n')[0]})`);
   }
 }
