@@ -16,7 +16,6 @@ import { PRESETS } from './presets/index.js';
 import { problemsCsv } from './problems/csv.js';
 import { DEFAULT_MAX_ROWS } from './problems/types.js';
 import { catalogueJson, catalogueMarkdown, catalogueText } from './report/catalogue.js';
-import type { ReportFormat } from './report/render.js';
 import { needsPlotData, REPORT_FORMAT_TABLE, REPORT_FORMATS, renderReport } from './report/render.js';
 import { loadRoles } from './roles/load-file.js';
 import { roleMapSchema } from './roles/schema.js';
@@ -31,28 +30,9 @@ const CATALOGUE_FORMATS = { text: catalogueText, json: catalogueJson, md: catalo
 const OUT_EXTENSIONS = REPORT_FORMATS.map((f) => `${REPORT_FORMAT_TABLE[f].extensions.join(' ')} ${f}`).join(', ');
 const FAIL_ON = { blocker: true, warning: true, never: true } satisfies Record<FailOn, true>;
 
+/** Every `audit` flag: the batch reads the same (src/batch/wants.ts), the colour is the command line's. */
 interface AuditFlags extends BatchFlags {
-  roles: string;
-  preset?: PresetName;
-  format: ReportFormat;
-  out: string[];
-  withPlotData?: boolean;
-  problems?: string;
-  maxRows: number;
-  quiet?: boolean;
-  failOn: FailOn;
-  values: boolean;
   color?: boolean;
-  memoryLimit: string;
-  inputFormat?: InputFormat;
-  encoding?: Encoding;
-  sheet?: string;
-  decimalComma?: boolean;
-  source?: string;
-  table?: string;
-  query?: string;
-  strict?: boolean;
-  baseline?: string;
 }
 
 type CompareFlags = Pick<AuditFlags, 'roles' | 'preset' | 'format' | 'out' | 'quiet' | 'failOn' | 'values' | 'color' | 'memoryLimit'>;

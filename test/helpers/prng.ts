@@ -1,14 +1,5 @@
 /**
  * mulberry32, the seeded generator scripts/synth.js uses too: tests that simulate deliveries
- * are fixed by their seed.
+ * are fixed by their seed. The same generator the permutation tests use (src/stats/seeded-uniform.ts).
  */
-export function mulberry32(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { seededUniform as mulberry32 } from '../../src/stats/seeded-uniform.js';
