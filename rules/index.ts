@@ -15,7 +15,9 @@ import missingByGroup from './missing-by-group.js';
 import missingGroupId from './missing-group-id.js';
 import missingUnitId from './missing-unit-id.js';
 import nonNumericValues from './non-numeric-values.js';
+import occasionsPerPerson from './occasions-per-person.js';
 import outcomeConstantWithin from './outcome-constant-within.js';
+import plannedEffectPrecision from './planned-effect-precision.js';
 import predictorBetweenShare from './predictor-between-share.js';
 import sentinelValues from './sentinel-values.js';
 import singletonGroups from './singleton-groups.js';
@@ -25,6 +27,7 @@ import undeclaredLevel2 from './undeclared-level2.js';
 import unitInSeveralGroups from './unit-in-several-groups.js';
 import unreadableLines from './unreadable-lines.js';
 import variableWithoutStatistics from './variable-without-statistics.js';
+import weightsAudit from './weights-audit.js';
 
 /** The built-in catalogue, alphabetical by id (a test checks it against the files in rules/). */
 export const catalogue: readonly AnyRule[] = [
@@ -44,7 +47,9 @@ export const catalogue: readonly AnyRule[] = [
   missingGroupId,
   missingUnitId,
   nonNumericValues,
+  occasionsPerPerson,
   outcomeConstantWithin,
+  plannedEffectPrecision,
   predictorBetweenShare,
   sentinelValues,
   singletonGroups,
@@ -54,4 +59,5 @@ export const catalogue: readonly AnyRule[] = [
   unitInSeveralGroups,
   unreadableLines,
   variableWithoutStatistics,
+  weightsAudit,
 ];

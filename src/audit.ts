@@ -1,6 +1,7 @@
 import { catalogue as builtIn } from '../rules/index.js';
 import { buildPlotData } from './analysis/plot-data.js';
 import { plotThresholds } from './analysis/plot-thresholds.js';
+import { addPrecision } from './analysis/precision.js';
 import { rulesRun } from './analysis/rules-run.js';
 import { InputError, readError } from './errors.js';
 import { grade } from './grade.js';
@@ -98,6 +99,7 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
       );
     }
     const outcomes = outcomeStatistics(profile, roles);
+    addPrecision(outcomes, profile, roles, catalogue);
     // the plots' data needs no finding: it is computed while the rules' look-ups run, and both
     // are let finish before an error is passed on (none may be left querying a closed source)
     const [ran, plotted] = await Promise.allSettled([

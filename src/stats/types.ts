@@ -1,4 +1,5 @@
 import type { LogisticNullModel } from './logistic-null-model.js';
+import type { EffectPrecision } from './planned-precision.js';
 
 /** Sufficient statistics of one group for one numeric variable. */
 export interface GroupMoments {
@@ -46,4 +47,6 @@ export interface OutcomeStats {
   meanReliability: number;
   /** 0/1 outcomes only: the random-intercept logistic null model (ML, adaptive Gauss–Hermite) */
   logistic?: LogisticNullModel;
+  /** with `detect` in the role map: the MDES (and power) for the planned level-2 predictor */
+  precision?: EffectPrecision;
 }

@@ -1,11 +1,13 @@
 import { finiteDouble, ident, literal } from '../sql.js';
 import type { Source } from '../types.js';
 import { modalValueSql } from './modal-value.js';
+import { occasionSummary } from './occasions.js';
 import type { Lookup, UnitIdSummary } from './types.js';
 import { EXAMPLE_LIMIT } from './types.js';
 import { unitIdSummary } from './unit-ids.js';
 
 export { normalizedIdQuery, normalizeId } from './normalize-id.js';
+export type { Occasion, OccasionSummary } from './occasions.js';
 export type { Lookup, ParentSubset, UnitIdExample, UnitIdSummary, ValueCounts } from './types.js';
 export { EXAMPLE_LIMIT } from './types.js';
 
@@ -113,6 +115,7 @@ export function createLookup(source: Source, group: string): Lookup {
       );
       return rows.map((r) => Number(r.__rec));
     },
+    occasions: (time, outcome) => occasionSummary(source, group, time, outcome),
     async parentSubsets(parent, groups, columns) {
       if (!groups.length) return [];
       const p = ident(parent);

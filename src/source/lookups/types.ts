@@ -1,3 +1,5 @@
+import type { OccasionSummary } from './occasions.js';
+
 /** How many example rows or groups a finding lists (shared/design.md: first 20). */
 export const EXAMPLE_LIMIT = 20;
 
@@ -32,6 +34,8 @@ export interface Lookup {
   rowsWithValue(column: string, value: number, limit?: number): Promise<number[]>;
   /** per (group, parent) pair in `groups`: records and, per column, whether it is constant and its value */
   parentSubsets(parent: string, groups: readonly string[], columns: readonly string[]): Promise<ParentSubset[]>;
+  /** longitudinal data, the group being the person: occasions per person and the pattern of the missing ones (one query) */
+  occasions(time: string, outcome?: string): Promise<OccasionSummary>;
 }
 
 /** A unit ID that needs a look: repeated, in several groups, or one of several spellings. */
