@@ -5,7 +5,7 @@ import { formatNumber } from '../src/util/format.js';
 
 interface Params {
   design_effect_above: number;
-  effective_size_below: number;
+  effective_share_below: number;
 }
 
 /** Sampling weights checked before a weighted multilevel fit: their form, their values and what they cost. */
@@ -29,13 +29,14 @@ export default defineRule<Params>({
           default: 1.5,
           description: 'note when Kish’s weighting design effect 1 + CV² exceeds this (common practice)',
         },
-        effective_size_below: {
+        effective_share_below: {
           type: 'number',
           minimum: 0,
-          default: 5,
+          maximum: 1,
+          default: 0.5,
           description:
-            'note groups whose Kish effective size of level-1 weights is below this (common practice; the small-group line of ' +
-            'Clarke 2008)',
+            'note groups whose Kish effective size of level-1 weights is below this share of their records: a few weights carry ' +
+            'the group (common practice)',
         },
       },
       additionalProperties: false,
@@ -64,7 +65,7 @@ export default defineRule<Params>({
         fix: 'No change to the delivery; expect wider intervals than the raw counts suggest, and check the weights’ trimming with the sender',
       },
       smallEffective: {
-        message: '{column}: {count} groups have a Kish effective size of level-1 weights below {limit}',
+        message: '{column}: in {count} groups the Kish effective size of the level-1 weights is below {limit} of their records',
         fix:
           'No change to the delivery; scaled weights in these groups rest on few effective records (Carle 2009 advises comparing ' +
           'both scalings, see the report’s weights section)',
@@ -84,7 +85,6 @@ export default defineRule<Params>({
         'Society B, 60(1), 23–40: conditional level-1 weights and their scaling within groups',
       'Carle, A. C. (2009). Fitting multilevel models in complex survey data with design weights: recommendations. BMC Medical ' +
         'Research Methodology, 9, 49: scale to the group size and to the effective group size, compare both',
-      'Clarke, P. (2008). When can group level clustering be ignored? Journal of Epidemiology and Community Health, 62(8), 752–758',
     ],
   },
   check({ profile, roles, params }) {
@@ -138,7 +138,7 @@ export default defineRule<Params>({
         data: { column: c.column, deff: formatNumber(c.deff, 2), effective: formatNumber(c.effective, 1), n: c.n, unit: c.unit },
       });
     }
-    const small = w1?.groups.filter((g) => g.effectiveSize < params.effective_size_below) ?? [];
+    const small = w1?.groups.filter((g) => g.effectiveSize < params.effective_share_below * g.n) ?? [];
     if (w1 && small.length) {
       out.push({
         messageId: 'smallEffective',
@@ -146,7 +146,7 @@ export default defineRule<Params>({
         column: w1.column,
         count: small.length,
         groups: small.map((g) => g.group),
-        data: { column: w1.column, count: small.length, limit: params.effective_size_below },
+        data: { column: w1.column, count: small.length, limit: `${formatNumber(100 * params.effective_share_below, 0)}%` },
       });
     }
     if (w1 && w2 && form?.form === 'total') {

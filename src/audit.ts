@@ -1,8 +1,10 @@
 import { catalogue as builtIn } from '../rules/index.js';
+import { fitAdvice } from './analysis/fit-advice.js';
 import { buildPlotData } from './analysis/plot-data.js';
 import { plotThresholds } from './analysis/plot-thresholds.js';
 import { addPrecision } from './analysis/precision.js';
 import { rulesRun } from './analysis/rules-run.js';
+import { weightsAudit } from './analysis/weights.js';
 import { InputError, readError } from './errors.js';
 import { grade } from './grade.js';
 import { buildProfile, loadArquero } from './profile/build.js';
@@ -109,6 +111,7 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
     if (ran.status === 'rejected') throw ran.reason;
     if (plotted.status === 'rejected') throw plotted.reason;
     const [findings, plots] = [ran.value, plotted.value];
+    const groups = groupSummary(profile);
     return {
       schema: REPORT_SCHEMA,
       tool: TOOL,
@@ -121,9 +124,11 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
         ...(source.notes?.length && { notes: [...source.notes] }),
       },
       roles,
-      groups: groupSummary(profile),
+      groups,
       outcomes,
       findings,
+      fitAdvice: fitAdvice({ roles, groups: groups.count, meanSize: groups.sizes.mean, outcomes, findings }),
+      ...(roles.weights && { weights: weightsAudit(profile, roles) }),
       ...grade(findings),
       ...(plots && { plots }),
       rulesRun: rulesRun(catalogue, roles),

@@ -8,6 +8,21 @@ import type { EffectPrecision } from '../stats/planned-precision.js';
 import { plannedPrecision, shiftedTPower } from '../stats/planned-precision.js';
 import type { OutcomeStats } from '../stats/types.js';
 
+/**
+ * Each group's value of a level-2 predictor: its mean when it reads as numbers, else its one text
+ * value (null where the group has none, or several).
+ */
+function groupValues(profile: Profile, column: string): (j: number) => number | string | null {
+  if (profile.column(column).numericProfiled) {
+    const n = groupStat(profile.groups, column, 'numericCount');
+    const mean = groupStat(profile.groups, column, 'mean');
+    return (j) => (n[j] ? (mean[j] as number) : null);
+  }
+  const lo = groupStat(profile.groups, column, 'textMin');
+  const hi = groupStat(profile.groups, column, 'textMax');
+  return (j) => (lo[j] !== null && lo[j] === hi[j] ? lo[j] : null);
+}
+
 /** The test's settings (the planned-effect-precision rule's params). */
 export interface PrecisionSettings {
   alpha: number;
@@ -29,22 +44,23 @@ export function effectPrecision(
   settings: PrecisionSettings,
 ): EffectPrecision | undefined {
   const detect = roles.detect;
-  if (!detect || !profile.column(detect.predictor).numericProfiled) return undefined;
+  if (!detect) return undefined;
+  const read = groupValues(profile, detect.predictor);
   const yCount = groupStat(profile.groups, outcome, 'numericCount');
-  const xCount = groupStat(profile.groups, detect.predictor, 'numericCount');
-  const xMean = groupStat(profile.groups, detect.predictor, 'mean');
   const sizes: number[] = [];
-  const values: number[] = [];
+  const values: (number | string)[] = [];
   for (let j = 0; j < yCount.length; j++) {
-    if (!yCount[j] || !xCount[j]) continue;
+    const v = read(j);
+    if (!yCount[j] || v === null) continue;
     sizes.push(yCount[j]);
-    values.push(xMean[j] as number);
+    values.push(v);
   }
   if (sizes.length < 3) return undefined;
-  const distinct = [...new Set(values)];
-  if (distinct.length < 2) return undefined;
+  const distinct = [...new Set(values)].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0));
   const binary = distinct.length === 2;
-  const high = Math.max(...distinct);
+  // a text predictor with more than two values has no single contrast to plan for
+  if (distinct.length < 2 || (!binary && typeof distinct[0] === 'string')) return undefined;
+  const high = distinct[distinct.length - 1];
   const share = binary ? values.filter((v) => v === high).length / values.length : undefined;
   const spread = clusterSizeVariation(sizes);
   const design = {
