@@ -62,7 +62,9 @@ export default defineRule<Params>({
         message:
           '{column}: unequal weighting alone inflates the variance of a mean by {deff} (Kish 1 + CV²), an effective {effective} of ' +
           '{n} {unit}; guidance, not a defect',
-        fix: 'No change to the delivery; expect wider intervals than the raw counts suggest, and check the weights’ trimming with the sender',
+        fix:
+          'No change to the delivery; expect wider intervals than the raw counts suggest, and check the weights’ trimming with ' +
+          'the sender',
       },
       smallEffective: {
         message: '{column}: in {count} groups the Kish effective size of the level-1 weights is below {limit} of their records',

@@ -53,7 +53,8 @@ const SOURCES = {
     'Moerbeek, M. (2004). The consequence of ignoring a level of nesting in multilevel analysis. Multivariate Behavioral ' +
     'Research, 39(1), 129–149',
   enders:
-    'Enders, C. K., & Tofighi, D. (2007). Centering predictor variables in cross-sectional multilevel models. Psychological Methods, 12(2), 121–138',
+    'Enders, C. K., & Tofighi, D. (2007). Centering predictor variables in cross-sectional multilevel models. Psychological ' +
+    'Methods, 12(2), 121–138',
   rb: 'Raudenbush, S. W., & Bryk, A. S. (2002). Hierarchical Linear Models (2nd ed.). Sage, ch. 9',
   weights:
     'Pfeffermann, D., et al. (1998). Journal of the Royal Statistical Society B, 60(1), 23–40; Carle, A. C. (2009). BMC Medical ' +

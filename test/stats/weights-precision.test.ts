@@ -49,7 +49,15 @@ describe('MDES of a level-2 predictor and power', () => {
     expect(unequal.mdes).toBeCloseTo(0.3749293595, 8);
     expect(unequal.mdesEqual).toBeCloseTo(0.3462653146, 8);
     // (ρ .2, J 12, n 8, P .25, power .9, cv .3): df 10, M 3.600322493, de 2.544, MDES 1.353516968
-    const small = plannedPrecision({ icc: 0.2, groups: 12, meanSize: 8, sizeCv: 0.3, predictorVariance: 0.25 * 0.75, alpha: 0.05, power: 0.9 });
+    const small = plannedPrecision({
+      icc: 0.2,
+      groups: 12,
+      meanSize: 8,
+      sizeCv: 0.3,
+      predictorVariance: 0.25 * 0.75,
+      alpha: 0.05,
+      power: 0.9,
+    });
     expect(small.multiplier).toBeCloseTo(3.600322493, 7);
     expect(small.mdes).toBeCloseTo(1.353516968, 7);
   });
