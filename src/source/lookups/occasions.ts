@@ -60,15 +60,17 @@ export async function occasionSummary(source: Source, group: string, time: strin
   const d = source.dialect;
   const number = (column: string) => (source.storage.get(column) === 'double' ? finiteDouble(ident(column)) : d.numeric(ident(column)));
   const y = outcome === undefined ? 'CAST(NULL AS DOUBLE PRECISION)' : number(outcome);
-  const sql = `WITH r AS (SELECT g, t, y FROM (SELECT ${ident(group)} AS g, ${number(time)} AS t, ${y} AS y FROM ${source.view} AS v) AS s
-      WHERE g IS NOT NULL AND t IS NOT NULL${outcome === undefined ? '' : ' AND y IS NOT NULL'}),
-    o AS (SELECT t, dense_rank() OVER (ORDER BY t) AS k FROM (SELECT DISTINCT t FROM r) AS u),
-    kk AS (SELECT count(*) AS kk FROM o),
-    pt AS (SELECT r.g, o.k, avg(r.y) AS y FROM r JOIN o ON r.t = o.t GROUP BY r.g, o.k),
+  // each CTE is read by several of the scalar subqueries below: MATERIALIZED makes both engines
+  // compute it once instead of once per reader (the records are read once, into the person × time table)
+  const sql = `WITH pt0 AS MATERIALIZED (SELECT g, t, avg(y) AS y FROM (SELECT ${ident(group)} AS g, ${number(time)} AS t, ${y} AS y
+      FROM ${source.view} AS v) AS s WHERE g IS NOT NULL AND t IS NOT NULL${outcome === undefined ? '' : ' AND y IS NOT NULL'} GROUP BY g, t),
+    o AS MATERIALIZED (SELECT t, dense_rank() OVER (ORDER BY t) AS k FROM (SELECT DISTINCT t FROM pt0) AS u),
+    kk AS MATERIALIZED (SELECT count(*) AS kk FROM o),
+    pt AS MATERIALIZED (SELECT pt0.g, o.k, pt0.t, pt0.y FROM pt0 JOIN o ON pt0.t = o.t),
     p AS (SELECT g, count(*) AS c, min(k) AS lo, max(k) AS hi FROM pt GROUP BY g),
-    cls AS (SELECT p.g, p.c, p.lo, p.hi, CASE WHEN p.c = kk.kk THEN 'complete' WHEN p.hi - p.lo + 1 > p.c THEN 'gap'
+    cls AS MATERIALIZED (SELECT p.g, p.c, p.lo, p.hi, CASE WHEN p.c = kk.kk THEN 'complete' WHEN p.hi - p.lo + 1 > p.c THEN 'gap'
       WHEN p.lo = 1 THEN 'dropout' ELSE 'late' END AS pattern FROM p CROSS JOIN kk),
-    occ AS (SELECT o.k, o.t, count(*) AS persons,
+    occ AS MATERIALIZED (SELECT o.k, o.t, count(*) AS persons,
       count(*) FILTER (WHERE cls.pattern = 'complete') AS nc,
       sum(pt.y) FILTER (WHERE cls.pattern = 'complete') AS sc,
       sum(pt.y * pt.y) FILTER (WHERE cls.pattern = 'complete') AS qc,
@@ -85,7 +87,7 @@ export async function occasionSummary(source: Source, group: string, time: strin
     (SELECT count(*) FROM cls WHERE pattern = 'dropout') AS dropout,
     (SELECT count(*) FROM cls WHERE pattern = 'gap') AS gap,
     (SELECT count(*) FROM cls WHERE pattern = 'late') AS late,
-    (SELECT count(DISTINCT g) FROM r WHERE t = 0) AS at_zero,
+    (SELECT count(*) FROM pt WHERE t = 0) AS at_zero,
     (SELECT ${d.firstValues(d.text('g'), d.ordered(d.text('g')), EXAMPLE_LIMIT)} FROM cls WHERE pattern = 'gap') AS gap_ids,
     (SELECT ${d.firstValues('t', 'k', MAX_OCCASIONS)} FROM occ) AS occ_t,
     (SELECT ${d.firstValues('persons', 'k', MAX_OCCASIONS)} FROM occ) AS occ_persons,
