@@ -39,6 +39,13 @@ describe('planned-effect-precision on High School and Beyond (sector, 160 school
     expect(p?.power).toBeCloseTo(0.774586133, 5);
   });
 
+  it('--no-values leaves the category (a value of the delivery) out', async () => {
+    const r = await auditRows(HSB, hsbRoles({ predictor: 'sector' }), { plotData: false, includeValues: false });
+    expect(r.outcomes.mathach.precision).not.toHaveProperty('category');
+    expect(r.outcomes.mathach.precision?.mdes).toBeCloseTo(0.2064445175, 6);
+    expect(onlyFinding(r, 'planned-effect-precision').messageId).toBe('mdes');
+  });
+
   it('an effect of 0.2 SD is underpowered: a warning naming the power and the MDES', () => {
     const f = onlyFinding(report, 'planned-effect-precision');
     expect(f.severity).toBe('warning');

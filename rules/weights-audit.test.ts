@@ -57,6 +57,15 @@ describe('weights-audit', () => {
     expectMessage(byId(report, 'designEffect') as NonNullable<ReturnType<typeof byId>>, 'designEffect', { deff: deff.toFixed(2) });
   });
 
+  it('--no-values leaves the smallest weights out of the report and the finding', async () => {
+    const r = await auditRows(planted(), roles, { plotData: false, includeValues: false });
+    expect(r.weights?.level1).not.toHaveProperty('min');
+    expect(r.weights?.level2).not.toHaveProperty('min');
+    expect(r.weights?.level1?.designEffect).toBeCloseTo(report.weights?.level1?.designEffect ?? 0, 12);
+    expect(byId(r, 'nonPositive')?.values).toBeUndefined();
+    expect(report.weights?.level1?.min).toBe(0);
+  });
+
   it('total level-1 weights (group weight × conditional) are flagged, as a heuristic', async () => {
     const rows = groupedRows(10, 4, (j, i) => ({ y: i + (j % 2), w1: (j + 1) * 2 * (1 + (i % 2) * 0.2), w2: (j + 1) * 2 }));
     const r = await auditRows(rows, roles, { plotData: false });

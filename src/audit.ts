@@ -1,5 +1,6 @@
 import { catalogue as builtIn } from '../rules/index.js';
 import { fitAdvice } from './analysis/fit-advice.js';
+import { withoutPlanValues } from './analysis/plan-values.js';
 import { buildPlotData } from './analysis/plot-data.js';
 import { plotThresholds } from './analysis/plot-thresholds.js';
 import { addPrecision } from './analysis/precision.js';
@@ -112,6 +113,8 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
     if (plotted.status === 'rejected') throw plotted.reason;
     const [findings, plots] = [ran.value, plotted.value];
     const groups = groupSummary(profile);
+    const audited = roles.weights && weightsAudit(profile, roles);
+    const weights = options.includeValues === false ? withoutPlanValues(outcomes, audited) : audited;
     return {
       schema: REPORT_SCHEMA,
       tool: TOOL,
@@ -128,7 +131,7 @@ export async function audit(input: AuditInput, roleMap: LoadedRoles | Roles, opt
       outcomes,
       findings,
       fitAdvice: fitAdvice({ roles, groups: groups.count, meanSize: groups.sizes.mean, outcomes, findings }),
-      ...(roles.weights && { weights: weightsAudit(profile, roles) }),
+      ...(weights && { weights }),
       ...grade(findings),
       ...(plots && { plots }),
       rulesRun: rulesRun(catalogue, roles),

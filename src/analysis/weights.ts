@@ -28,7 +28,8 @@ export interface Level1Weights {
   missing: number;
   /** groups holding a weight ≤ 0 (all of them, by ID) */
   nonPositiveGroups: string[];
-  min: number | null;
+  /** the smallest weight (a raw value: left out with --no-values) */
+  min?: number | null;
   /** Kish's weighting design effect over all records, 1 + CV² */
   designEffect: number;
   /** Kish effective number of records */
@@ -47,7 +48,8 @@ export interface Level2Weights {
   /** groups whose weight is not one value (all of them, by ID) */
   varyingGroups: string[];
   nonPositiveGroups: string[];
-  min: number | null;
+  /** the smallest group weight (a raw value: left out with --no-values) */
+  min?: number | null;
   /** Kish's weighting design effect over the groups, one weight each */
   designEffect: number;
   /** Kish effective number of groups */

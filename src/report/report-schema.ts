@@ -81,7 +81,7 @@ const weights = {
     level1: {
       type: 'object',
       additionalProperties: false,
-      required: ['column', 'records', 'missing', 'nonPositiveGroups', 'min', 'designEffect', 'effectiveN', 'groups'],
+      required: ['column', 'records', 'missing', 'nonPositiveGroups', 'designEffect', 'effectiveN', 'groups'],
       properties: {
         column: text,
         records: count,
@@ -104,7 +104,7 @@ const weights = {
     level2: {
       type: 'object',
       additionalProperties: false,
-      required: ['column', 'groups', 'missing', 'varyingGroups', 'nonPositiveGroups', 'min', 'designEffect', 'effectiveGroups'],
+      required: ['column', 'groups', 'missing', 'varyingGroups', 'nonPositiveGroups', 'designEffect', 'effectiveGroups'],
       properties: {
         column: text,
         groups: count,
