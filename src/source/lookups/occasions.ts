@@ -62,8 +62,9 @@ export async function occasionSummary(source: Source, group: string, time: strin
   const y = outcome === undefined ? 'CAST(NULL AS DOUBLE PRECISION)' : number(outcome);
   // each CTE is read by several of the scalar subqueries below: MATERIALIZED makes both engines
   // compute it once instead of once per reader (the records are read once, into the person × time table)
+  const observed = outcome === undefined ? '' : ' AND y IS NOT NULL';
   const sql = `WITH pt0 AS MATERIALIZED (SELECT g, t, avg(y) AS y FROM (SELECT ${ident(group)} AS g, ${number(time)} AS t, ${y} AS y
-      FROM ${source.view} AS v) AS s WHERE g IS NOT NULL AND t IS NOT NULL${outcome === undefined ? '' : ' AND y IS NOT NULL'} GROUP BY g, t),
+      FROM ${source.view} AS v) AS s WHERE g IS NOT NULL AND t IS NOT NULL${observed} GROUP BY g, t),
     o AS MATERIALIZED (SELECT t, dense_rank() OVER (ORDER BY t) AS k FROM (SELECT DISTINCT t FROM pt0) AS u),
     kk AS MATERIALIZED (SELECT count(*) AS kk FROM o),
     pt AS MATERIALIZED (SELECT pt0.g, o.k, pt0.t, pt0.y FROM pt0 JOIN o ON pt0.t = o.t),
