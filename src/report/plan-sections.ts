@@ -66,31 +66,19 @@ function precisionTable(name: string, o: OutcomeStats): StatTable {
 function weightsTables(report: Report): StatTable[] {
   const w = report.weights;
   if (!w) return [];
+  const row = (level: string, column: string, n: number, missing: number, deff: number, effective: number, nonPositive: number) => [
+    level,
+    column,
+    String(n),
+    String(missing),
+    f(deff, 3),
+    f(effective, 1),
+    String(nonPositive),
+  ];
   const rows: string[][] = [];
-  if (w.level1) {
-    const l = w.level1;
-    rows.push([
-      'level 1',
-      l.column,
-      String(l.records),
-      String(l.missing),
-      f(l.designEffect, 3),
-      f(l.effectiveN, 1),
-      String(l.nonPositiveGroups.length),
-    ]);
-  }
-  if (w.level2) {
-    const l = w.level2;
-    rows.push([
-      'level 2',
-      l.column,
-      String(l.groups),
-      String(l.missing),
-      f(l.designEffect, 3),
-      f(l.effectiveGroups, 1),
-      String(l.nonPositiveGroups.length),
-    ]);
-  }
+  const [l1, l2] = [w.level1, w.level2];
+  if (l1) rows.push(row('level 1', l1.column, l1.records, l1.missing, l1.designEffect, l1.effectiveN, l1.nonPositiveGroups.length));
+  if (l2) rows.push(row('level 2', l2.column, l2.groups, l2.missing, l2.designEffect, l2.effectiveGroups, l2.nonPositiveGroups.length));
   const tables: StatTable[] = [
     {
       caption: 'Weights: Kish design effect of weighting (1 + CV²) and effective size',
