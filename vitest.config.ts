@@ -6,5 +6,8 @@ export default defineConfig({
     testTimeout: 60_000,
     hookTimeout: 60_000,
     pool: 'forks',
+    // vitest's default is one worker fewer than the cores: one on CI's two. Most test files wait on
+    // a child process, DuckDB or the browser, so two at once keep both cores busy
+    maxWorkers: 2,
   },
 });

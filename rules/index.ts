@@ -23,8 +23,10 @@ import missingByGroup from './missing-by-group.js';
 import missingGroupId from './missing-group-id.js';
 import missingUnitId from './missing-unit-id.js';
 import nonNumericValues from './non-numeric-values.js';
+import occasionsPerPerson from './occasions-per-person.js';
 import outcomeConstantWithin from './outcome-constant-within.js';
 import outlyingGroups from './outlying-groups.js';
+import plannedEffectPrecision from './planned-effect-precision.js';
 import predictorBetweenShare from './predictor-between-share.js';
 import sentinelValues from './sentinel-values.js';
 import singletonGroups from './singleton-groups.js';
@@ -36,6 +38,7 @@ import undeclaredLevel2 from './undeclared-level2.js';
 import unitInSeveralGroups from './unit-in-several-groups.js';
 import unreadableLines from './unreadable-lines.js';
 import variableWithoutStatistics from './variable-without-statistics.js';
+import weightsAudit from './weights-audit.js';
 import withinBetweenGap from './within-between-gap.js';
 
 /** The built-in catalogue, alphabetical by id (a test checks it against the files in rules/). */
@@ -51,8 +54,8 @@ export const catalogue: readonly AnyRule[] = [
   groupsPerLevel2Predictor,
   hiddenLevel,
   idVariants,
-  interceptVarianceAtZero,
   informativeGroupSize,
+  interceptVarianceAtZero,
   level1ConstantWithin,
   level1VarianceHeterogeneity,
   level2Collinearity,
@@ -64,8 +67,10 @@ export const catalogue: readonly AnyRule[] = [
   missingGroupId,
   missingUnitId,
   nonNumericValues,
+  occasionsPerPerson,
   outcomeConstantWithin,
   outlyingGroups,
+  plannedEffectPrecision,
   predictorBetweenShare,
   sentinelValues,
   singletonGroups,
@@ -77,5 +82,6 @@ export const catalogue: readonly AnyRule[] = [
   unitInSeveralGroups,
   unreadableLines,
   variableWithoutStatistics,
+  weightsAudit,
   withinBetweenGap,
 ];

@@ -1,11 +1,15 @@
 import { changeCatalogue } from '../changes/index.js';
 import { catalogue as builtIn } from '../rules/index.js';
 import { countOutcome } from './analysis/count-outcome.js';
+import { fitAdvice } from './analysis/fit-advice.js';
+import { withoutPlanValues } from './analysis/plan-values.js';
 import { buildPlotData } from './analysis/plot-data.js';
 import { plotThresholds } from './analysis/plot-thresholds.js';
+import { addPrecision } from './analysis/precision.js';
 import { rulesRun } from './analysis/rules-run.js';
 import { slopeStatistics } from './analysis/slopes.js';
 import { threeLevelOf } from './analysis/three-level.js';
+import { weightsAudit } from './analysis/weights.js';
 import { measure } from './compare/measure.js';
 import { withChanges } from './compare/run-changes.js';
 import type { AnyChangeRule, Baseline } from './compare/types.js';
@@ -90,6 +94,7 @@ export async function auditSource(source: Source, roleMap: LoadedRoles | Roles, 
     }
     const outcomes = outcomeStatistics(profile, roles);
     await kindModels(profile, roles, outcomes, lookup);
+    addPrecision(outcomes, profile, roles, catalogue);
     // the plots' data needs no finding: it is computed while the rules' look-ups run, and both
     // are let finish before an error is passed on (none may be left querying a closed source)
     const [ran, plotted] = await Promise.allSettled([
@@ -100,6 +105,9 @@ export async function auditSource(source: Source, roleMap: LoadedRoles | Roles, 
     if (plotted.status === 'rejected') throw plotted.reason;
     const [findings, plots] = [ran.value, plotted.value];
     const includeValues = options.includeValues ?? true;
+    const groups = groupSummary(profile);
+    const audited = roles.weights && weightsAudit(profile, roles);
+    const weights = includeValues ? audited : withoutPlanValues(outcomes, audited);
     const measured =
       options.snapshot || options.baseline ? await measure(source, profile, roles, { ...options, includeValues }) : undefined;
     const report: Report = {
@@ -114,9 +122,11 @@ export async function auditSource(source: Source, roleMap: LoadedRoles | Roles, 
         ...(source.notes?.length && { notes: [...source.notes] }),
       },
       roles,
-      groups: groupSummary(profile),
+      groups,
       outcomes,
       findings,
+      fitAdvice: fitAdvice({ roles, groups: groups.count, meanSize: groups.sizes.mean, outcomes, findings }),
+      ...(weights && { weights }),
       ...grade(findings),
       ...(plots && { plots }),
       rulesRun: rulesRun(catalogue, roles),

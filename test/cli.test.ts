@@ -25,7 +25,7 @@ function expectUsageError(run: Run): string {
 const DEMO = 'fixtures/demo';
 const delivery = [`${DEMO}/repairs-delivery.csv`, '-r', `${DEMO}/repairs-delivery.roles.yaml`];
 const clean = [`${DEMO}/repairs-clean.csv`, '-r', `${DEMO}/repairs-clean.roles.yaml`];
-const STABLE_KEYS = ['schema', 'tool', 'input', 'roles', 'groups', 'outcomes', 'findings', 'score', 'grade', 'verdict'];
+const STABLE_KEYS = ['schema', 'tool', 'input', 'roles', 'groups', 'outcomes', 'findings', 'fitAdvice', 'score', 'grade', 'verdict'];
 
 /** A run several tests read: started once, on first use. */
 const shared = new Map<string, Promise<Run>>();

@@ -16,6 +16,7 @@ import { classify } from './classify.js';
 import { missingCandidates } from './missing-codes.js';
 import { count } from './numbers.js';
 import type { Choice, DraftPlan } from './plan.js';
+import { apartFromWeights, planKeys } from './plan-keys.js';
 import type { CandidateEvidence } from './rank.js';
 import { candidateEvidence, rankCandidates } from './rank.js';
 import { writeDraft } from './write.js';
@@ -114,7 +115,9 @@ async function draftBy(source: Source, options: DraftOptions, { census, names, u
   }
   const unit = unitColumn && unitDistinct ? unitChoice(unitColumn, await unitDistinct, census) : undefined;
   const roles = profilingRoles(source.header, chosen.column, unit?.column);
-  const levels = classify({ census, chosen, profile, candidates: evidence, unit });
+  const classified = classify({ census, chosen, profile, candidates: evidence, unit });
+  const keys = planKeys(census, profile, classified);
+  const levels = { ...apartFromWeights(classified, keys), ...keys };
   const plan: DraftPlan = {
     input: path,
     rows: census.rows,

@@ -22,6 +22,12 @@ export interface DraftPlan {
   /** numeric columns that vary within groups: the analyst picks the outcome (written commented out) */
   outcomes: Choice[];
   types: (Choice & { type: ValueType })[];
+  /** the time of longitudinal data, proposed commented out */
+  time?: Choice;
+  /** sampling weight candidates by level, proposed commented out (taken out of level1/level2) */
+  weights: (Choice & { level: 'level1' | 'level2' })[];
+  /** outcome candidates of non-negative whole numbers: `types: count`, proposed commented out */
+  counts: Choice[];
   /** columns left out (no values to judge by) */
   left: Choice[];
   missing: { defaults: string[]; candidates: MissingCandidate[] };

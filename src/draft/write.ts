@@ -38,6 +38,7 @@ export function writeDraft(plan: DraftPlan): string {
   out.push(...list('level2', plan.level2, 'level-2 variables: constant within (almost) every group'));
   out.push(...list('level1', plan.level1, 'level-1 variables: vary within groups'));
   out.push(...outcomes(plan));
+  out.push(...modelPlan(plan));
   out.push(...types(plan));
   out.push(...missing(plan));
   if (plan.left.length) {
@@ -64,8 +65,27 @@ function outcomes(plan: DraftPlan): string[] {
 }
 
 function types(plan: DraftPlan): string[] {
-  if (!plan.types.length) return [];
-  return ['types:', ...lines(plan.types.map((t) => [`  ${scalar(t.column)}: ${t.type}`, t.evidence])), ''];
+  // under a written `types:` a commented entry; without one, the whole block is a comment
+  const indent = plan.types.length ? '  # ' : '#   ';
+  const counts: [string, string][] = plan.counts.map((c) => [`${indent}${scalar(c.column)}: count`, c.evidence]);
+  if (!plan.types.length && !counts.length) return [];
+  const head = plan.types.length ? ['types:'] : ['# types:'];
+  return [...head, ...lines([...plan.types.map((t): [string, string] => [`  ${scalar(t.column)}: ${t.type}`, t.evidence]), ...counts]), ''];
+}
+
+/** The model the analyst plans, as far as the data suggest it: time and weights, commented out. */
+function modelPlan(plan: DraftPlan): string[] {
+  const out: string[] = [];
+  if (plan.time) {
+    out.push('# The occasion of longitudinal data (the group being the person)? Uncomment the line below if it is one.');
+    out.push(...lines([[`# time: ${scalar(plan.time.column)}`, plan.time.evidence]]), '');
+  }
+  if (plan.weights.length) {
+    out.push('# Sampling weight candidates, kept out of level1/level2: uncomment the block, one column per level, if they are weights.');
+    out.push('# weights:');
+    out.push(...lines(plan.weights.map((w) => [`#   ${w.level}: ${scalar(w.column)}`, w.evidence])), '');
+  }
+  return out;
 }
 
 function missing(plan: DraftPlan): string[] {

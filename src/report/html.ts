@@ -5,6 +5,7 @@ import type { Chart } from './charts/types.js';
 import { escapeHtml as e } from './escape-html.js';
 import { bySeverity } from './finding-parts.js';
 import { findingsHtml } from './html/findings.js';
+import { planHtml } from './html/plan.js';
 import type { ChartSvgs } from './html/statistics.js';
 import { statisticsHtml } from './html/statistics.js';
 import { STYLES } from './html/styles.js';
@@ -62,6 +63,7 @@ ${verdictHtml(report)}
 <nav class="toc" aria-label="Contents"><ul>${tocItems(report)}</ul></nav>
 ${findingsHtml(report)}
 ${statisticsHtml(report, svgs)}
+${planHtml(report)}
 </main>
 <footer class="wrap">
 <p>${e(THRESHOLD_CAVEAT)}</p>

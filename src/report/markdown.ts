@@ -2,6 +2,7 @@ import { SEVERITIES, SEVERITY_ACTION, SEVERITY_WORD } from '../severity.js';
 import { bySeverity, listed, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, VERDICT_HEADLINE, verdictSentence } from './labels.js';
 import { mdText as m, mdHeading, mdLine } from './md-escape.js';
+import { planSections } from './plan-sections.js';
 import { poissonTable } from './poisson-table.js';
 import { readingLines } from './reading.js';
 import { slopesTable } from './slopes-table.js';
@@ -72,8 +73,14 @@ export function renderMarkdown(report: Report): string {
   }
   const predictors = predictorsTable(report);
   if (predictors) out.push('### Level-1 predictors', '', ...table(predictors));
+  out.push(...planMarkdown(report));
   out.push('---', '', `_${m(THRESHOLD_CAVEAT)}_`, '', `${mdLine(report.tool.name)} ${m(report.tool.version)} (${m(report.schema)})`);
   return `${out.join('\n')}\n`;
+}
+
+/** The plan's sections (precision, weights, how to fit), each under its own heading. */
+function planMarkdown(report: Report): string[] {
+  return planSections(report).flatMap((s) => [`## ${s.heading}`, '', ...(s.note ? [m(s.note), ''] : []), ...s.tables.flatMap(table)]);
 }
 
 function table(t: StatTable): string[] {

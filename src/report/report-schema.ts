@@ -14,6 +14,119 @@ const components = {
   properties: { tau2: stat, sigma2: stat, icc: stat, mean: stat, logLik: stat },
 } as const;
 
+/** outcomes.<name>.precision: the MDES (and power) for the planned level-2 predictor */
+const precision = {
+  type: 'object',
+  additionalProperties: false,
+  required: [
+    'predictor',
+    'kind',
+    'groups',
+    'meanSize',
+    'sizeCv',
+    'icc',
+    'alpha',
+    'targetPower',
+    'df',
+    'multiplier',
+    'designEffect',
+    'mdesEqual',
+    'mdes',
+  ],
+  properties: {
+    predictor: text,
+    kind: { enum: ['binary', 'continuous'] },
+    category: text,
+    share: stat,
+    groups: count,
+    meanSize: stat,
+    sizeCv: stat,
+    icc: stat,
+    alpha: stat,
+    targetPower: stat,
+    df: stat,
+    multiplier: stat,
+    designEffect: stat,
+    mdesEqual: stat,
+    mdes: stat,
+    effectSize: stat,
+    power: stat,
+  },
+} as const;
+
+/** the "how to fit" section */
+const fitAdvice = {
+  type: 'object',
+  additionalProperties: false,
+  required: ['note', 'items'],
+  properties: {
+    note: text,
+    items: {
+      type: 'array',
+      items: {
+        type: 'object',
+        additionalProperties: false,
+        required: ['topic', 'advice', 'because', 'source'],
+        properties: { topic: text, advice: text, because: text, source: text, rules: texts },
+      },
+    },
+  },
+} as const;
+
+const groupList = { ...texts, description: 'group IDs (all of them)' } as const;
+
+/** weights: Kish figures and the per-group factors of the two usual scalings of level-1 weights */
+const weights = {
+  type: 'object',
+  additionalProperties: false,
+  properties: {
+    level1: {
+      type: 'object',
+      additionalProperties: false,
+      required: ['column', 'records', 'missing', 'nonPositiveGroups', 'designEffect', 'effectiveN', 'groups'],
+      properties: {
+        column: text,
+        records: count,
+        missing: count,
+        nonPositiveGroups: groupList,
+        min: stat,
+        designEffect: stat,
+        effectiveN: stat,
+        groups: {
+          type: 'array',
+          items: {
+            type: 'object',
+            additionalProperties: false,
+            required: ['group', 'n', 'sum', 'effectiveSize', 'sizeScale', 'effectiveScale'],
+            properties: { group: text, n: count, sum: stat, effectiveSize: stat, sizeScale: stat, effectiveScale: stat },
+          },
+        },
+      },
+    },
+    level2: {
+      type: 'object',
+      additionalProperties: false,
+      required: ['column', 'groups', 'missing', 'varyingGroups', 'nonPositiveGroups', 'designEffect', 'effectiveGroups'],
+      properties: {
+        column: text,
+        groups: count,
+        missing: count,
+        varyingGroups: groupList,
+        nonPositiveGroups: groupList,
+        min: stat,
+        designEffect: stat,
+        effectiveGroups: stat,
+      },
+    },
+    form: {
+      type: 'object',
+      additionalProperties: false,
+      required: ['form', 'correlation', 'atLeastGroupWeight', 'groups'],
+      properties: { form: { enum: ['conditional', 'total', 'unclear'] }, correlation: stat, atLeastGroupWeight: stat, groups: count },
+    },
+  },
+} as const;
+
 /**
  * JSON Schema of the report `--format json` writes (its stable fields; `--with-plot-data` adds
  * `plots` and `rulesRun`, which it leaves open). In a finding, `rule`, `messageId` and the keys of
@@ -146,6 +259,7 @@ export const reportSchema = {
           designEffect: stat,
           effectiveN: stat,
           meanReliability: stat,
+          precision,
           logistic: {
             type: 'object',
             additionalProperties: false,
@@ -240,6 +354,8 @@ export const reportSchema = {
         },
       },
     },
+    fitAdvice,
+    weights,
     score: { type: 'integer', minimum: 0, maximum: 100 },
     grade: { enum: ['A', 'B', 'C', 'D', 'F'] },
     verdict: { enum: ['ready', 'caveats', 'not-ready'] },

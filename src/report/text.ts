@@ -6,6 +6,7 @@ import { SEVERITIES, SEVERITY_ACTION, SEVERITY_SHAPE, SEVERITY_WORD } from '../s
 import { formatNumber, pClause } from '../util/format.js';
 import { bySeverity, listed, origin, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, verdictSentence } from './labels.js';
+import { planTextLines } from './plan-text.js';
 import { poissonTable } from './poisson-table.js';
 import { readingLines } from './reading.js';
 import { threeLevelLines } from './three-level-table.js';
@@ -52,6 +53,7 @@ export function renderText(report: Report, options: TextOptions): string {
   }
   if (!report.findings.length) out.push(tone.ok('No findings: every rule that ran passed.'), '');
   out.push(...statisticsLines(report, c));
+  out.push(...planTextLines(report, c));
   out.push('');
   out.push(tone.dim(THRESHOLD_CAVEAT));
   return `${out.join('\n')}\n`;

@@ -1,4 +1,6 @@
+import type { FitAdvice } from '../analysis/fit-advice.js';
 import type { PlotData, RuleRun } from '../analysis/types.js';
+import type { WeightsAudit } from '../analysis/weights.js';
 import type { Grade, Verdict } from '../grade.js';
 import type { Roles } from '../roles/types.js';
 import type { Finding } from '../rules/types.js';
@@ -21,6 +23,10 @@ export interface Report {
   groups: { count: number; singletons: number; sizes: { min: number; median: number; mean: number; max: number } };
   outcomes: Record<string, OutcomeStats>;
   findings: Finding[];
+  /** the "how to fit" section: estimation advice with sources (guidance; absent in reports built by hand) */
+  fitAdvice?: FitAdvice;
+  /** with `weights` in the role map: Kish figures and, per group, the factors of the two usual scalings */
+  weights?: WeightsAudit;
   score: number;
   grade: Grade;
   verdict: Verdict;

@@ -1,4 +1,5 @@
 import type { LogisticNullModel } from './logistic-null-model.js';
+import type { EffectPrecision } from './planned-precision.js';
 import type { PoissonFit } from './poisson-null-model.js';
 import type { PooledDispersion } from './pooled-dispersion.js';
 import type { SlopeMomentEstimate } from './slope-moment-estimate.js';
@@ -56,6 +57,8 @@ export interface OutcomeStats {
   poisson?: PoissonOutcome;
   /** with a parent declared: the three-level null model (groups within parents) */
   threeLevel?: ThreeLevelStats;
+  /** with `detect` in the role map: the MDES (and power) for the planned level-2 predictor */
+  precision?: EffectPrecision;
 }
 
 /** A count outcome: the Poisson null model (ML, adaptive Gauss–Hermite), its latent ICC, dispersion and zeros. */

@@ -3,8 +3,8 @@ import { PENDING, PENDING_CHECKS } from './classes.js';
 import type { FuzzSummary } from './run.js';
 import { failureTable, fuzz } from './run.js';
 
-// `npm test` runs a seeded 500; `npm run fuzz` 10,000 (FUZZ_RUNS, FUZZ_SEED, FUZZ_ONLY=<index> to rerun one case)
-const runs = Number(process.env.FUZZ_RUNS ?? 500);
+// `npm test` runs a seeded 200; `npm run fuzz` 10,000 (FUZZ_RUNS, FUZZ_SEED, FUZZ_ONLY=<index> to rerun one case)
+const runs = Number(process.env.FUZZ_RUNS ?? 200);
 const seed = Number(process.env.FUZZ_SEED ?? 20261202);
 
 function printPending(): void {

@@ -12,7 +12,7 @@ import { mulberry32 } from '../helpers/prng.js';
 // connections at once (the profile, the unit-ID check, a look-up): at the CLI's default limit
 // such files ran out of memory now and then, depending on which scans overlapped.
 const DEFAULT_LIMIT = '100MB'; // the CLI's --memory-limit default
-const RUNS = 20;
+const RUNS = 8;
 
 const roles = parseRoles(
   'group: site\nunit: id\nparent: region\noutcomes: [score]\nlevel1: [age, band, note]\nlevel2: [kind, staff]\n',

@@ -2,12 +2,14 @@ import { finiteDouble, ident, literal } from '../sql.js';
 import type { Source } from '../types.js';
 import { columnValueStats, screenColumns } from './column-pairs.js';
 import { modalValueSql } from './modal-value.js';
+import { occasionSummary } from './occasions.js';
 import { crossTabs, extremeShares, valueFrequencies } from './outcome-tables.js';
 import type { Lookup, UnitIdSummary } from './types.js';
 import { EXAMPLE_LIMIT } from './types.js';
 import { unitIdSummary } from './unit-ids.js';
 
 export { normalizedIdQuery, normalizeId } from './normalize-id.js';
+export type { Occasion, OccasionSummary } from './occasions.js';
 export type {
   ColumnScreen,
   ColumnValueStats,
@@ -128,6 +130,7 @@ export function createLookup(source: Source, group: string): Lookup {
       );
       return rows.map((r) => Number(r.__rec));
     },
+    occasions: (time, outcome) => occasionSummary(source, group, time, outcome),
     async parentSubsets(parent, groups, columns) {
       if (!groups.length) return [];
       const p = ident(parent);

@@ -1,3 +1,5 @@
+import type { OccasionSummary } from './occasions.js';
+
 /** How many example rows or groups a finding lists (shared/design.md: first 20). */
 export const EXAMPLE_LIMIT = 20;
 
@@ -42,6 +44,8 @@ export interface Lookup {
   screenColumns(columns: readonly string[]): Promise<ColumnScreen[]>;
   /** per value of each column: its groups and the outcomes' moments (one query; bound it by the screen's counts) */
   columnValueStats(columns: readonly string[], outcomes: readonly string[]): Promise<ColumnValueStats[]>;
+  /** longitudinal data, the group being the person: occasions per person and the pattern of the missing ones (one query) */
+  occasions(time: string, outcome?: string): Promise<OccasionSummary>;
 }
 
 export interface ValueFrequencies {
