@@ -95,21 +95,18 @@ export async function auditSource(source: Source, roleMap: LoadedRoles | Roles, 
     const outcomes = outcomeStatistics(profile, roles);
     await kindModels(profile, roles, outcomes, lookup);
     addPrecision(outcomes, profile, roles, catalogue);
-    // the plots' data needs no finding: it is computed while the rules' look-ups run, and both
-    // are let finish before an error is passed on (none may be left querying a closed source)
-    const [ran, plotted] = await Promise.allSettled([
-      runRules(catalogue, { profile, roles, outcomes, lookup }, { includeValues: options.includeValues ?? true }),
-      (async () => (options.plotData === false ? undefined : buildPlotData(profile, roles, outcomes, plotThresholds(catalogue, roles))))(),
-    ]);
-    if (ran.status === 'rejected') throw ran.reason;
-    if (plotted.status === 'rejected') throw plotted.reason;
-    const [findings, plots] = [ran.value, plotted.value];
     const includeValues = options.includeValues ?? true;
+    // the plots' data and the snapshot's pass need no finding: they run while the rules' look-ups
+    // do, and all are let finish before an error is passed on (none may be left querying a closed source)
+    const [ran, plotted, measuring] = await Promise.allSettled([
+      runRules(catalogue, { profile, roles, outcomes, lookup }, { includeValues }),
+      (async () => (options.plotData === false ? undefined : buildPlotData(profile, roles, outcomes, plotThresholds(catalogue, roles))))(),
+      (async () => (options.snapshot || options.baseline ? measure(source, profile, roles, { ...options, includeValues }) : undefined))(),
+    ]);
+    const [findings, plots, measured] = [settled(ran), settled(plotted), settled(measuring)];
     const groups = groupSummary(profile);
     const audited = roles.weights && weightsAudit(profile, roles);
     const weights = includeValues ? audited : withoutPlanValues(outcomes, audited);
-    const measured =
-      options.snapshot || options.baseline ? await measure(source, profile, roles, { ...options, includeValues }) : undefined;
     const report: Report = {
       schema: REPORT_SCHEMA,
       tool: options.tool,
@@ -147,6 +144,12 @@ async function kindModels(profile: Profile, roles: Roles, outcomes: Record<strin
   for (const name of roles.outcomes) {
     if (outcomes[name] && roles.types[name] === 'count') outcomes[name].poisson = await countOutcome(profile, name, lookup);
   }
+}
+
+/** The value of a promise already known to be fulfilled. */
+function settled<T>(result: PromiseSettledResult<T>): T {
+  if (result.status === 'rejected') throw result.reason;
+  return result.value;
 }
 
 /** Whether an enabled rule of the catalogue will ask for the unit-ID check. */
