@@ -46,7 +46,10 @@ export interface SourceAuditOptions {
   catalogue?: readonly AnyRule[];
   /** any line that cannot be read is an input error instead of a finding */
   strict?: boolean;
-  /** compute the report's `plots` (default true) */
+  /**
+   * compute the report's `plots` (default true): the HTML and Markdown reports read them; a JSON
+   * or terminal report does not (they cost a REML fit per level-1 column)
+   */
   plotData?: boolean;
   /** add the snapshot a later delivery is compared with (one extra pass; README: Snapshot) */
   snapshot?: boolean;

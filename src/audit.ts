@@ -1,21 +1,18 @@
+import type { SourceAuditOptions } from './audit-source.js';
 import { auditSource, loadedRoles } from './audit-source.js';
-import type { AnyChangeRule, Baseline } from './compare/types.js';
 import { loadArquero } from './profile/build.js';
 import type { Report } from './report/types.js';
 import type { LoadedRoles } from './roles/load.js';
 import type { Roles } from './roles/types.js';
-import type { AnyRule } from './rules/define.js';
 import type { DeliveryInput, Encoding, InputFormat, Source } from './source/open.js';
 import { openSource } from './source/open.js';
 import { TOOL } from './version.js';
 
-export interface AuditOptions {
-  /** keep raw data values in findings (default true); IDs and record numbers always stay */
-  includeValues?: boolean;
+/** The audit's options: what the opened source's audit reads (src/audit-source.ts), and how to open the delivery. */
+export interface AuditOptions extends Omit<SourceAuditOptions, 'tool'> {
   /** DuckDB memory limit before it spills to disk, e.g. "200MB" */
   memoryLimit?: string;
   threads?: number;
-  catalogue?: readonly AnyRule[];
   /** the delivery's format when not detected from its name and content */
   inputFormat?: InputFormat;
   /** text encoding of a CSV/TSV delivery (default UTF-8) */
@@ -27,23 +24,8 @@ export interface AuditOptions {
    * the fields are not separated by commas and the first records leave no doubt.
    */
   decimalComma?: boolean;
-  /** any line that cannot be read is an input error instead of a finding */
-  strict?: boolean;
   /** what the report calls a file input (default its path; the CLI passes "-" for a spooled stdin) */
   displayPath?: string;
-  /**
-   * compute the report's `plots` (default true): the HTML and Markdown reports read them; a JSON
-   * or terminal report does not (they cost a REML fit per level-1 column)
-   */
-  plotData?: boolean;
-  /** add the snapshot a later delivery is compared with (one extra pass; README: Snapshot) */
-  snapshot?: boolean;
-  /** compare with this previous delivery: the report gains `changes` and change findings (implies `snapshot`) */
-  baseline?: Baseline;
-  /** keep the unit IDs with their groups in this Parquet file, for `compare` (DuckDB only) */
-  keepUnits?: string;
-  /** the change checks (default changes/) */
-  changeCatalogue?: readonly AnyChangeRule[];
 }
 
 /** A delivery: a file path (`-` for standard input), or a table or query in PostgreSQL. */
