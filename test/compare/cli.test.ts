@@ -31,5 +31,11 @@ describe('nestready compare and audit --baseline', () => {
     expect(same.code).toBe(0);
     const bad = await nestready('compare', paths.roles, paths.current, '-r', paths.roles, '-q');
     expect(bad.code).toBe(2);
+    expect(bad.stderr).toMatch(/^nestready: [^\n]*roles[^\n]*\n$/);
+    // a baseline that is not a report, or no file at all: one line naming it, exit 2
+    const notReport = await nestready('audit', paths.current, '-r', paths.roles, '-q', '-f', 'json', '--baseline', paths.roles);
+    expect(notReport.code).toBe(2);
+    expect(notReport.stderr).toMatch(/^nestready: [^\n]+: not a readable JSON report \([^\n]*\)\n$/);
+    expect(notReport.stderr).toContain(paths.roles);
   });
 });
