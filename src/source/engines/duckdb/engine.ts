@@ -2,6 +2,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { DuckDBConnection } from '@duckdb/node-api';
+import { traced } from '../../../util/trace.js';
 import type { DuckHost } from './host.js';
 import { fitMemory, withMemory } from './memory.js';
 import type { DuckDB } from './native.js';
@@ -102,14 +103,14 @@ export async function createEngine(options: { memoryLimit?: string; threads?: nu
       await settings.run(`SET memory_limit = '${Math.ceil(bytes / 2 ** 20)}MiB'`);
     },
     all: (sql) => withMemory(engine, () => readAll(con, sql)),
-    run: async (sql) => void (await con.run(sql)),
+    run: (sql) => traced(sql, async () => void (await con.run(sql))),
     columns: (sql, onScanned) => readColumns(engine, sql, onScanned),
     lookupAll: (sql) => engine.lookups.use((c) => withMemory(engine, () => readAll(c, sql))),
     session: (fn) =>
       engine.lookups.use((c) =>
         fn({
           all: (sql) => withMemory(engine, () => readAll(c, sql)),
-          run: (sql) => withMemory(engine, async () => void (await c.run(sql))),
+          run: (sql) => withMemory(engine, () => traced(sql, async () => void (await c.run(sql)))),
         }),
       ),
     fitMemory: (needs) => fitMemory(engine, { ...needs, threads, scans: 1 + LOOKUP_CONNECTIONS }),

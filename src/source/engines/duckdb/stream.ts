@@ -1,4 +1,5 @@
 import type { DuckDBConnection } from '@duckdb/node-api';
+import { traced } from '../../../util/trace.js';
 import type { DuckEngine } from './engine.js';
 import { withMemory } from './memory.js';
 import type { DuckDB } from './native.js';
@@ -7,7 +8,7 @@ import { native } from './native.js';
 const { DuckDBDoubleVector, DuckDBVarCharVector, JSDuckDBValueConverter } = native;
 
 export async function readAll<T>(con: DuckDBConnection, sql: string): Promise<T[]> {
-  return (await con.runAndReadAll(sql)).getRowObjectsJS() as T[];
+  return traced(sql, async () => (await con.runAndReadAll(sql)).getRowObjectsJS() as T[]);
 }
 
 /**
@@ -16,7 +17,7 @@ export async function readAll<T>(con: DuckDBConnection, sql: string): Promise<T[
  * copy. A result of a million groups then costs about 8 bytes per number, not a boxed value.
  */
 export function readColumns(engine: DuckEngine, sql: string, onScanned?: () => void): Promise<Record<string, unknown[]>> {
-  return withMemory(engine, () => streamColumns(engine.con, sql, onScanned));
+  return withMemory(engine, () => traced(sql, () => streamColumns(engine.con, sql, onScanned)));
 }
 
 /** A column of doubles read chunk by chunk into a growing Float64Array; NULLs noted by position. */
