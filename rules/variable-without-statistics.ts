@@ -70,6 +70,7 @@ export default defineRule<Record<string, never>>({
       },
     },
     sources: ['A declared outcome must yield the statistics the audit grades; a numeric predictor must read as numbers (common practice)'],
+    profileNeeds: ['number-like'],
   },
   async check({ profile, roles, outcomes, lookup }) {
     // a delivery without records yields nothing for any variable: that is said once, elsewhere
@@ -103,6 +104,8 @@ async function why(col: ColumnProfile, role: Role, type: ValueType | undefined, 
   // categorical one is a choice
   if (col.nonMissing === 0) return outcome ? { messageId: 'allMissing', severity, column, data: { ...data, records: col.missing } } : null;
   if (type === 'categorical') return outcome ? { messageId: 'categorical', severity, column, data } : null;
+  // a categorical level-1/level-2 column: the profile counted no value written like a number
+  if (!outcome && col.numberLike === 0 && !meantNumeric(col, type)) return null;
   const tokens = await lookup.nonNumericTokens(column);
   const kinds = kindCounts(tokens);
   const values = tokens.slice(0, SHOWN).map((t) => `${quoteId(t.token)} ×${t.count}`);

@@ -54,6 +54,7 @@ export default defineRule<Params>({
         'data. Political Science Research and Methods, 3(1), 133–153',
       'alpha 0.05: common practice',
     ],
+    profileNeeds: ['level1-pairs'],
   },
   check({ profile, roles, params, outcomes }) {
     const findings: FindingDraft[] = [];

@@ -15,7 +15,8 @@ import { withChanges } from './compare/run-changes.js';
 import type { AnyChangeRule, Baseline } from './compare/types.js';
 import { InputError, readError } from './errors.js';
 import { grade } from './grade.js';
-import { buildProfile } from './profile/build.js';
+import type { ProfileNeed } from './profile/build.js';
+import { ALL_PROFILE_NEEDS, buildProfile } from './profile/build.js';
 import { groupSizes } from './profile/group-stats.js';
 import { readsAsNumbers } from './profile/reads-as-numbers.js';
 import type { Profile } from './profile/types.js';
@@ -86,7 +87,7 @@ export async function auditSource(source: Source, roleMap: LoadedRoles | Roles, 
     const unit = roles.unit;
     const prefetch =
       unit && wantsUnitIds(catalogue, roles) ? () => void early.push(lookup.unitIds(unit).catch(() => undefined)) : undefined;
-    const profile = await buildProfile(source, roles, { onScanned: prefetch });
+    const profile = await buildProfile(source, roles, { onScanned: prefetch, needs: profileNeeds(catalogue, roles) });
     if (profile.rows === 0) throw noRecords(path, profile.rejected);
     if (options.strict && profile.rejected.length) {
       const first = profile.rejected[0];
@@ -158,6 +159,12 @@ function settled<T>(result: PromiseSettledResult<T>): T {
 /** Whether an enabled rule of the catalogue will ask for the unit-ID check. */
 function wantsUnitIds(catalogue: readonly AnyRule[], roles: Roles): boolean {
   return catalogue.some((rule) => rule.meta.prefetch?.includes('unit-ids') && roles.rules[rule.meta.id] !== 'off');
+}
+
+/** The optional statistics of the profiling pass that an enabled rule of the catalogue reads. */
+function profileNeeds(catalogue: readonly AnyRule[], roles: Roles): ProfileNeed[] {
+  const on = catalogue.filter((rule) => roles.rules[rule.meta.id] !== 'off');
+  return ALL_PROFILE_NEEDS.filter((need) => on.some((rule) => rule.meta.profileNeeds?.includes(need)));
 }
 
 /** Null-model statistics for every numeric (or 0/1) outcome, from the profile's group moments. */

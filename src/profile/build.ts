@@ -8,6 +8,7 @@ import type { Storage } from '../source/sql.js';
 import type { GroupMoments } from '../stats/types.js';
 import { columnProfile } from './columns.js';
 import { groupSizes, groupStat } from './group-stats.js';
+import { NUMBER_LIKE_PATTERN } from './number-like.js';
 import { plannedPairs } from './pairs.js';
 import { roleOf } from './role-of.js';
 import type { ColumnProfile, Profile } from './types.js';
@@ -23,6 +24,15 @@ export function loadArquero(): Promise<typeof import('arquero')> {
 }
 
 /**
+ * Optional statistics of the profiling pass: 'level1-pairs', the co-moments of each outcome with the
+ * level-1 variables that are not planned slopes (a planned slope's pair is always computed: the
+ * report's slope statistics read it); 'number-like', the count of values that may be numbers written
+ * another way in untyped level-1/level-2 text columns.
+ */
+export type ProfileNeed = 'level1-pairs' | 'number-like';
+export const ALL_PROFILE_NEEDS: readonly ProfileNeed[] = ['level1-pairs', 'number-like'];
+
+/**
  * Which statistics each column needs: numbers for every numeric column and declared variable
  * (not for a text column whose sample held no number and whose type the role map leaves open),
  * and for the source's probed columns.
@@ -32,8 +42,9 @@ export function planColumns(
   roles: Roles,
   storage: Map<string, Storage>,
   hints: { probe?: ReadonlySet<string>; textOnly?: ReadonlySet<string> } = {},
+  needs: readonly ProfileNeed[] = ALL_PROFILE_NEEDS,
 ): ProfileColumnPlan[] {
-  const pairs = plannedPairs(roles);
+  const pairs = plannedPairs(roles, needs.includes('level1-pairs'));
   return header
     .filter((name) => name !== roles.group)
     .map((name) => {
@@ -47,6 +58,9 @@ export function planColumns(
       const pairsWith = pairs.get(name);
       // a count outcome's zeros, per group: the count-outcome rule sets them against its model's
       const zeros = numberStats && role === 'outcome' && roles.types[name] === 'count';
+      // an untyped level-1/level-2 text column: whether any value is a number written another way
+      // (variable-without-statistics asks, and needs no scan of its own when none is)
+      const numberLike = needs.includes('number-like') && s === 'text' && (role === 'level1' || role === 'level2') && !roles.types[name];
       return {
         name,
         storage: s,
@@ -54,6 +68,7 @@ export function planColumns(
         ...(name === roles.unit && { textRange: false }),
         ...(pairsWith && { pairsWith }),
         ...(zeros && { zeros }),
+        ...(numberLike ? { textPattern: NUMBER_LIKE_PATTERN } : {}),
       };
     });
 }
@@ -66,12 +81,17 @@ export function planColumns(
  * @param options.onScanned called when a pass has read the delivery, before its result is
  *   converted (a look-up may start then; a pass run again comes with a new source.viewVersion)
  */
-export async function buildProfile(source: Source, roles: Roles, options: { onScanned?: () => void } = {}): Promise<Profile> {
+export async function buildProfile(
+  source: Source,
+  roles: Roles,
+  options: { onScanned?: () => void; needs?: readonly ProfileNeed[] } = {},
+): Promise<Profile> {
+  const needs = options.needs ?? ALL_PROFILE_NEEDS;
   let plan: ProfileColumnPlan[];
   let result: Record<string, unknown[]>;
   let rejected: RejectedLine[];
   while (true) {
-    plan = planColumns(source.header, roles, source.storage, source);
+    plan = planColumns(source.header, roles, source.storage, source, needs);
     result = await source.columns(profileQuery(source.view, roles.group, plan, source.dialect), options);
     rejected = await source.rejects();
     const retype = [
@@ -90,7 +110,7 @@ export async function buildProfile(source: Source, roles: Roles, options: { onSc
       result,
       plan,
       source,
-      (name) => planColumns([name], roles, new Map([[name, 'text']]), { textOnly })[0]?.numberStats ?? false,
+      (name) => planColumns([name], roles, new Map([[name, 'text']]), { textOnly }, needs)[0]?.numberStats ?? false,
     );
   }
   const aq = await loadArquero();

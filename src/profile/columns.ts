@@ -27,6 +27,7 @@ export function columnProfile(
   const mins = ranged ? groupStat(raw, name, 'textMin').filter(notNull) : [];
   const maxs = ranged ? groupStat(raw, name, 'textMax').filter(notNull) : [];
   const p = base(name, role, 'categorical', plan.storage, nonMissing, rows, minOf(mins), maxOf(maxs));
+  if (text && plan.textPattern) p.numberLike = sum(groupStat(raw, name, 'numberLike'));
   if (!plan.numberStats) return { ...p, type: roles.types[name] ?? 'categorical' };
 
   const num = groupStat(raw, name, 'numericCount');
@@ -80,6 +81,7 @@ function base(
     numMin: null,
     numMax: null,
     mean: null,
+    numberLike: null,
   };
 }
 

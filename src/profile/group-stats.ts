@@ -19,6 +19,8 @@ export interface GroupStatValues {
   mean: number | null;
   /** within-group sum of squares */
   ss: number | null;
+  /** text values that may be numbers written another way (src/profile/number-like.ts) */
+  numberLike: number;
 }
 
 export type GroupStat = keyof GroupStatValues;
@@ -33,6 +35,7 @@ const AGGREGATE: Record<GroupStat, string> = {
   numMax: 'nmax',
   mean: 'mean',
   ss: 'ss',
+  numberLike: 'like',
 };
 
 export const GROUP_STATS = Object.keys(AGGREGATE) as GroupStat[];

@@ -13,12 +13,12 @@ export const PAIR_LIMIT = 48;
 
 /**
  * Which level-1 variables each outcome is paired with in the profiling pass: every outcome with
- * every level-1 variable (the planned slopes first), at most PAIR_LIMIT pairs. Columns that end up
+ * every level-1 variable (the planned slopes first; the others only when `allLevel1`), at most PAIR_LIMIT pairs. Columns that end up
  * without a numeric reading are skipped by the query itself.
  */
-export function plannedPairs(roles: Roles): Map<string, string[]> {
+export function plannedPairs(roles: Roles, allLevel1 = true): Map<string, string[]> {
   const slopes = roles.slopes ?? [];
-  const others = roles.level1.filter((c) => !slopes.includes(c));
+  const others = allLevel1 ? roles.level1.filter((c) => !slopes.includes(c)) : [];
   const all = [slopes, others].flatMap((vars) => roles.outcomes.flatMap((y) => vars.filter((x) => x !== y).map((x) => [y, x] as const)));
   const out = new Map<string, string[]>();
   for (const [y, x] of all.slice(0, PAIR_LIMIT)) out.set(y, [...(out.get(y) ?? []), x]);

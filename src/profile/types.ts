@@ -26,6 +26,11 @@ export interface ColumnProfile {
   numMin: number | null;
   numMax: number | null;
   mean: number | null;
+  /**
+   * text values that may be numbers written another way (src/profile/number-like.ts); null where
+   * not counted (counted for level-1 and level-2 text columns the role map leaves untyped)
+   */
+  numberLike: number | null;
 }
 
 /** The one profiling pass: every rule and statistic reads only this (plus bounded look-ups). */

@@ -1,3 +1,4 @@
+import type { ProfileNeed } from '../profile/build.js';
 import type { Profile } from '../profile/types.js';
 import type { Roles, Severity } from '../roles/types.js';
 import type { Lookup } from '../source/lookups/lookup.js';
@@ -32,6 +33,11 @@ export interface RuleMeta {
    * the rules compute, instead of after.
    */
   prefetch?: readonly 'unit-ids'[];
+  /**
+   * Statistics of the profiling pass the check reads beyond every column's own (ProfileNeed). The
+   * pass computes them only when an enabled rule names them: each costs aggregates over every record.
+   */
+  profileNeeds?: readonly ProfileNeed[];
 }
 
 /** What a rule's check returns; the engine adds the rule id, severity and rendered text. */

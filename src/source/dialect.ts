@@ -30,6 +30,8 @@ export interface Dialect {
    * double) where it is not NULL, else `text`
    */
   keyHash(number: string, text: string): string;
+  /** whether a text expression holds a match of a regular expression (written for both engines; no quotes in it) */
+  matches(expr: string, pattern: string): string;
 }
 
 /**
@@ -51,6 +53,7 @@ export const duckdb: Dialect = {
   firstValues: (e, order, limit) => `list(${e} ORDER BY ${order})[1:${limit}]`,
   rowHash: (exprs) => `hash(${exprs.join(', ')})`,
   keyHash: (number, text) => `hash(${number}, ${text})`,
+  matches: (e, pattern) => `regexp_matches(${e}, '${pattern}')`,
 };
 
 export const postgres: Dialect = {
@@ -70,4 +73,5 @@ export const postgres: Dialect = {
   // of the unit-ID check's time (docs/performance.md); a number's hash that meets a text's only
   // brings both to stage 2, which tells them apart
   keyHash: (number, text) => `coalesce(hashfloat8extended(${number}, 0), hashtextextended(${text}, 0))`,
+  matches: (e, pattern) => `(${e} ~ '${pattern}')`,
 };

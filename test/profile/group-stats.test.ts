@@ -29,6 +29,7 @@ describe("the profile's group statistics by name", () => {
         numMax: [3, 4],
         mean: [2, 4],
         ss: [2, 0],
+        numberLike: [0, 0],
       });
     } finally {
       d.remove();

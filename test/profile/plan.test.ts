@@ -30,6 +30,28 @@ describe('the profiling plan', () => {
     expect(sql).toContain('"w:max"');
   });
 
+  it('computes the optional statistics only for the rules that read them', () => {
+    const { roles: r } = parseRoles('group: g\noutcome: y\nslopes: [s]\nlevel1: [s, x, band]\n', 'roles.yaml', catalogue);
+    const types = new Map([
+      ['s', 'double'],
+      ['x', 'double'],
+      ['y', 'double'],
+      ['band', 'text'],
+    ] as const);
+    const sqlFor = (needs: Parameters<typeof planColumns>[4]) =>
+      profileQuery('v', 'g', planColumns(['g', 'y', 's', 'x', 'band'], r, new Map(types), {}, needs));
+    const all = sqlFor(undefined);
+    // the planned slope's pair is the report's; the other level-1 pairs and the count of values
+    // written like numbers are within-between-gap's and variable-without-statistics'
+    expect(all).toContain('"y:×s:sxy"');
+    expect(all).toContain('"y:×x:sxy"');
+    expect(all).toContain('"band:like"');
+    const none = sqlFor([]);
+    expect(none).toContain('"y:×s:sxy"');
+    expect(none).not.toContain('"y:×x:sxy"');
+    expect(none).not.toContain('"band:like"');
+  });
+
   it('the profile then has no range for the unit ID, and the rest as before', async () => {
     const d = writeDelivery(
       [

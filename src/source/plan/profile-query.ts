@@ -18,6 +18,8 @@ export interface ProfileColumnPlan {
   pairsWith?: readonly string[];
   /** per group, the values that read as 0 (a count outcome's zeros, against those its model expects) */
   zeros?: boolean;
+  /** per group, the text values that match this pattern (src/profile/number-like.ts) */
+  textPattern?: string;
 }
 
 /** Aggregate key for column `c` and statistic `stat`, e.g. `visits:mean`. */
@@ -42,6 +44,8 @@ export function profileQuery(view: string, group: string, plan: readonly Profile
     aggs.push(`${d.double(`count(t${i})`)} AS ${as('nn')}`);
     if (col.storage === 'text' && col.textRange !== false)
       aggs.push(`min(${d.ordered(`t${i}`)}) AS ${as('min')}`, `max(${d.ordered(`t${i}`)}) AS ${as('max')}`);
+    if (col.storage === 'text' && col.textPattern)
+      aggs.push(`${d.double(`count(CASE WHEN ${d.matches(`t${i}`, col.textPattern)} THEN 1 END)`)} AS ${as('like')}`);
     if (!col.numberStats) return;
     // the numeric reading is taken once here, not once per aggregate; a DOUBLE column goes
     // through it too, so that ±inf, NaN and overflowing values are not numbers in any column
