@@ -40,7 +40,9 @@ export default defineRule<Params>({
           minimum: 99,
           maximum: 100000,
           default: 2000,
-          description: 'random permutations drawn (with fewer groups, all J! are enumerated when that is no more)',
+          description:
+            'most random permutations drawn (with fewer groups, all J! are enumerated when that is no more); they stop once 20 ' +
+            'permuted gaps reach the observed one (Besag & Clifford 1991)',
         },
       },
       additionalProperties: false,
@@ -60,6 +62,8 @@ export default defineRule<Params>({
         'that answer the right question. International Journal of Epidemiology, 52(1), 107–118',
       'Phipson, B., & Smyth, G. K. (2010). Permutation p-values should never be zero. Stat. Appl. Genet. Mol. Biol., 9(1), ' +
         'article 39: p = (1 + hits)/(1 + B)',
+      'Besag, J., & Clifford, P. (1991). Sequential Monte Carlo p-values. Biometrika, 78(2), 301–304: stop after h = 20 ' +
+        'exceedances, p = h / L',
     ],
   },
   check({ profile, outcomes, params }) {

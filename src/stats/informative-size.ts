@@ -66,17 +66,23 @@ export function sizeMeanCorrelation(sizes: readonly number[], means: readonly nu
  * permutation, the gap and the size–mean correlation give the same test. With J! no larger than
  * `permutations` every permutation is enumerated (exact p = share with |gap| ≥ observed);
  * otherwise p = (1 + hits)/(1 + B) from B seeded random permutations (Phipson & Smyth 2010,
- * *Stat. Appl. Genet. Mol. Biol.* 9(1), art. 39: never 0). Source: Good (2005), *Permutation,
+ * *Stat. Appl. Genet. Mol. Biol.* 9(1), art. 39: never 0), or, once `stopAfterHits` permuted gaps
+ * have reached the observed one, the sequential p = h / L after L permutations (Besag, J., &
+ * Clifford, P. (1991). Sequential Monte Carlo p-values. *Biometrika*, 78(2), 301–304): a size
+ * that says nothing about the outcome is then settled after a few dozen permutations, not B. Source: Good (2005), *Permutation,
  * Parametric and Bootstrap Tests of Hypotheses* (3rd ed.), ch. 3; Kahan et al. (2023), above.
  *
  * @param sizes n_j (J ≥ 2)
  * @param means ȳ_j
  * @param options random permutations to draw and the generator's seed
  */
+/** Exceedances after which the random permutations stop (Besag & Clifford 1991 take h of 10 to 20). */
+export const STOP_AFTER_HITS = 20;
+
 export function informativeSize(
   sizes: readonly number[],
   means: readonly number[],
-  options: { permutations: number; seed: number },
+  options: { permutations: number; seed: number; stopAfterHits?: number },
 ): InformativeSize {
   const observed = Math.abs(weightingGap(sizes, means));
   // permuted gaps equal to the observed one but for rounding count as at least as large
@@ -93,22 +99,37 @@ export function informativeSize(
     });
     return { correlation, gap: weightingGap(sizes, means), p: hits / total, permutations: total, exact: true };
   }
+  // Σ n_π(j) ȳ_j decides the test: N and Σ ȳ_j do not change under a permutation, so the
+  // permuted gap is that sum over N minus the mean of the means (one product per group)
+  const total = shuffled.reduce((a, b) => a + b, 0);
+  const meanOfMeans = means.reduce((a, b) => a + b, 0) / count;
+  const ys = Float64Array.from(means);
+  const gapOf = (n: Float64Array) => {
+    let sum = 0;
+    for (let j = 0; j < count; j++) sum += n[j] * ys[j];
+    return sum / total - meanOfMeans;
+  };
+  const limit = Math.abs(gapOf(shuffled)) * (1 - 1e-9);
   const random = seededUniform(options.seed);
+  const enough = options.stopAfterHits ?? STOP_AFTER_HITS;
   let hits = 0;
-  for (let b = 0; b < options.permutations; b++) {
+  let drawn = 0;
+  while (drawn < options.permutations && hits < enough) {
     for (let j = count - 1; j > 0; j--) {
       const k = Math.floor(random() * (j + 1));
       const t = shuffled[j];
       shuffled[j] = shuffled[k];
       shuffled[k] = t;
     }
-    if (Math.abs(weightingGap(shuffled, means)) >= bar) hits++;
+    drawn++;
+    if (Math.abs(gapOf(shuffled)) >= limit) hits++;
   }
   return {
     correlation,
     gap: weightingGap(sizes, means),
-    p: (1 + hits) / (1 + options.permutations),
-    permutations: options.permutations,
+    // stopped at `enough` exceedances: Besag & Clifford's sequential p-value h / L; else (1 + hits)/(1 + B)
+    p: hits >= enough ? hits / drawn : (1 + hits) / (1 + drawn),
+    permutations: drawn,
     exact: false,
   };
 }

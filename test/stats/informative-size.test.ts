@@ -21,11 +21,23 @@ describe('informative group size', () => {
   });
 
   it('seeded random permutations agree with the exact value within Monte Carlo error, and repeat', () => {
-    const r = informativeSize(sizes, means, { permutations: 4000, seed: 20240611 });
-    expect(r.exact).toBe(false);
+    const all = { permutations: 4000, seed: 20240611, stopAfterHits: Number.POSITIVE_INFINITY };
+    const r = informativeSize(sizes, means, all);
+    expect(r).toMatchObject({ exact: false, permutations: 4000 });
     const exact = 83 / 5040;
     expect(Math.abs(r.p - exact)).toBeLessThan(4 * Math.sqrt((exact * (1 - exact)) / 4000));
-    expect(informativeSize(sizes, means, { permutations: 4000, seed: 20240611 }).p).toBe(r.p);
+    expect(informativeSize(sizes, means, all).p).toBe(r.p);
+  });
+
+  it('stops after 20 exceedances with the sequential p-value h / L, unbiased over seeds', () => {
+    // Besag & Clifford (1991): h / L estimates p; over 200 seeds its mean is within Monte Carlo
+    // error of the exact 83/5040 (each stopped run draws about 20 / p ≈ 1,200 of its 5,000 permutations)
+    const exact = 83 / 5040;
+    const runs = Array.from({ length: 200 }, (_, seed) => informativeSize(sizes, means, { permutations: 5000, seed: seed + 1 }));
+    for (const r of runs) expect(r.p).toBeCloseTo(20 / r.permutations, 15);
+    const mean = runs.reduce((a, r) => a + r.p, 0) / runs.length;
+    // h / L has a relative spread of about 1/√(h − 1): the mean of 200 within 4 standard errors
+    expect(Math.abs(mean - exact)).toBeLessThan((4 * exact) / Math.sqrt(19 * 200));
   });
 
   it('equal sizes: no gap and p = 1', () => {
