@@ -62,6 +62,8 @@ export default defineRule<Params>({
         'that answer the right question. International Journal of Epidemiology, 52(1), 107–118',
       'Phipson, B., & Smyth, G. K. (2010). Permutation p-values should never be zero. Stat. Appl. Genet. Mol. Biol., 9(1), ' +
         'article 39: p = (1 + hits)/(1 + B)',
+      'Hoeffding, W. (1951). A combinatorial central limit theorem. Annals of Mathematical Statistics, 22(4), 558–566: ' +
+        'the normal approximation from 1,000 groups on (common practice for the threshold)',
       'Besag, J., & Clifford, P. (1991). Sequential Monte Carlo p-values. Biometrika, 78(2), 301–304: stop after h = 20 ' +
         'exceedances, p = h / L',
     ],
@@ -92,7 +94,11 @@ export default defineRule<Params>({
           recordMean: formatNumber(s.mean, 3),
           groupMean: formatNumber(groupMean, 3),
           gap: formatNumber(r.gap, 3),
-          how: r.exact ? `all ${r.permutations} permutations` : `${r.permutations} permutations, seed ${SEED}`,
+          how: r.exact
+            ? `all ${r.permutations} permutations`
+            : r.normal
+              ? 'the normal approximation to the permutations'
+              : `${r.permutations} permutations, seed ${SEED}`,
           p: pClause(r.p),
         },
       });

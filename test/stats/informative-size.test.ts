@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { informativeSize, sizeMeanCorrelation, weightingGap } from '../../src/stats/informative-size.js';
+import { seededUniform } from '../../src/stats/seeded-uniform.js';
 
 // seven groups: sizes and group means of the outcome
 const sizes = [2, 3, 5, 8, 12, 4, 9];
@@ -44,5 +45,20 @@ describe('informative group size', () => {
     const r = informativeSize([5, 5, 5, 5], [1, 2, 3, 4], { permutations: 100, seed: 1 });
     expect(r.gap).toBeCloseTo(0, 15);
     expect(r.p).toBe(1);
+  });
+
+  it('from 1,000 groups, the normal approximation matches random permutations within Monte Carlo error', () => {
+    const random = seededUniform(7);
+    const n = Array.from({ length: 1000 }, () => 2 + Math.floor(random() * 60));
+    // a weak size effect: p of a few per cent, where the tail matters
+    const y = n.map((k) => 0.0008 * k + random());
+    const normal = informativeSize(n, y, { permutations: 5000, seed: 3 });
+    expect(normal).toMatchObject({ normal: true, permutations: 0 });
+    const drawn = informativeSize(n, y, { permutations: 5000, seed: 3, stopAfterHits: Number.POSITIVE_INFINITY, normalFrom: 1e9 });
+    expect(drawn.normal).toBe(false);
+    expect(drawn.p).toBeGreaterThan(0.002);
+    expect(drawn.p).toBeLessThan(0.3);
+    // the permutation p-value is itself an estimate with standard error √(p(1 − p)/B)
+    expect(Math.abs(normal.p - drawn.p)).toBeLessThan(4 * Math.sqrt((drawn.p * (1 - drawn.p)) / 5000));
   });
 });
