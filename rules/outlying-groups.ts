@@ -3,7 +3,7 @@ import { defineRule } from '../src/rules/define.js';
 import { listSome } from '../src/rules/describe.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { ebGroupEffects } from '../src/stats/eb-group-effects.js';
-import { leaveOneOutIcc } from '../src/stats/leave-one-out-icc.js';
+import { leaveOneOutIccs } from '../src/stats/leave-one-out-icc.js';
 import type { GroupMoments } from '../src/stats/types.js';
 import { formatNumber } from '../src/util/format.js';
 
@@ -93,12 +93,9 @@ export default defineRule<Params>({
       const groups: GroupMoments[] = kept.map((j) => ({ n: counts[j], mean: means[j] as number, ss: Math.max(0, ss[j] as number) }));
       const effects = ebGroupEffects(groups, s.reml);
       const order = kept.map((_, i) => i).sort((a, b) => Math.abs(effects[b].z) - Math.abs(effects[a].z));
-      const examined: Examined[] = order.slice(0, params.examine).map((i) => ({
-        id: ids[kept[i]],
-        n: groups[i].n,
-        z: effects[i].z,
-        iccWithout: leaveOneOutIcc(groups, i),
-      }));
+      const top = order.slice(0, params.examine);
+      const without = leaveOneOutIccs(groups, top);
+      const examined: Examined[] = top.map((i, k) => ({ id: ids[kept[i]], n: groups[i].n, z: effects[i].z, iccWithout: without[k] }));
       const outlying = order.filter((i) => Math.abs(effects[i].z) > params.z_above);
       const icc = formatNumber(s.reml.icc, 3);
       if (outlying.length) {

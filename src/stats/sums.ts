@@ -61,5 +61,7 @@ export function betweenSumOfSquares(groups: readonly GroupMoments[]): number {
  * @returns true when J ≥ 2 and N − J ≥ 1
  */
 export function componentsEstimable(groups: readonly GroupMoments[]): boolean {
-  return groups.length >= 2 && totalCount(groups) - groups.length >= 1;
+  // a size class stands for `count` groups (src/stats/size-classes.ts)
+  const j = groups.reduce((sum, g) => sum + multiplicity(g), 0);
+  return j >= 2 && totalCount(groups) - j >= 1;
 }

@@ -1,7 +1,8 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { ebGroupEffects } from '../../src/stats/eb-group-effects.js';
 import { momentsFromValues, remlComponents } from '../../src/stats/index.js';
-import { leaveOneOutIcc } from '../../src/stats/leave-one-out-icc.js';
+import { leaveOneOutIcc, leaveOneOutIccs } from '../../src/stats/leave-one-out-icc.js';
+import { seededUniform } from '../../src/stats/seeded-uniform.js';
 import { expectRel, logRelativeErrors, readReferenceCsv } from './helpers.js';
 
 afterAll(logRelativeErrors);
@@ -63,5 +64,22 @@ describe('empirical-Bayes group effects against lme4 (HSB mathach)', () => {
     const without = momentsFromValues([...bySchool.entries()].filter(([id]) => id !== '5762').map(([, v]) => v));
     expect(leaveOneOutIcc(groups, j)).toBe(remlComponents(without).icc);
     expect(leaveOneOutIcc(groups, j)).toBeLessThan(fit.icc);
+  });
+});
+
+describe('leave-one-out ICCs over size classes', () => {
+  it('equal a refit over the other groups, for many groups taken together by size', () => {
+    const random = seededUniform(11);
+    // 3,000 groups of 5 to 24 records: the fit runs over 20 size classes
+    const groups = Array.from({ length: 3000 }, (_, j) => {
+      const n = 5 + (j % 20);
+      const mean = 10 + 2 * random() + (j % 7);
+      return { n, mean, ss: (n - 1) * (1 + random()) };
+    });
+    // the only group of its size, as well as groups in classes of many
+    groups.push({ n: 40, mean: 30, ss: 80 });
+    const indices = [0, 1, 17, 2999, 3000];
+    const fast = leaveOneOutIccs(groups, indices);
+    indices.forEach((j, k) => expect(Math.abs(fast[k] - leaveOneOutIcc(groups, j))).toBeLessThan(1e-12));
   });
 });
