@@ -32,6 +32,11 @@ export interface Dialect {
   keyHash(number: string, text: string): string;
   /** whether a text expression holds a match of a regular expression (written for both engines; no quotes in it) */
   matches(expr: string, pattern: string): string;
+  /**
+   * an extra output of the profile's inner query that keeps the engine from merging it into the
+   * outer one, so that each record's numeric readings are computed once, not once per aggregate
+   */
+  fence?: string;
 }
 
 /**
@@ -41,6 +46,12 @@ export interface Dialect {
  * limits are kept by a length guard instead (postgres.numeric).
  */
 const NUMBER_RE = String.raw`^\s*[-+]?([0-9]+(\.[0-9]*)?|\.[0-9]+)([eE][-+]?[0-9]{1,3})?\s*$`;
+/**
+ * A plain decimal (no exponent) short enough to lie within ±MAX_MAGNITUDE and far above double
+ * precision's underflow: cast directly, without the numeric casts that guard the general form.
+ */
+const PLAIN_RE = String.raw`^\s*[-+]?([0-9]+(\.[0-9]*)?|\.[0-9]+)\s*$`;
+const PLAIN_LENGTH = 100;
 /** The most digits PostgreSQL's numeric type takes after the point (a longer text fails its cast). */
 const NUMERIC_DIGITS = 16383;
 
@@ -63,8 +74,10 @@ export const postgres: Dialect = {
   // PostgreSQL has no TRY_CAST before version 16's pg_input_is_valid: a regular expression and
   // the length guard the cast to numeric; the bounds keep what is read inside double precision's range
   numeric: (e) =>
-    `(CASE WHEN length(${e}) <= ${NUMERIC_DIGITS} AND ${e} ~ '${NUMBER_RE}' THEN CASE WHEN abs(CAST(${e} AS numeric)) < ${MAX_MAGNITUDE} ` +
-    `AND (CAST(${e} AS numeric) = 0 OR abs(CAST(${e} AS numeric)) > 1e-307) THEN CAST(${e} AS double precision) END END)`,
+    `(CASE WHEN length(${e}) <= ${PLAIN_LENGTH} AND ${e} ~ '${PLAIN_RE}' THEN CAST(${e} AS double precision) ` +
+    `WHEN length(${e}) <= ${NUMERIC_DIGITS} AND ${e} ~ '${NUMBER_RE}' THEN CASE WHEN abs(CAST(${e} AS numeric)) > ${MAX_MAGNITUDE} THEN NULL ` +
+    // below double precision's normal range the cast fails where DuckDB reads 0 (or a subnormal)
+    `WHEN abs(CAST(${e} AS numeric)) <= 1e-307 THEN 0 ELSE CAST(${e} AS double precision) END END)`,
   // min/max of text follow the database collation in PostgreSQL; "C" is byte order, as DuckDB
   ordered: (e) => `(${e} COLLATE "C")`,
   firstValues: (e, order, limit) => `(array_agg(${e} ORDER BY ${order}))[1:${limit}]`,
@@ -74,4 +87,8 @@ export const postgres: Dialect = {
   // brings both to stage 2, which tells them apart
   keyHash: (number, text) => `coalesce(hashfloat8extended(${number}, 0), hashtextextended(${text}, 0))`,
   matches: (e, pattern) => `(${e} ~ '${pattern}')`,
+  // PostgreSQL merges a plain subquery into its parent and then computes a column's numeric
+  // reading once per aggregate that reads it; a volatile output keeps the subquery whole (it is
+  // never merged), and clock_timestamp() is volatile yet parallel safe, so the plan stays parallel
+  fence: 'clock_timestamp() AS nr_fence',
 };

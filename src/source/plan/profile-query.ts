@@ -69,7 +69,8 @@ export function profileQuery(view: string, group: string, plan: readonly Profile
   });
   // ordered by the engine (byte order, the missing-ID group first), so the profile need not sort
   return (
-    `SELECT "group", ${aggs.join(', ')} FROM (SELECT ${inner.join(', ')} FROM ${view}) AS nr_rows GROUP BY "group" ` +
+    `SELECT "group", ${aggs.join(', ')} FROM (SELECT ${[...inner, ...(d.fence ? [d.fence] : [])].join(', ')} FROM ${view}) AS nr_rows ` +
+    'GROUP BY "group" ' +
     `ORDER BY ${d.ordered('"group"')} NULLS FIRST`
   );
 }
