@@ -98,8 +98,10 @@ export default defineRule<Params>({
     sources: [
       'Rasbash, J., & Goldstein, H. (1994). Efficient analysis of mixed hierarchical and cross-classified random structures ' +
         'using a multilevel model. Journal of Educational and Behavioral Statistics, 19(4), 337–350',
-      'Moerbeek, M. (2004). The consequence of ignoring a level of nesting in multilevel analysis. Multivariate Behavioral ' +
-        'Research, 39(1)',
+      'Opdenakker, M.-C., & Van Damme, J. (1998). The importance of identifying levels in multilevel analysis: an illustration of ' +
+        'the effects of ignoring the top or intermediate levels in school effectiveness research. Paper presented at the annual ' +
+        'meeting of the American Educational Research Association, San Diego (ERIC ED422400): ignoring the top level overstates ' +
+        'the variance of the highest level kept, ignoring an intermediate level that of the levels just above and below it',
       'LeBreton, J. M., & Senter, J. L. (2008). Organizational Research Methods, 11(4), 815–852: ICC(1) of .05 is small to medium',
     ],
   },

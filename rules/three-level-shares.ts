@@ -70,8 +70,11 @@ export default defineRule<Params>({
     },
     sources: [
       'Searle, S. R., Casella, G., & McCulloch, C. E. (1992). Variance Components. Wiley, ch. 6: ML and REML of nested models',
-      'Moerbeek, M. (2004). The consequence of ignoring a level of nesting in multilevel analysis. Multivariate Behavioral ' +
-        'Research, 39(1): the variance of an ignored level is redistributed to the adjacent levels',
+      // checked against the ERIC record's abstract (ED 422 400); the later journal version is not cited, being unchecked
+      'Opdenakker, M.-C., & Van Damme, J. (1998). The importance of identifying levels in multilevel analysis: an illustration of ' +
+        'the effects of ignoring the top or intermediate levels in school effectiveness research. Paper presented at the annual ' +
+        'meeting of the American Educational Research Association, San Diego (ERIC ED422400): ignoring the top level overstates ' +
+        'the variance of the highest level kept, ignoring an intermediate level that of the levels just above and below it',
       'Self, S. G., & Liang, K.-Y. (1987). JASA, 82(398), 605–610; Stram, D. O., & Lee, J. W. (1994). Biometrics, 50(4), ' +
         '1171–1177: a variance tested on its boundary against ½χ²₀ + ½χ²₁',
       'LeBreton, J. M., & Senter, J. L. (2008). Organizational Research Methods, 11(4), 815–852: ICC(1) of .05 is small to medium',

@@ -39,14 +39,23 @@ describe('weights-audit', () => {
     expect(small).toMatchObject({ severity: 'note', groups: ['G007'], count: 1 });
   });
 
-  it('the report carries the per-group scale factors and Kish figures', () => {
+  it('the report carries the scale factors bounded (spread, extreme groups) and the Kish figures', () => {
     const w = report.weights;
-    expect(w?.level1?.groups).toHaveLength(12);
-    const g7 = w?.level1?.groups.find((g) => g.group === 'G007');
-    // by hand: weights 100, 1, 1, 1, 1, 1: Σw 105, Σw² 10005; effective 11025 / 10005, scale 6/105 and 105/10005
+    const scaling = w?.level1?.scaling;
+    expect(scaling?.groups).toBe(12);
+    // G007 (weights 100, 1, 1, 1, 1, 1) is by far the most extreme; G005 (a zero weight) next
+    const g7 = scaling?.extreme[0];
+    expect(g7?.group).toBe('G007');
+    // by hand: Σw 105, Σw² 10005; effective 11025 / 10005, scale 6/105 and 105/10005
     expect(g7?.effectiveSize).toBeCloseTo(11025 / 10005, 12);
     expect(g7?.sizeScale).toBeCloseTo(6 / 105, 12);
     expect(g7?.effectiveScale).toBeCloseTo(105 / 10005, 12);
+    // G005 (0, 2, 1, 2, 1, 2): factor 6/8 against the median 6/9, |log| 0.118; G006 (5 weights, Σw 7): 5/7, |log| 0.069
+    expect(scaling?.extreme.slice(1, 3).map((g) => g.group)).toEqual(['G005', 'G006']);
+    expect(scaling?.extreme).toHaveLength(12); // at most 20: all 12 groups here, furthest first
+    expect(scaling?.size.min).toBeCloseTo(6 / 105, 12);
+    expect(scaling?.effective.min).toBeCloseTo(105 / 10005, 12);
+    expect(report).not.toHaveProperty('weightFactors');
     expect(w?.level2).toMatchObject({ groups: 12, missing: 0, varyingGroups: ['G003'] });
     // the level-1 weights alternate 1, 2 whatever the group weight: not total
     expect(w?.form?.form).not.toBe('total');
@@ -55,6 +64,17 @@ describe('weights-audit', () => {
     const sum = all.reduce((a, b) => a + b, 0);
     const deff = (all.length * all.reduce((a, b) => a + b * b, 0)) / sum ** 2;
     expectMessage(byId(report, 'designEffect') as NonNullable<ReturnType<typeof byId>>, 'designEffect', { deff: deff.toFixed(2) });
+  });
+
+  it("every group's factors only when asked for, equal to the extremes the report lists", async () => {
+    const r = await auditRows(planted(), roles, { plotData: false, weightFactors: true });
+    expect(r.weightFactors?.map((g) => g.group)).toEqual(Array.from({ length: 12 }, (_, j) => groupId(j)));
+    for (const g of report.weights?.level1?.scaling.extreme ?? []) expect(r.weightFactors).toContainEqual(g);
+    // G001: weights 1, 2, 1, 2, 1, 2: Σw 9, Σw² 15; factors 6/9 and 9/15 (by hand)
+    expect(r.weightFactors?.[0]).toMatchObject({ group: 'G001', n: 6, sum: 9 });
+    expect(r.weightFactors?.[0].sizeScale).toBeCloseTo(6 / 9, 12);
+    expect(r.weightFactors?.[0].effectiveScale).toBeCloseTo(9 / 15, 12);
+    expect(r.weights).toEqual(report.weights);
   });
 
   it('--no-values leaves the smallest weights out of the report and the finding', async () => {

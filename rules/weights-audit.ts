@@ -1,4 +1,4 @@
-import { weightsAudit } from '../src/analysis/weights.js';
+import { weightFactors, weightsAudit } from '../src/analysis/weights.js';
 import { defineRule } from '../src/rules/define.js';
 import type { FindingDraft } from '../src/rules/types.js';
 import { formatNumber } from '../src/util/format.js';
@@ -18,8 +18,9 @@ export default defineRule<Params>({
     description:
       'With weights declared: a level-2 weight must be one value within its group; weights must be positive and present; ' +
       'Kish’s design effect of weighting and effective sizes say what the weights cost in precision; level-1 weights that look ' +
-      'total rather than conditional on the group are flagged (a heuristic). The scale factors of the two usual scalings of ' +
-      'level-1 weights within groups are in the report’s `weights`. Guidance: the study’s analysis plan decides how weights enter.',
+      'total rather than conditional on the group are flagged (a heuristic). How the scale factors of the two usual scalings of ' +
+      'level-1 weights within groups spread, and the groups with the most extreme ones, are in the report’s `weights`; every ' +
+      'group’s factors come with `--weight-factors`. Guidance: the study’s analysis plan decides how weights enter.',
     params: {
       type: 'object',
       properties: {
@@ -140,7 +141,7 @@ export default defineRule<Params>({
         data: { column: c.column, deff: formatNumber(c.deff, 2), effective: formatNumber(c.effective, 1), n: c.n, unit: c.unit },
       });
     }
-    const small = w1?.groups.filter((g) => g.effectiveSize < params.effective_share_below * g.n) ?? [];
+    const small = w1 ? weightFactors(profile, w1.column).filter((g) => g.effectiveSize < params.effective_share_below * g.n) : [];
     if (w1 && small.length) {
       out.push({
         messageId: 'smallEffective',

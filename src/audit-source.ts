@@ -9,7 +9,7 @@ import { addPrecision } from './analysis/precision.js';
 import { rulesRun } from './analysis/rules-run.js';
 import { slopeStatistics } from './analysis/slopes.js';
 import { threeLevelOf } from './analysis/three-level.js';
-import { weightsAudit } from './analysis/weights.js';
+import { weightFactors, weightsAudit } from './analysis/weights.js';
 import { measure } from './compare/measure.js';
 import { withChanges } from './compare/run-changes.js';
 import type { AnyChangeRule, Baseline } from './compare/types.js';
@@ -54,6 +54,8 @@ export interface SourceAuditOptions {
   plotData?: boolean;
   /** add the snapshot a later delivery is compared with (one extra pass; README: Snapshot) */
   snapshot?: boolean;
+  /** with level-1 weights declared: every group's scale factors in the report object's `weightFactors` (one entry per group) */
+  weightFactors?: boolean;
   /** compare with this previous delivery: the report gains `changes` and change findings (implies `snapshot`) */
   baseline?: Baseline;
   /** keep the unit IDs with their groups in this Parquet file, for `compare` (DuckDB only) */
@@ -128,6 +130,7 @@ export async function auditSource(source: Source, roleMap: LoadedRoles | Roles, 
       findings,
       fitAdvice: fitAdvice({ roles, groups: groups.count, meanSize: groups.sizes.mean, outcomes, findings }),
       ...(weights && { weights }),
+      ...(options.weightFactors && roles.weights?.level1 && { weightFactors: weightFactors(profile, roles.weights.level1) }),
       ...grade(findings),
       ...(plots && { plots }),
       rulesRun: rulesRun(catalogue, roles),

@@ -6,10 +6,10 @@ import type { ReportFormat } from './report/render.js';
 import { formatForPath, formatName } from './report/render.js';
 import { STDIN } from './source/types.js';
 
-/** Where one output goes: a file, or stdout (path null); `problems` is the CSV of problem rows. */
+/** Where one output goes: a file, or stdout (path null); `problems` is the CSV of problem rows, `weight-factors` that of scale factors. */
 export interface OutputTarget {
   path: string | null;
-  format: ReportFormat | 'problems';
+  format: ReportFormat | 'problems' | 'weight-factors';
 }
 
 /**
@@ -42,7 +42,12 @@ export async function writeOutput(
   }
   writeFileAtomic(target.path, text);
   if (!options.quiet) {
-    const what = target.format === 'problems' ? 'the problem rows (CSV)' : `the ${formatName(target.format)} report`;
+    const what =
+      target.format === 'problems'
+        ? 'the problem rows (CSV)'
+        : target.format === 'weight-factors'
+          ? 'the weight scale factors (CSV)'
+          : `the ${formatName(target.format)} report`;
     process.stderr.write(`nestready: wrote ${what} to ${target.path}\n`);
   }
 }
@@ -101,11 +106,12 @@ export function refuseInputOverwrite(
  * file (not stdin, not a database) or its role map.
  */
 export function protectInputs(
-  flags: { out: readonly string[]; problems?: string; roles: string; source?: string },
+  flags: { out: readonly string[]; problems?: string; weightFactors?: string; roles: string; source?: string },
   delivery: string | undefined,
 ): void {
   const outputs = [...flags.out.map((path) => ({ path, option: '--out' }))];
   if (flags.problems !== undefined) outputs.push({ path: flags.problems, option: '--problems' });
+  if (flags.weightFactors !== undefined) outputs.push({ path: flags.weightFactors, option: '--weight-factors' });
   const inputs = [{ path: flags.roles, what: 'the role map' }];
   if (delivery !== undefined && delivery !== STDIN && flags.source === undefined) inputs.push({ path: delivery, what: 'the delivery' });
   refuseInputOverwrite(outputs, inputs);

@@ -17,8 +17,10 @@ import { problemsCsv } from './problems/csv.js';
 import { DEFAULT_MAX_ROWS } from './problems/types.js';
 import { catalogueJson, catalogueMarkdown, catalogueText } from './report/catalogue.js';
 import { needsPlotData, REPORT_FORMAT_TABLE, REPORT_FORMATS, renderReport } from './report/render.js';
+import { weightFactorsCsv } from './report/weight-factors-csv.js';
 import { loadRoles } from './roles/load-file.js';
 import { roleMapSchema } from './roles/schema.js';
+import type { Roles } from './roles/types.js';
 import { databaseInput, isFileInput } from './source/engines/kinds.js';
 import { deliveryHelp } from './source/formats/registry.js';
 import { spoolStdin } from './source/stdin.js';
@@ -62,6 +64,13 @@ async function deliveryInput(delivery: string | undefined, flags: Pick<AuditFlag
   if (delivery !== STDIN) return { input: delivery, label: delivery, done: () => {} };
   const { file, dir } = await spoolStdin();
   return { input: file, label: STDIN, displayPath: STDIN, done: () => rmSync(dir, { recursive: true, force: true }) };
+}
+
+/** `--weight-factors` has nothing to write without level-1 weights: said before the audit runs. */
+function needsLevel1Weights(rolesFile: string, roles: Roles): void {
+  if (roles.weights?.level1 === undefined) {
+    throw new InputError(`${rolesFile}: --weight-factors needs level-1 weights in the role map (weights: { level1: column })`);
+  }
 }
 
 /** Colour only for a terminal, never when NO_COLOR is set or output goes to a file. */
@@ -108,6 +117,10 @@ export function buildProgram(): Command {
     .option('--with-plot-data', 'JSON: also write the plot data and the rules that ran (the whole report object)')
     .option('--problems <file>', 'write every offending record to this CSV (record, group, unit, rule, severity, column, reason)')
     .option('--max-rows <n>', 'at most this many problem rows; a last "#" line counts the rest', count, DEFAULT_MAX_ROWS)
+    .option(
+      '--weight-factors <file>',
+      "write every group's scale factors of the level-1 weights to this CSV (the report keeps their spread and extremes)",
+    )
     .option('-q, --quiet', 'no progress line, no "wrote" line per file and no notes on stderr')
     .addOption(
       new Option('--fail-on <severity>', 'exit 1 when a finding is at least this severe').choices(Object.keys(FAIL_ON)).default('blocker'),
@@ -147,6 +160,7 @@ export function buildProgram(): Command {
       const deliveryArg = deliveryArgs[0];
       protectInputs(flags, deliveryArg);
       const roles = loadRoles(flags.roles, [...catalogue, ...changeCatalogue], { preset: flags.preset });
+      if (flags.weightFactors !== undefined) needsLevel1Weights(flags.roles, roles.roles);
       const resolved = await deliveryInput(deliveryArg, flags);
       const delivery = isFileInput(resolved.input) ? resolved.input : resolved.label;
       const note = isFileInput(resolved.input) ? sheetNote(resolved.input, resolved.label, flags.sheet, flags.inputFormat) : null;
@@ -169,10 +183,15 @@ export function buildProgram(): Command {
           decimalComma: flags.decimalComma === true,
           strict: flags.strict === true,
           displayPath: resolved.displayPath,
+          weightFactors: flags.weightFactors !== undefined,
         }).finally(stop);
         for (const target of targets) {
           const options = { color: colorLevel(flags, target.path !== null), failOn: flags.failOn, withPlotData };
           await writeOutput(target, () => renderReport(report, target.format, options), { quiet: flags.quiet === true });
+        }
+        if (flags.weightFactors !== undefined) {
+          const target = { path: flags.weightFactors, format: 'weight-factors' } as const;
+          await writeOutput(target, weightFactorsCsv(report), { quiet: flags.quiet === true });
         }
         if (flags.problems) {
           const stopRows = startProgress(delivery, 'collecting problem rows of', { quiet: flags.quiet === true });

@@ -49,9 +49,10 @@ const SOURCES = {
     'Journal of the Royal Statistical Society A, 158(1), 73–89; Moineddin, R., Matheson, F. I., & Glazier, R. H. (2007). BMC ' +
     'Medical Research Methodology, 7, 34',
   bates: 'Bates, D., Kliegl, R., Vasishth, S., & Baayen, H. (2015). Parsimonious mixed models. arXiv:1506.04967',
-  moerbeek:
-    'Moerbeek, M. (2004). The consequence of ignoring a level of nesting in multilevel analysis. Multivariate Behavioral ' +
-    'Research, 39(1), 129–149',
+  levels:
+    'Opdenakker, M.-C., & Van Damme, J. (1998). The importance of identifying levels in multilevel analysis: an illustration of ' +
+    'the effects of ignoring the top or intermediate levels in school effectiveness research. AERA annual meeting, San Diego ' +
+    '(ERIC ED422400)',
   enders:
     'Enders, C. K., & Tofighi, D. (2007). Centering predictor variables in cross-sectional multilevel models. Psychological ' +
     'Methods, 12(2), 121–138',
@@ -136,7 +137,7 @@ export function fitAdvice(input: FitAdviceInput): FitAdvice {
       topic: 'levels',
       advice: 'Give the level the findings name its own random effect rather than ignoring it',
       because: 'a level beyond the group holds a share of the outcome’s variance',
-      source: SOURCES.moerbeek,
+      source: SOURCES.levels,
       rules: levels,
     });
   }

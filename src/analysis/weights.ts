@@ -3,21 +3,10 @@ import type { Profile } from '../profile/types.js';
 import type { Roles } from '../roles/types.js';
 import type { WeightSums } from '../stats/kish-weights.js';
 import { kishEffectiveSize, weightingDesignEffect, weightScaleFactors } from '../stats/kish-weights.js';
+import type { GroupWeights, WeightScaling } from './weight-scaling.js';
+import { weightScaling } from './weight-scaling.js';
 
-/** One group's level-1 weights and the factors that scale them (Pfeffermann et al. 1998; Carle 2009). */
-export interface GroupWeights {
-  group: string;
-  /** records with a weight */
-  n: number;
-  /** Σ w */
-  sum: number;
-  /** Kish effective size (Σw)² / Σw² */
-  effectiveSize: number;
-  /** factor scaling the weights to sum to n (Σ λw = n) */
-  sizeScale: number;
-  /** factor scaling the weights to sum to the effective size (Σ λw = (Σw)²/Σw²) */
-  effectiveScale: number;
-}
+export type { FactorSpread, GroupWeights, WeightScaling } from './weight-scaling.js';
 
 /** Level-1 (record) weights: the whole delivery's and each group's. */
 export interface Level1Weights {
@@ -34,8 +23,8 @@ export interface Level1Weights {
   designEffect: number;
   /** Kish effective number of records */
   effectiveN: number;
-  /** per group with a weight, in the group table's order */
-  groups: GroupWeights[];
+  /** the scale factors of the groups with a weight: their spread and the most extreme groups (bounded) */
+  scaling: WeightScaling;
 }
 
 /** Level-2 (group) weights: one value per group. */
@@ -97,46 +86,63 @@ export function weightsAudit(profile: Profile, roles: Roles): WeightsAudit | und
   return out;
 }
 
-function level1Weights(profile: Profile, column: string): Level1Weights {
-  const ids = groupIds(profile.groups);
-  const sizes = groupSizes(profile.groups);
-  const n = groupStat(profile.groups, column, 'numericCount');
-  const mean = groupStat(profile.groups, column, 'mean');
-  const ss = groupStat(profile.groups, column, 'ss');
-  const lo = groupStat(profile.groups, column, 'numMin');
-  const all: WeightSums = { n: 0, sum: 0, sumSquares: 0 };
-  const groups: GroupWeights[] = [];
-  const nonPositiveGroups: string[] = [];
-  let missing = 0;
-  for (let j = 0; j < ids.length; j++) {
-    missing += sizes[j] - n[j];
-    if (!n[j]) continue;
-    const m = mean[j] as number;
-    const sums: WeightSums = { n: n[j], sum: n[j] * m, sumSquares: Math.max(0, ss[j] as number) + n[j] * m * m };
-    all.n += sums.n;
-    all.sum += sums.sum;
-    all.sumSquares += sums.sumSquares;
-    if ((lo[j] as number) <= 0) nonPositiveGroups.push(ids[j]);
+/**
+ * Every group's level-1 weights and scale factors, in the group table's order (groups without a
+ * weight left out): one entry per group, so the report carries them only when asked for.
+ *
+ * @param profile the profile (the weight column profiled as numbers)
+ * @param column the level-1 weight column
+ */
+export function weightFactors(profile: Profile, column: string): GroupWeights[] {
+  return groupSums(profile, column).map(({ id, sums }) => {
     const scale = weightScaleFactors(sums);
-    groups.push({
-      group: ids[j],
+    return {
+      group: id,
       n: sums.n,
       sum: sums.sum,
       effectiveSize: kishEffectiveSize(sums),
       sizeScale: scale.size,
       effectiveScale: scale.effective,
-    });
+    };
+  });
+}
+
+/** Σw and Σw² of each group with a weight, from the profile's moments (Σw² = ss + n·mean²). */
+function groupSums(profile: Profile, column: string): { id: string; sums: WeightSums; lowest: number }[] {
+  const ids = groupIds(profile.groups);
+  const n = groupStat(profile.groups, column, 'numericCount');
+  const mean = groupStat(profile.groups, column, 'mean');
+  const ss = groupStat(profile.groups, column, 'ss');
+  const lo = groupStat(profile.groups, column, 'numMin');
+  const out: { id: string; sums: WeightSums; lowest: number }[] = [];
+  for (let j = 0; j < ids.length; j++) {
+    if (!n[j]) continue;
+    const m = mean[j] as number;
+    const sums: WeightSums = { n: n[j], sum: n[j] * m, sumSquares: Math.max(0, ss[j] as number) + n[j] * m * m };
+    out.push({ id: ids[j], sums, lowest: lo[j] as number });
+  }
+  return out;
+}
+
+function level1Weights(profile: Profile, column: string): Level1Weights {
+  const sizes = groupSizes(profile.groups);
+  const perGroup = groupSums(profile, column);
+  const all: WeightSums = { n: 0, sum: 0, sumSquares: 0 };
+  for (const { sums } of perGroup) {
+    all.n += sums.n;
+    all.sum += sums.sum;
+    all.sumSquares += sums.sumSquares;
   }
   const col = profile.column(column);
   return {
     column,
     records: all.n,
-    missing,
-    nonPositiveGroups,
+    missing: sizes.reduce((a, b) => a + b, 0) - all.n,
+    nonPositiveGroups: perGroup.filter((g) => g.lowest <= 0).map((g) => g.id),
     min: col.numMin,
     designEffect: weightingDesignEffect(all),
     effectiveN: kishEffectiveSize(all),
-    groups,
+    scaling: weightScaling(weightFactors(profile, column)),
   };
 }
 

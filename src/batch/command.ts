@@ -29,6 +29,9 @@ export async function auditBatch(args: readonly string[], flags: BatchFlags, col
   if (flags.problems !== undefined) {
     throw new InputError("--problems names one file: in a batch each delivery's problem rows go into its folder under --reports-dir");
   }
+  if (flags.weightFactors !== undefined) {
+    throw new InputError("--weight-factors names one file of one delivery's groups: audit that delivery alone");
+  }
   if (flags.baseline !== undefined) {
     throw new InputError('--baseline names one previous report: compare each delivery with its own (nestready compare)');
   }

@@ -12,6 +12,8 @@ export interface BatchFlags {
   out: string[];
   withPlotData?: boolean;
   problems?: string;
+  /** refused in a batch: one file of one delivery's groups */
+  weightFactors?: string;
   /** refused in a batch: a baseline is one previous report */
   baseline?: string;
   maxRows: number;

@@ -1,19 +1,11 @@
+import { csvField } from '../util/csv-field.js';
 import type { ProblemRows } from './types.js';
+
+// shared with the weight-factors file (src/report/weight-factors-csv.ts)
+export { csvField };
 
 /** Columns of the problem-rows file, in order. */
 export const PROBLEM_COLUMNS = ['record', 'group', 'unit', 'rule', 'severity', 'column', 'reason'] as const;
-
-/**
- * One CSV field (RFC 4180): quoted when it holds a comma, quote, CR or LF, quotes doubled. A
- * field that starts with `=`, `+`, `-`, `@`, a tab or CR gets a leading single quote first, so a
- * spreadsheet shows it as text instead of running it as a formula (OWASP, "CSV Injection").
- */
-export function csvField(value: string | number | null | undefined): string {
-  if (value === null || value === undefined) return '';
-  let s = String(value);
-  if (typeof value === 'string' && /^[=+\-@\t\r]/.test(s)) s = `'${s}`;
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
 
 /**
  * The problem rows as CSV: a header, one line per row (CRLF line ends), and, when rows were

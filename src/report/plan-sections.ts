@@ -1,3 +1,4 @@
+import type { FactorSpread, WeightScaling } from '../analysis/weights.js';
 import type { OutcomeStats } from '../stats/types.js';
 import { formatNumber as f } from '../util/format.js';
 import type { StatTable } from './stat-tables.js';
@@ -10,9 +11,6 @@ export interface PlanSection {
   note?: string;
   tables: StatTable[];
 }
-
-/** Groups whose weight scale factors the renderers show (the JSON report carries all of them). */
-const SHOWN_GROUPS = 10;
 
 /**
  * The sections the role map's plan asks for, in report order: precision for the planned effect
@@ -95,18 +93,34 @@ function weightsTables(report: Report): StatTable[] {
       numeric: [1, 2, 3],
     });
   }
-  const groups = w.level1?.groups ?? [];
-  if (groups.length) {
-    tables.push({
-      caption:
-        'Scale factors of the level-1 weights (Pfeffermann et al. 1998; Carle 2009)' +
-        (groups.length > SHOWN_GROUPS ? `: the first ${SHOWN_GROUPS} of ${groups.length} groups (all in the JSON report)` : ''),
-      head: ['group', 'records', 'Σw', 'effective size', 'factor to size', 'factor to effective size'],
-      rows: groups
-        .slice(0, SHOWN_GROUPS)
-        .map((g) => [g.group, String(g.n), f(g.sum, 3), f(g.effectiveSize, 2), f(g.sizeScale, 4), f(g.effectiveScale, 4)]),
-      numeric: [1, 2, 3, 4, 5],
-    });
-  }
+  const scaling = w.level1?.scaling;
+  if (scaling?.groups) tables.push(...scalingTables(scaling));
   return tables;
+}
+
+function scalingTables(scaling: WeightScaling): StatTable[] {
+  const spread = (name: string, s: FactorSpread) => [name, ...[s.min, s.q1, s.median, s.q3, s.max].map((x) => f(x, 4))];
+  return [
+    {
+      caption: `Scale factors of the level-1 weights over ${scaling.groups} groups (Pfeffermann et al. 1998; Carle 2009)`,
+      head: ['scaled to', 'min', 'lower quartile', 'median', 'upper quartile', 'max'],
+      rows: [spread('group size', scaling.size), spread('effective group size', scaling.effective)],
+      numeric: [1, 2, 3, 4, 5],
+    },
+    {
+      caption:
+        `The ${scaling.extreme.length} groups whose factors lie furthest from the median ` +
+        '(every group’s: --weight-factors, or the library’s weightFactors option)',
+      head: ['group', 'records', 'Σw', 'effective size', 'factor to size', 'factor to effective size'],
+      rows: scaling.extreme.map((g) => [
+        g.group,
+        String(g.n),
+        f(g.sum, 3),
+        f(g.effectiveSize, 2),
+        f(g.sizeScale, 4),
+        f(g.effectiveScale, 4),
+      ]),
+      numeric: [1, 2, 3, 4, 5],
+    },
+  ];
 }

@@ -75,7 +75,23 @@ const fitAdvice = {
 
 const groupList = { ...texts, description: 'group IDs (all of them)' } as const;
 
-/** weights: Kish figures and the per-group factors of the two usual scalings of level-1 weights */
+/** one group's level-1 weights and the factors of the two usual scalings */
+const groupWeights = {
+  type: 'object',
+  additionalProperties: false,
+  required: ['group', 'n', 'sum', 'effectiveSize', 'sizeScale', 'effectiveScale'],
+  properties: { group: text, n: count, sum: stat, effectiveSize: stat, sizeScale: stat, effectiveScale: stat },
+} as const;
+
+/** min, quartiles (Hyndman & Fan definition 7) and max of one scaling's factors over the groups */
+const factorSpread = {
+  type: 'object',
+  additionalProperties: false,
+  required: ['min', 'q1', 'median', 'q3', 'max'],
+  properties: { min: stat, q1: stat, median: stat, q3: stat, max: stat },
+} as const;
+
+/** weights: Kish figures and, bounded, how the factors of the two usual scalings of level-1 weights spread over the groups */
 const weights = {
   type: 'object',
   additionalProperties: false,
@@ -83,7 +99,7 @@ const weights = {
     level1: {
       type: 'object',
       additionalProperties: false,
-      required: ['column', 'records', 'missing', 'nonPositiveGroups', 'designEffect', 'effectiveN', 'groups'],
+      required: ['column', 'records', 'missing', 'nonPositiveGroups', 'designEffect', 'effectiveN', 'scaling'],
       properties: {
         column: text,
         records: count,
@@ -92,13 +108,20 @@ const weights = {
         min: stat,
         designEffect: stat,
         effectiveN: stat,
-        groups: {
-          type: 'array',
-          items: {
-            type: 'object',
-            additionalProperties: false,
-            required: ['group', 'n', 'sum', 'effectiveSize', 'sizeScale', 'effectiveScale'],
-            properties: { group: text, n: count, sum: stat, effectiveSize: stat, sizeScale: stat, effectiveScale: stat },
+        scaling: {
+          type: 'object',
+          additionalProperties: false,
+          required: ['groups', 'size', 'effective', 'extreme'],
+          properties: {
+            groups: count,
+            size: factorSpread,
+            effective: factorSpread,
+            extreme: {
+              type: 'array',
+              items: groupWeights,
+              maxItems: 20,
+              description: 'the groups whose factors are furthest from the median',
+            },
           },
         },
       },
@@ -363,5 +386,6 @@ export const reportSchema = {
     changes: changesSchema,
     plots: { type: 'object', description: 'with --with-plot-data only; not a stable field' },
     rulesRun: { type: 'array', description: 'with --with-plot-data only; not a stable field' },
+    weightFactors: { type: 'array', items: groupWeights, description: 'with --with-plot-data and weight factors asked for only' },
   },
 } as const;

@@ -1,6 +1,6 @@
 import type { FitAdvice } from '../analysis/fit-advice.js';
 import type { PlotData, RuleRun } from '../analysis/types.js';
-import type { WeightsAudit } from '../analysis/weights.js';
+import type { GroupWeights, WeightsAudit } from '../analysis/weights.js';
 import type { Grade, Verdict } from '../grade.js';
 import type { Roles } from '../roles/types.js';
 import type { Finding } from '../rules/types.js';
@@ -25,8 +25,13 @@ export interface Report {
   findings: Finding[];
   /** the "how to fit" section: estimation advice with sources (guidance; absent in reports built by hand) */
   fitAdvice?: FitAdvice;
-  /** with `weights` in the role map: Kish figures and, per group, the factors of the two usual scalings */
+  /** with `weights` in the role map: Kish figures and how the factors of the two usual scalings spread over the groups */
   weights?: WeightsAudit;
+  /**
+   * Every group's level-1 weight scale factors, when the audit was asked for them (`weightFactors`,
+   * `--weight-factors`): one entry per group, so `--format json` leaves it out unless `--with-plot-data`.
+   */
+  weightFactors?: GroupWeights[];
   score: number;
   grade: Grade;
   verdict: Verdict;

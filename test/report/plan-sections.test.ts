@@ -38,14 +38,19 @@ function planned(): Report {
       min: 0.5,
       designEffect: 1.4,
       effectiveN: 2142.9,
-      groups: Array.from({ length: 12 }, (_, j) => ({
-        group: `<b>W-${j}`,
-        n: 50,
-        sum: 75,
-        effectiveSize: 40,
-        sizeScale: 50 / 75,
-        effectiveScale: 40 / 75,
-      })),
+      scaling: {
+        groups: 12,
+        size: { min: 0.5, q1: 0.6, median: 50 / 75, q3: 0.7, max: 0.9 },
+        effective: { min: 0.4, q1: 0.5, median: 40 / 75, q3: 0.6, max: 0.8 },
+        extreme: Array.from({ length: 3 }, (_, j) => ({
+          group: `<b>W-${j}`,
+          n: 50,
+          sum: 75,
+          effectiveSize: 40,
+          sizeScale: 50 / 75,
+          effectiveScale: 40 / 75,
+        })),
+      },
     },
   };
   r.fitAdvice = {
@@ -64,11 +69,17 @@ function planned(): Report {
 }
 
 describe('plan sections in every renderer', () => {
-  it('lists precision, weights (the first 10 groups) and how to fit; none for a report without them', () => {
+  it('lists precision, weights (spread of the factors, extreme groups) and how to fit; none for a report without them', () => {
     const s = planSections(planned());
     expect(s.map((x) => x.heading)).toEqual(['Precision for the planned effect', 'Sampling weights', 'How to fit']);
-    expect(s[1].tables.at(-1)?.rows).toHaveLength(10);
-    expect(s[1].tables.at(-1)?.caption).toMatch(/first 10 of 12 groups \(all in the JSON report\)/);
+    const [spread, extreme] = s[1].tables.slice(-2);
+    expect(spread.caption).toMatch(/over 12 groups/);
+    expect(spread.rows).toEqual([
+      ['group size', '0.5000', '0.6000', '0.6667', '0.7000', '0.9000'],
+      ['effective group size', '0.4000', '0.5000', '0.5333', '0.6000', '0.8000'],
+    ]);
+    expect(extreme.rows).toHaveLength(3);
+    expect(extreme.caption).toMatch(/The 3 groups whose factors lie furthest from the median \(every group’s: --weight-factors/);
     expect(s[0].tables[0].rows.at(-1)).toEqual(['power for 0.25 SD (shifted central t)', '0.610']);
     expect(planSections(demoReport())).toEqual([]);
   });
