@@ -51,8 +51,11 @@ export interface SourceAuditOptions {
    * or terminal report does not (they cost a REML fit per level-1 column)
    */
   plotData?: boolean;
-  /** add the snapshot a later delivery is compared with (one extra pass; README: Snapshot) */
-  snapshot?: boolean;
+  /**
+   * add the snapshot a later delivery is compared with (one extra pass; README: Snapshot);
+   * `groups`: with each sketched column's bins per group too (compare keeps them in memory)
+   */
+  snapshot?: boolean | 'groups';
   /** compare with this previous delivery: the report gains `changes` and change findings (implies `snapshot`) */
   baseline?: Baseline;
   /** keep the unit IDs with their groups in this Parquet file, for `compare` (DuckDB only) */
