@@ -66,15 +66,19 @@ export async function measure(source: Source, profile: Profile, roles: Roles, op
           'delivery only; compare the two files',
       );
   }
-  let units: Measured['units'] = null;
-  if (options.baseline) {
-    if (!unit) skipped.push('units moved, left or joined: the role map declares no unit ID');
-    else if (!options.baseline.unitsFile)
-      skipped.push('units moved, left or joined: the previous delivery was given as its report, which holds no unit ID');
-    else if (!duck) skipped.push('units moved, left or joined: needs both deliveries as files');
-    else units = await unitMoves(source, unit, roles.group, options.baseline.unitsFile);
-  }
+  const units = options.baseline ? await unitsOf(source, roles, options.baseline, skipped) : null;
   return { snapshot, atPreviousEdges, ...(inBoth && { inBoth }), units, skipped };
+}
+
+/** The unit join with the previous delivery, or null with the reason in `skipped`. */
+async function unitsOf(source: Source, roles: Roles, baseline: Baseline, skipped: string[]): Promise<Measured['units']> {
+  const unit = roles.unit;
+  if (!unit) skipped.push('units moved, left or joined: the role map declares no unit ID');
+  else if (!baseline.unitsFile)
+    skipped.push('units moved, left or joined: the previous delivery was given as its report, which holds no unit ID');
+  else if (source.dialect.name !== 'duckdb') skipped.push('units moved, left or joined: needs both deliveries as files');
+  else return unitMoves(source, unit, roles.group, baseline.unitsFile);
+  return null;
 }
 
 /**
