@@ -51,7 +51,8 @@ export async function unitMoves(source: Source, unit: string, group: string, pre
     db.all<Row>(
       `SELECT count(*) FILTER (WHERE ${moved}) AS moved, count(*) FILTER (WHERE c.hu IS NULL) AS "left", ` +
         'count(*) FILTER (WHERE p.hu IS NULL) AS joined, ' +
-        `${first('c', moved, 'c.r')} AS me, ${first('p', 'c.hu IS NULL', "{'u': p.u, 'g': p.g}")} AS le, ${first('c', 'p.hu IS NULL', 'c.r')} AS je ` +
+        `${first('c', moved, 'c.r')} AS me, ${first('p', 'c.hu IS NULL', "{'u': p.u, 'g': p.g}")} AS le, ` +
+        `${first('c', 'p.hu IS NULL', 'c.r')} AS je ` +
         `FROM read_parquet(${literal(previousFile)}) AS p FULL OUTER JOIN (${unitsQuery(source, unit, group, true)}) AS c ` +
         'ON p.hu = c.hu WHERE p.hu IS NULL OR c.hu IS NULL OR p.hg <> c.hg',
     ),
