@@ -20,6 +20,9 @@
 //                  (--batch-groups groups each, default 500) as one batch with a report folder per
 //                  delivery, beside one DuckDB group-by over all its files (`--cases none` runs it alone);
 //                  peak RSS is the batch process's, which holds every audit (bench/batch.js)
+//   --compare      ROWS, e.g. 1000000: also time `nestready compare` of two synthetic deliveries of that
+//                  many rows (seeds s and s+1, 5,000 groups) beside a JSON audit of one, alternating
+//                  (bench/compare.js)
 //
 // For every (rows, groups) case it generates a synthetic delivery (scripts/synth.js) under
 // os.tmpdir()/nestready-bench — reusing synth-r<rows>-g<groups>-s<seed>.csv if an earlier
@@ -48,6 +51,7 @@ import { cpus } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { printBatch, runBatchCase } from './bench/batch.js';
+import { printCompare, runCompareCase } from './bench/compare.js';
 import {
   CLI,
   CORE_RULES,
@@ -143,11 +147,16 @@ const batch = opt.batch
   : null;
 // a failed batch is a result; no summary at all means the harness broke
 if (batch && batch.counts === null) failures++;
+const compared = opt.compare
+  ? await runCompareCase({ rows: opt.compare, groups: 5000, seed, repeat, rolesPath: rolesPaths.full, memoryLimit: opt.memoryLimit })
+  : null;
+if (compared?.runs.some((r) => !r.ok)) failures++;
 
 printResults(results, { repeat, seed, memoryLimit: opt.memoryLimit, code, distBuiltAt });
 printPhases(results);
 printVerdicts(results);
 if (batch) printBatch(batch);
+if (compared) printCompare(compared);
 const distChanged = statSync(CLI).mtime.toISOString() !== distBuiltAt;
 if (distChanged)
   console.log(`WARNING dist/ was rebuilt while the bench ran (now ${statSync(CLI).mtime.toISOString()}): runs may mix code versions`);
@@ -175,6 +184,7 @@ const summary = {
   targets,
   results,
   batch,
+  compare: compared,
 };
 writeFileSync(jsonPath, `${JSON.stringify(summary, null, 2)}\n`);
 console.log(`\nresults: ${jsonPath}${opt.keep ? `; files kept in ${WORK}` : ''}`);

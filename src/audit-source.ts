@@ -52,8 +52,11 @@ export interface SourceAuditOptions {
    * or terminal report does not (they cost a REML fit per level-1 column)
    */
   plotData?: boolean;
-  /** add the snapshot a later delivery is compared with (one extra pass; README: Snapshot) */
-  snapshot?: boolean;
+  /**
+   * add the snapshot a later delivery is compared with (one extra pass; README: Snapshot);
+   * `groups`: with each sketched column's bins per group too (compare keeps them in memory)
+   */
+  snapshot?: boolean | 'groups';
   /** with level-1 weights declared: every group's scale factors in the report object's `weightFactors` (one entry per group) */
   weightFactors?: boolean;
   /** compare with this previous delivery: the report gains `changes` and change findings (implies `snapshot`) */

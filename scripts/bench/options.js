@@ -39,6 +39,7 @@ export function benchOptions(args) {
       'groups-list': { type: 'string' },
       cases: { type: 'string' },
       batch: { type: 'string' },
+      compare: { type: 'string' },
       'batch-groups': { type: 'string', default: '500' },
       'memory-limit': { type: 'string' },
       'rule-sets': { type: 'string', default: 'core,full' },
@@ -76,6 +77,7 @@ export function benchOptions(args) {
   return {
     help: /** @type {const} */ (false),
     batch,
+    compare: opt.compare ? count('compare', opt.compare) : null,
     seed,
     repeat,
     cases,

@@ -15,6 +15,7 @@ const TIME_TAG = 'NRBENCH_TIME';
  * @typedef {object} Timed
  * @property {number} wallMs
  * @property {number | null} cpuMs
+ * @property {number | null} maxRssMB peak RSS of the process (GNU time), null without it
  * @property {number | null} code
  * @property {NodeJS.Signals | null} signal
  * @property {string} stdout
@@ -31,7 +32,7 @@ const TIME_TAG = 'NRBENCH_TIME';
 export function timed(args, env = {}) {
   return new Promise((resolvePromise) => {
     const load1 = loadavg()[0];
-    const [cmd, argv] = GNU_TIME ? [GNU_TIME, ['-f', `${TIME_TAG} %U %S`, process.execPath, ...args]] : [process.execPath, args];
+    const [cmd, argv] = GNU_TIME ? [GNU_TIME, ['-f', `${TIME_TAG} %U %S %M`, process.execPath, ...args]] : [process.execPath, args];
     const t0 = performance.now();
     const child = spawn(cmd, argv, { cwd: ROOT, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
     let stdout = '';
@@ -43,20 +44,31 @@ export function timed(args, env = {}) {
       stderr += d;
     });
     child.on('error', (e) =>
-      resolvePromise({ wallMs: performance.now() - t0, cpuMs: null, code: null, signal: null, stdout, stderr: String(e), load1 }),
+      resolvePromise({
+        wallMs: performance.now() - t0,
+        cpuMs: null,
+        maxRssMB: null,
+        code: null,
+        signal: null,
+        stdout,
+        stderr: String(e),
+        load1,
+      }),
     );
     child.on('close', (code, signal) => {
       const wallMs = performance.now() - t0;
       let cpuMs = null;
-      const m = new RegExp(`^${TIME_TAG} ([\\d.]+) ([\\d.]+)$`, 'm').exec(stderr);
+      let maxRssMB = null;
+      const m = new RegExp(`^${TIME_TAG} ([\\d.]+) ([\\d.]+) (\\d+)$`, 'm').exec(stderr);
       if (m) {
         cpuMs = (Number(m[1]) + Number(m[2])) * 1000;
+        maxRssMB = Number(m[3]) / 1024;
         stderr = stderr
           .replace(m[0], '')
           .replace(/^Command exited with non-zero status \d+$/m, '')
           .trim();
       }
-      resolvePromise({ wallMs, cpuMs, code, signal, stdout, stderr, load1 });
+      resolvePromise({ wallMs, cpuMs, maxRssMB, code, signal, stdout, stderr, load1 });
     });
   });
 }

@@ -19,7 +19,7 @@ export async function baselineOf(
 ): Promise<Baseline> {
   const roles = 'roles' in roleMap ? roleMap.roles : roleMap;
   if (typeof previous === 'string' && isReportFile(previous)) return { report: loadPreviousReport(previous, roles), from: 'report' };
-  const report = await audit(previous, roleMap, { ...options, plotData: false, snapshot: true, keepUnits: unitsFile });
+  const report = await audit(previous, roleMap, { ...options, plotData: false, snapshot: 'groups', keepUnits: unitsFile });
   return {
     report: report as Baseline['report'],
     from: 'delivery',

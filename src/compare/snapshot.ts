@@ -34,6 +34,7 @@ export function buildSnapshot(
   roles: Roles,
   sketches: ReadonlyMap<string, DistributionSketch>,
   includeValues: boolean,
+  bins?: ReadonlyMap<string, ReadonlyMap<string, number[]>>,
 ): Snapshot {
   const groups = profile.groups;
   const sizes = groupSizes(groups);
@@ -63,11 +64,15 @@ export function buildSnapshot(
     const sketch = sketches.get(name);
     columns[name] = { type: col.type, storage: col.storage, missing: col.missing, ...(sketch && { sketch }) };
   }
+  const ids = groupIds(groups);
+  const binned = bins && {
+    bins: Object.fromEntries([...bins].map(([name, byGroup]) => [name, ids.map((id) => byGroup.get(String(id)) ?? [])])),
+  };
   return {
     values: includeValues ? 'raw' : 'hashed',
     rows: profile.rows,
     missingGroupRows: profile.missingGroupRows,
-    groups: { ids: groupIds(groups), sizes, level2, outcomes, missing },
+    groups: { ids, sizes, level2, outcomes, missing, ...binned },
     columns,
   };
 }

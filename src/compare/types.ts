@@ -24,9 +24,23 @@ export interface Measured {
   snapshot: Snapshot;
   /** per column sketched in the previous delivery: the current values at its edges */
   atPreviousEdges: Map<string, DistributionSketch>;
+  /**
+   * per column sketched in both deliveries, when the previous snapshot keeps its bins per group:
+   * the shift within the groups present in both
+   */
+  inBoth?: Map<string, InBoth>;
   /** null when the unit check cannot run (say why in `skipped`) */
   units: UnitChanges | null;
   skipped: string[];
+}
+
+/** A column's bins (at the previous delivery's edges) in the groups present in both deliveries. */
+export interface InBoth {
+  groups: number;
+  previous: number[];
+  current: number[];
+  /** each group present in both with its own bins on each side */
+  byGroup: { id: string; previous: number[]; current: number[] }[];
 }
 
 /** What a change check reads. */

@@ -39,6 +39,7 @@ export const snapshotSchema = {
           },
         },
         missing: { type: 'object', additionalProperties: counts },
+        bins: { type: 'object', additionalProperties: { type: 'array', items: counts } },
       },
     },
     columns: {

@@ -40,6 +40,12 @@ export interface Snapshot {
     outcomes: Record<string, { n: number[]; mean: (number | null)[]; variance: (number | null)[] }>;
     /** per column with a missing value in some group: the missing values per group */
     missing: Record<string, number[]>;
+    /**
+     * per sketched column and group: its values in the sketch's 20 bins (edge k−1, edge k], the
+     * last above the last edge. Only when asked for (the previous delivery of `compare`, given as a
+     * file): it would make a written report several times larger (docs/performance.md)
+     */
+    bins?: Record<string, number[][]>;
   };
   columns: Record<string, SnapshotColumn>;
 }

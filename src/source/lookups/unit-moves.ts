@@ -5,14 +5,19 @@ import type { Source } from '../types.js';
 const EXAMPLES = 20;
 
 /**
- * Each record's unit ID and group (and record number when `numbered`). Not grouped by unit: an ID
- * on several records (the audit's duplicate-unit-id and unit-in-several-groups report those)
- * joins once per pair of records, which costs less than grouping a million IDs first.
+ * Each record's unit ID and group as text, with a 64-bit hash of each (and the record number when
+ * `numbered`). The deliveries are joined on the hashes: a join of narrow integer keys fits the
+ * memory limit where one of a million text IDs spilled; two IDs that share a hash (about one
+ * chance in 10^7 at ten million IDs) would count as one unit. Not grouped by unit: an ID on
+ * several records (the audit's duplicate-unit-id and unit-in-several-groups report those) joins
+ * once per pair of records, which costs less than grouping a million IDs first.
  */
 function unitsQuery(source: Source, unit: string, group: string, numbered: boolean): string {
-  const rec = numbered ? '__rec' : 'NULL';
+  const u = source.dialect.text(ident(unit));
+  const g = source.dialect.text(ident(group));
+  const rec = numbered ? '__rec AS r, ' : '';
   const from = numbered ? source.numbered : source.view;
-  return `SELECT ${ident(unit)} AS u, ${ident(group)} AS g, ${rec} AS r FROM ${from} WHERE ${ident(unit)} IS NOT NULL`;
+  return `SELECT ${rec}hash(${u}) AS hu, hash(${g}) AS hg, ${u} AS u, ${g} AS g FROM ${from} WHERE ${ident(unit)} IS NOT NULL`;
 }
 
 /**
@@ -31,38 +36,34 @@ export interface UnitMoveRows {
 }
 
 /**
- * One join of this delivery's unit IDs with the previous delivery's (exportUnits): units in both
- * whose group differs, units only in the previous delivery and units only in this one, each with
- * its count and the first examples in record order. DuckDB only (it reads the Parquet file).
+ * One join of this delivery's unit IDs with the previous delivery's (exportUnits), aggregated as
+ * it streams: units in both whose group differs, units only in the previous delivery and units
+ * only in this one, each with its count and the first examples (in record order; those that left
+ * by ID). DuckDB only (it reads the Parquet file).
  */
 export async function unitMoves(source: Source, unit: string, group: string, previousFile: string): Promise<UnitMoveRows> {
-  return source.session(async (db) => {
-    await db.run(
-      'CREATE TEMP TABLE nr_unit_moves AS SELECT p.u AS pu, c.u AS cu, p.g AS pg, c.g AS cg, p.r AS pr, c.r AS cr ' +
-        `FROM read_parquet(${literal(previousFile)}) AS p FULL OUTER JOIN (${unitsQuery(source, unit, group, true)}) AS c ON p.u = c.u ` +
-        'WHERE p.u IS NULL OR c.u IS NULL OR p.g IS DISTINCT FROM c.g',
-    );
-    try {
-      type Row = { u: string; g: string | null; r: bigint | number | null };
-      const pick = (where: string, u: string, g: string, r: string, order: string) =>
-        db.all<Row>(`SELECT ${u} AS u, ${g} AS g, ${r} AS r FROM nr_unit_moves WHERE ${where} ORDER BY ${order}, ${u} LIMIT ${EXAMPLES}`);
-      const [counts] = await db.all<{ moved: bigint; left: bigint; joined: bigint }>(
-        'SELECT count(*) FILTER (WHERE pu IS NOT NULL AND cu IS NOT NULL) AS moved, count(*) FILTER (WHERE cu IS NULL) AS "left", ' +
-          'count(*) FILTER (WHERE pu IS NULL) AS joined FROM nr_unit_moves',
-      );
-      const moved = await pick('pu IS NOT NULL AND cu IS NOT NULL', 'cu', 'cg', 'cr', 'cr');
-      const left = await pick('cu IS NULL', 'pu', 'pg', 'pr', 'pu');
-      const joined = await pick('pu IS NULL', 'cu', 'cg', 'cr', 'cr');
-      const ids = (rows: Row[]) => rows.map((x) => String(x.u));
-      const groups = (rows: Row[]) => [...new Set(rows.flatMap((x) => (x.g === null ? [] : [String(x.g)])))];
-      const recs = (rows: Row[]) => rows.map((x) => Number(x.r));
-      return {
-        moved: { count: Number(counts.moved), units: ids(moved), rows: recs(moved), groups: groups(moved) },
-        left: { count: Number(counts.left), units: ids(left), groups: groups(left) },
-        joined: { count: Number(counts.joined), units: ids(joined), rows: recs(joined), groups: groups(joined) },
-      };
-    } finally {
-      await db.run('DROP TABLE IF EXISTS nr_unit_moves');
-    }
-  });
+  type Example = { u: string; g: string | null; r?: bigint | number };
+  type Row = { moved: bigint; left: bigint; joined: bigint; me: Example[] | null; le: Example[] | null; je: Example[] | null };
+  const moved = 'p.hu IS NOT NULL AND c.hu IS NOT NULL';
+  const first = (side: 'p' | 'c', where: string, order: string) =>
+    `min_by({'u': ${side}.u, 'g': ${side}.g${side === 'c' ? ", 'r': c.r" : ''}}, ${order}, ${EXAMPLES}) FILTER (WHERE ${where})`;
+  const [row] = await source.session((db) =>
+    db.all<Row>(
+      `SELECT count(*) FILTER (WHERE ${moved}) AS moved, count(*) FILTER (WHERE c.hu IS NULL) AS "left", ` +
+        'count(*) FILTER (WHERE p.hu IS NULL) AS joined, ' +
+        `${first('c', moved, 'c.r')} AS me, ${first('p', 'c.hu IS NULL', "{'u': p.u, 'g': p.g}")} AS le, ` +
+        `${first('c', 'p.hu IS NULL', 'c.r')} AS je ` +
+        `FROM read_parquet(${literal(previousFile)}) AS p FULL OUTER JOIN (${unitsQuery(source, unit, group, true)}) AS c ` +
+        'ON p.hu = c.hu WHERE p.hu IS NULL OR c.hu IS NULL OR p.hg <> c.hg',
+    ),
+  );
+  const ids = (rows: Example[]) => rows.map((x) => String(x.u));
+  const groups = (rows: Example[]) => [...new Set(rows.flatMap((x) => (x.g === null ? [] : [String(x.g)])))];
+  const recs = (rows: Example[]) => rows.map((x) => Number(x.r));
+  const [me, le, je] = [row.me ?? [], row.le ?? [], row.je ?? []];
+  return {
+    moved: { count: Number(row.moved), units: ids(me), rows: recs(me), groups: groups(me) },
+    left: { count: Number(row.left), units: ids(le), groups: groups(le) },
+    joined: { count: Number(row.joined), units: ids(je), rows: recs(je), groups: groups(je) },
+  };
 }

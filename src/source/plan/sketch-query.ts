@@ -22,12 +22,18 @@ export function sketchKey(i: number, k: number | 'n'): string {
 /**
  * One pass over the delivery counting, for each plan, the values at or below each of its edges:
  * the distribution sketches of the snapshot and, against a previous delivery, the current values
- * at the previous delivery's edges. One row comes back; the number of aggregates is bounded by
- * the plans' edges, not by the rows.
+ * at the previous delivery's edges. The number of aggregates is bounded by the plans' edges, not
+ * by the rows. Without `group` one row comes back; with it one row per group (its ID as `group`),
+ * so that the counts can be summed over any set of groups.
+ *
+ * DuckDB counts each plan's values with one binned histogram (a binary search per value) rather
+ * than one conditional count per edge, which cost several times more (docs/performance.md);
+ * PostgreSQL has no binned histogram and keeps the conditional counts.
  */
-export function sketchQuery(view: string, plans: readonly SketchPlan[], d: Dialect): string {
-  const inner: string[] = [];
+export function sketchQuery(view: string, plans: readonly SketchPlan[], d: Dialect, group?: string): string {
+  const inner: string[] = group === undefined ? [] : [`${ident(group)} AS "group"`];
   const aggs: string[] = [];
+  const outer: string[] = [];
   const reading = new Map<string, string>();
   for (const [i, plan] of plans.entries()) {
     let x = reading.get(plan.name);
@@ -37,10 +43,24 @@ export function sketchQuery(view: string, plans: readonly SketchPlan[], d: Diale
       const c = ident(plan.name);
       inner.push(`${plan.storage === 'double' ? finiteDouble(c) : d.numeric(c)} AS ${x}`);
     }
-    aggs.push(`${d.double(`count(${x})`)} AS ${ident(sketchKey(i, 'n'))}`);
-    for (const [k, edge] of plan.edges.entries()) {
-      aggs.push(`${d.double(`count(CASE WHEN ${x} <= ${doubleLiteral(edge, d)} THEN 1 END)`)} AS ${ident(sketchKey(i, k))}`);
+    const n = ident(sketchKey(i, 'n'));
+    aggs.push(`${d.double(`count(${x})`)} AS ${n}`);
+    outer.push(n);
+    const edges = plan.edges.map((e) => doubleLiteral(e, d));
+    if (d.name === 'duckdb') {
+      // bucket k holds the values in (edge k−1, edge k]; a list of the counts, none above the last edge
+      aggs.push(`map_values(histogram(${x}, [${edges.join(', ')}])) AS h${i}`);
+      for (const k of plan.edges.keys()) outer.push(`coalesce(list_sum(h${i}[1:${k + 1}]), 0)::DOUBLE AS ${ident(sketchKey(i, k))}`);
+    } else {
+      for (const [k, edge] of edges.entries()) {
+        const as = ident(sketchKey(i, k));
+        aggs.push(`${d.double(`count(CASE WHEN ${x} <= ${edge} THEN 1 END)`)} AS ${as}`);
+        outer.push(as);
+      }
     }
   }
-  return `SELECT ${aggs.join(', ')} FROM (SELECT ${inner.join(', ')} FROM ${view}) AS nr_rows`;
+  const grouped = group === undefined ? '' : ' GROUP BY "group"';
+  const key = group === undefined ? '' : '"group", ';
+  const counted = `SELECT ${key}${aggs.join(', ')} FROM (SELECT ${inner.join(', ')} FROM ${view}) AS nr_rows${grouped}`;
+  return d.name === 'duckdb' ? `SELECT ${key}${outer.join(', ')} FROM (${counted}) AS nr_counts` : counted;
 }
