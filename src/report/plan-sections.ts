@@ -2,6 +2,7 @@ import type { OutcomeStats } from '../stats/types.js';
 import { formatNumber as f } from '../util/format.js';
 import type { StatTable } from './stat-tables.js';
 import type { Report } from './types.js';
+import { visibleValue } from './visible.js';
 
 /** A report section on the model the analyst plans: a heading, an optional note, tables. */
 export interface PlanSection {
@@ -104,7 +105,7 @@ function weightsTables(report: Report): StatTable[] {
       head: ['group', 'records', 'Σw', 'effective size', 'factor to size', 'factor to effective size'],
       rows: groups
         .slice(0, SHOWN_GROUPS)
-        .map((g) => [g.group, String(g.n), f(g.sum, 3), f(g.effectiveSize, 2), f(g.sizeScale, 4), f(g.effectiveScale, 4)]),
+        .map((g) => [visibleValue(g.group), String(g.n), f(g.sum, 3), f(g.effectiveSize, 2), f(g.sizeScale, 4), f(g.effectiveScale, 4)]),
       numeric: [1, 2, 3, 4, 5],
     });
   }
