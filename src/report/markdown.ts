@@ -46,9 +46,10 @@ export function renderMarkdown(report: Report): string {
     for (const f of list) {
       const values = shownValues(f);
       const finding = m(visibleText(f.message)) + (values.length ? ` (values: ${m(values.join('; '))})` : '');
+      const column = f.column !== undefined ? m(visibleValue(f.column)) : '';
       out.push(
         `| ${finding} | ${m(visibleText(f.fix))} | ${f.groups?.length ? m(listedGroups(f)) : ''} | ` +
-          `${f.rows?.length ? m(listed(f.rows.map(String))) : ''} | ${f.rule} | ${f.column !== undefined ? m(visibleValue(f.column)) : ''} |`,
+          `${f.rows?.length ? m(listed(f.rows.map(String))) : ''} | ${f.rule} | ${column} |`,
       );
     }
     out.push('');

@@ -28,9 +28,11 @@ const NAMES: Record<number, [short: string, long: string]> = {
 
 // controls (C0, DEL, C1), spaces other than U+0020, zero-width and direction marks, and the
 // control pictures themselves (see above); the combining grapheme joiner apart (it would combine in a class)
-const INVISIBLE =
-  // biome-ignore lint/suspicious/noControlCharactersInRegex: finding the control characters is the point
-  /(?:[\u0000-\u001F\u007F-\u00A0\u00AD\u061C\u115F\u1160\u1680\u180E\u2000-\u200F\u2028-\u202F\u205F-\u206F\u2400-\u2426\u3000\u3164\uFEFF\uFFA0\uFFF9-\uFFFB]|\u034F)/g;
+const INVISIBLE = new RegExp(
+  '(?:[\\u0000-\\u001F\\u007F-\\u00A0\\u00AD\\u061C\\u115F\\u1160\\u1680\\u180E\\u2000-\\u200F\\u2028-\\u202F' +
+    '\\u205F-\\u206F\\u2400-\\u2426\\u3000\\u3164\\uFEFF\\uFFA0\\uFFF9-\\uFFFB]|\\u034F)',
+  'g',
+);
 
 const QUOTED_OR_INVISIBLE = new RegExp(`"(?:[^"\\\\\\n]|\\\\.)*"|${INVISIBLE.source}`, 'g');
 
