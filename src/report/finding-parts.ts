@@ -1,5 +1,6 @@
 import type { Severity } from '../roles/types.js';
 import type { Finding } from '../rules/types.js';
+import { visibleValue } from './visible.js';
 
 /** "a, b, c … (+7 more)": the listed items and how many the finding counts beyond them. */
 export function listed(items: readonly string[], total?: number): string {
@@ -7,10 +8,15 @@ export function listed(items: readonly string[], total?: number): string {
   return items.join(', ') + more;
 }
 
-/** Raw values worth showing beside the message (not when the message already quotes them). */
+/** Values worth showing beside the message (not when the message already quotes them), invisible characters marked. */
 export function shownValues(f: Finding): string[] {
   if (!f.values?.length || !f.values.join('').length || f.message.includes(f.values[0])) return [];
-  return f.values;
+  return f.values.map(visibleValue);
+}
+
+/** The groups a finding lists, invisible characters marked, and how many more it counts. */
+export function listedGroups(f: Finding): string {
+  return listed((f.groups ?? []).map(visibleValue), f.count);
 }
 
 /** Findings of one severity, in report order. */
@@ -20,5 +26,5 @@ export function bySeverity(findings: readonly Finding[], severity: Severity): Fi
 
 /** Where a finding comes from, said plainly after its message: "rule level2-varies, column benches". */
 export function origin(f: Finding): string {
-  return `rule ${f.rule}${f.column !== undefined ? `, column ${f.column}` : ''}`;
+  return `rule ${f.rule}${f.column !== undefined ? `, column ${visibleValue(f.column)}` : ''}`;
 }

@@ -5,6 +5,7 @@ import type { Chart } from './charts/types.js';
 import { escapeHtml as e } from './escape-html.js';
 import { bySeverity } from './finding-parts.js';
 import { findingsHtml } from './html/findings.js';
+import { markedHtml } from './html/marked.js';
 import { planHtml } from './html/plan.js';
 import type { ChartSvgs } from './html/statistics.js';
 import { statisticsHtml } from './html/statistics.js';
@@ -12,6 +13,7 @@ import { STYLES } from './html/styles.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, VERDICT_ADVICE, VERDICT_HEADLINE } from './labels.js';
 import { readingLines } from './reading.js';
 import type { Report } from './types.js';
+import { MARKER_LEGEND } from './visible.js';
 
 /** Nothing in the page may load or run: no scripts, no network, only the inline styles. */
 const CSP = "default-src 'none'; style-src 'unsafe-inline'; img-src data:; base-uri 'none'; form-action 'none'";
@@ -26,12 +28,12 @@ const CSP = "default-src 'none'; style-src 'unsafe-inline'; img-src data:; base-
  */
 export async function renderHtml(report: Report): Promise<string> {
   const charts = reportCharts(report);
-  const svg = (c: Chart | null) => (c ? chartToSvg(c) : Promise.resolve(null));
+  const svg = (c: Chart | null) => (c ? bothWidths(c) : Promise.resolve(null));
   const [sizes, icc, predictors, ...means] = await Promise.all([
     svg(charts.sizes),
     svg(charts.icc),
     svg(charts.predictors),
-    ...charts.means.map((m) => chartToSvg(m.chart)),
+    ...charts.means.map((m) => bothWidths(m.chart)),
   ]);
   const svgs: ChartSvgs = { sizes, icc, predictors, means: new Map() };
   charts.means.forEach((m, i) => {
@@ -67,11 +69,17 @@ ${planHtml(report)}
 </main>
 <footer class="wrap">
 <p>${e(THRESHOLD_CAVEAT)}</p>
+<p class="reading-legend">${markedHtml(MARKER_LEGEND)}</p>
 <p>${madeBy(report)}</p>
 </footer>
 </body>
 </html>
 `;
+}
+
+/** A chart drawn for a wide screen and for a narrow screen or paper, side by side; the stylesheet shows one. */
+async function bothWidths(chart: Chart): Promise<string> {
+  return (await Promise.all([chartToSvg(chart, 'wide'), chartToSvg(chart, 'narrow')])).join('');
 }
 
 function summaryLine(report: Report): string {

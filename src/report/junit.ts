@@ -1,8 +1,9 @@
 import type { Finding } from '../rules/types.js';
 import type { FailOn } from '../severity.js';
 import { failsGate } from '../severity.js';
-import { listed, origin } from './finding-parts.js';
+import { listed, listedGroups, origin } from './finding-parts.js';
 import type { Report, RuleRun } from './types.js';
+import { visibleText, visibleValue } from './visible.js';
 import { xmlAttr, xmlText } from './xml-escape.js';
 
 export interface JunitOptions {
@@ -30,7 +31,8 @@ export function renderJunit(report: Report, options: JunitOptions): string {
     if (failed.length) failures++;
     const body: string[] = [];
     if (failed.length) {
-      const message = failed.length === 1 ? failed[0].message : `${failed.length} findings; first: ${failed[0].message}`;
+      const first = visibleText(failed[0].message);
+      const message = failed.length === 1 ? first : `${failed.length} findings; first: ${first}`;
       body.push(
         `      <failure message="${xmlAttr(message)}" type="${xmlAttr(failed[0].severity)}">` +
           `${xmlText(failed.map(findingText).join('\n\n'))}</failure>`,
@@ -67,10 +69,10 @@ export function renderJunit(report: Report, options: JunitOptions): string {
 }
 
 function findingText(f: Finding): string {
-  const lines = [`${f.severity}: ${f.message}`, `ask for: ${f.fix}`];
-  if (f.groups?.length) lines.push(`groups: ${listed(f.groups, f.count)}`);
+  const lines = [`${f.severity}: ${visibleText(f.message)}`, `ask for: ${visibleText(f.fix)}`];
+  if (f.groups?.length) lines.push(`groups: ${listedGroups(f)}`);
   if (f.rows?.length) lines.push(`records: ${listed(f.rows.map(String))}`);
-  if (f.values?.length) lines.push(`values: ${f.values.join('; ')}`);
+  if (f.values?.length) lines.push(`values: ${f.values.map(visibleValue).join('; ')}`);
   lines.push(origin(f));
   return lines.join('\n');
 }

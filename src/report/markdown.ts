@@ -1,5 +1,5 @@
 import { SEVERITIES, SEVERITY_ACTION, SEVERITY_WORD } from '../severity.js';
-import { bySeverity, listed, shownValues } from './finding-parts.js';
+import { bySeverity, listed, listedGroups, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, VERDICT_HEADLINE, verdictSentence } from './labels.js';
 import { mdText as m, mdHeading, mdLine } from './md-escape.js';
 import { planSections } from './plan-sections.js';
@@ -10,6 +10,7 @@ import type { StatTable } from './stat-tables.js';
 import { anovaTable, componentsTable, extremesTable, groupsTable, predictorsTable } from './stat-tables.js';
 import { threeLevelTables } from './three-level-table.js';
 import type { Report } from './types.js';
+import { MARKER_LEGEND, showsMarkers, visibleText, visibleValue } from './visible.js';
 
 /**
  * The report as Markdown for a ticket or pull request: the same content as the HTML report
@@ -44,10 +45,11 @@ export function renderMarkdown(report: Report): string {
     out.push('| finding | ask for | groups | records | rule | column |', '|---|---|---|---|---|---|');
     for (const f of list) {
       const values = shownValues(f);
-      const finding = m(f.message) + (values.length ? ` (values: ${m(values.join('; '))})` : '');
+      const finding = m(visibleText(f.message)) + (values.length ? ` (values: ${m(values.join('; '))})` : '');
+      const column = f.column !== undefined ? m(visibleValue(f.column)) : '';
       out.push(
-        `| ${finding} | ${m(f.fix)} | ${f.groups?.length ? m(listed(f.groups, f.count)) : ''} | ` +
-          `${f.rows?.length ? m(listed(f.rows.map(String))) : ''} | ${f.rule} | ${f.column !== undefined ? m(f.column) : ''} |`,
+        `| ${finding} | ${m(visibleText(f.fix))} | ${f.groups?.length ? m(listedGroups(f)) : ''} | ` +
+          `${f.rows?.length ? m(listed(f.rows.map(String))) : ''} | ${f.rule} | ${column} |`,
       );
     }
     out.push('');
@@ -74,7 +76,9 @@ export function renderMarkdown(report: Report): string {
   const predictors = predictorsTable(report);
   if (predictors) out.push('### Level-1 predictors', '', ...table(predictors));
   out.push(...planMarkdown(report));
-  out.push('---', '', `_${m(THRESHOLD_CAVEAT)}_`, '', `${mdLine(report.tool.name)} ${m(report.tool.version)} (${m(report.schema)})`);
+  out.push('---', '');
+  if (showsMarkers(out.join('\n'))) out.push(`_${m(MARKER_LEGEND)}_`, '');
+  out.push(`_${m(THRESHOLD_CAVEAT)}_`, '', `${mdLine(report.tool.name)} ${m(report.tool.version)} (${m(report.schema)})`);
   return `${out.join('\n')}\n`;
 }
 

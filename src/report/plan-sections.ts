@@ -3,6 +3,7 @@ import type { OutcomeStats } from '../stats/types.js';
 import { formatNumber as f } from '../util/format.js';
 import type { StatTable } from './stat-tables.js';
 import type { Report } from './types.js';
+import { visibleValue } from './visible.js';
 
 /** A report section on the model the analyst plans: a heading, an optional note, tables. */
 export interface PlanSection {
@@ -113,7 +114,7 @@ function scalingTables(scaling: WeightScaling): StatTable[] {
         '(every group’s: --weight-factors, or the library’s weightFactors option)',
       head: ['group', 'records', 'Σw', 'effective size', 'factor to size', 'factor to effective size'],
       rows: scaling.extreme.map((g) => [
-        g.group,
+        visibleValue(g.group),
         String(g.n),
         f(g.sum, 3),
         f(g.effectiveSize, 2),

@@ -2,6 +2,7 @@ import type { OutcomeStats } from '../stats/types.js';
 import { formatNumber as f, formatP } from '../util/format.js';
 import { centeringAdvice } from './centering-advice.js';
 import type { Report } from './types.js';
+import { visibleValue } from './visible.js';
 
 /** A table as plain text cells, shared by the HTML and Markdown renderers (same content). */
 export interface StatTable {
@@ -88,7 +89,7 @@ export function extremesTable(report: Report, outcome: string, k = 5): StatTable
     caption: `${outcome}: ${pts.length <= 2 * k ? 'all group means' : `the ${k} lowest and ${k} highest group means`}`,
     head: ['group', 'rank', 'records', 'mean', '95% interval'],
     rows: picked.map((p) => [
-      p.group,
+      visibleValue(p.group),
       `${p.rank} of ${m.total}`,
       String(p.n),
       f(p.mean, 3),

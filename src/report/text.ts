@@ -4,13 +4,14 @@ import type { Finding } from '../rules/types.js';
 import type { Severity } from '../severity.js';
 import { SEVERITIES, SEVERITY_ACTION, SEVERITY_SHAPE, SEVERITY_WORD } from '../severity.js';
 import { formatNumber, pClause } from '../util/format.js';
-import { bySeverity, listed, origin, shownValues } from './finding-parts.js';
+import { bySeverity, listed, listedGroups, origin, shownValues } from './finding-parts.js';
 import { gradeLine, SCORE_RULE, THRESHOLD_CAVEAT, verdictSentence } from './labels.js';
 import { planTextLines } from './plan-text.js';
 import { poissonTable } from './poisson-table.js';
 import { readingLines } from './reading.js';
 import { threeLevelLines } from './three-level-table.js';
 import type { Report } from './types.js';
+import { MARKER_LEGEND, showsMarkers, visibleText } from './visible.js';
 
 export interface TextOptions {
   /** chalk colour level: 0 none … 3 truecolor */
@@ -55,6 +56,7 @@ export function renderText(report: Report, options: TextOptions): string {
   out.push(...statisticsLines(report, c));
   out.push(...planTextLines(report, c));
   out.push('');
+  if (showsMarkers(out.join('\n'))) out.push(tone.dim(MARKER_LEGEND));
   out.push(tone.dim(THRESHOLD_CAVEAT));
   return `${out.join('\n')}\n`;
 }
@@ -76,9 +78,9 @@ function severityColumn(number: number, severity: Severity): string {
 }
 
 function findingLines(number: number, f: Finding, tone: (s: string) => string, dim: (s: string) => string): string[] {
-  const lines = [`${tone(severityColumn(number, f.severity))}${f.message}`];
-  lines.push(`${GUTTER}ask for: ${f.fix}`);
-  if (f.groups?.length) lines.push(dim(`${GUTTER}groups: ${listed(f.groups, f.count)}`));
+  const lines = [`${tone(severityColumn(number, f.severity))}${visibleText(f.message)}`];
+  lines.push(`${GUTTER}ask for: ${visibleText(f.fix)}`);
+  if (f.groups?.length) lines.push(dim(`${GUTTER}groups: ${listedGroups(f)}`));
   if (f.rows?.length) lines.push(dim(`${GUTTER}records: ${listed(f.rows.map(String), undefined)}`));
   const values = shownValues(f);
   if (values.length) lines.push(dim(`${GUTTER}values: ${values.join('; ')}`));

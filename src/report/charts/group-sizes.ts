@@ -1,6 +1,6 @@
 import { PALETTE } from '../palette.js';
 import type { PlotData } from '../types.js';
-import { CHART_CONFIG, CHART_SIZE } from './theme.js';
+import { CHART_CONFIG, CHART_SIZE, COUNT_AXIS } from './theme.js';
 import type { Chart } from './types.js';
 
 /**
@@ -13,12 +13,14 @@ export function groupSizesChart(plots: PlotData): Chart | null {
   const threshold = plots.smallGroupThreshold;
   const kind = (size: number) =>
     size === 1 ? 'singleton (1 record)' : threshold !== undefined && size < threshold ? `small (fewer than ${threshold})` : 'other groups';
-  const kinds = [
-    'singleton (1 record)',
-    ...(threshold !== undefined && threshold > 2 ? [`small (fewer than ${threshold})`] : []),
-    'other groups',
-  ];
+  const colours: Record<string, string> = {
+    'singleton (1 record)': PALETTE.highlight,
+    [`small (fewer than ${threshold})`]: PALETTE.warning,
+    'other groups': PALETTE.accent,
+  };
   const values = hist.map((h) => ({ size: h.size, count: h.count, kind: kind(h.size) }));
+  // the legend names only the kinds this delivery has, and none when all groups are of one kind
+  const kinds = Object.keys(colours).filter((k) => values.some((v) => v.kind === k));
   const groups = hist.reduce((a, h) => a + h.count, 0);
   const singletons = hist.find((h) => h.size === 1)?.count ?? 0;
   const small = threshold === undefined ? 0 : hist.filter((h) => h.size < threshold).reduce((a, h) => a + h.count, 0);
@@ -33,13 +35,14 @@ export function groupSizesChart(plots: PlotData): Chart | null {
       data: { values },
       mark: { type: 'bar' },
       encoding: {
-        x: { field: 'size', type: 'quantitative', bin: { maxbins: 40, minstep: 1 }, title: 'records per group' },
-        y: { aggregate: 'sum', field: 'count', type: 'quantitative', title: 'groups' },
+        x: { field: 'size', type: 'quantitative', bin: { maxbins: 40, minstep: 1 }, title: 'records per group', axis: COUNT_AXIS },
+        y: { aggregate: 'sum', field: 'count', type: 'quantitative', title: 'groups', axis: COUNT_AXIS },
         color: {
           field: 'kind',
           type: 'nominal',
           title: null,
-          scale: { domain: kinds, range: [PALETTE.highlight, ...(kinds.length === 3 ? [PALETTE.warning] : []), PALETTE.accent] },
+          scale: { domain: kinds, range: kinds.map((k) => colours[k]) },
+          ...(kinds.length < 2 && { legend: null }),
         },
       },
     },

@@ -1,7 +1,7 @@
 import type { OutcomeStats } from '../../stats/types.js';
 import { formatNumber } from '../../util/format.js';
 import { PALETTE } from '../palette.js';
-import { CHART_CONFIG } from './theme.js';
+import { CHART_CONFIG, CHART_SIZE } from './theme.js';
 import type { Chart } from './types.js';
 
 const METHODS = ['REML', 'ML', 'ANOVA ICC(1)'] as const;
@@ -33,6 +33,9 @@ export function iccChart(outcomes: Record<string, OutcomeStats>, lowIcc: number 
   }
   if (!values.length) return null;
   const rows = values.map((v) => v.row);
+  // the legend names only the methods that gave an estimate
+  const methods = METHODS.filter((m) => values.some((v) => v.method === m));
+  const pick = <T>(range: readonly T[]) => methods.map((m) => range[METHODS.indexOf(m)]);
   const y = { field: 'row', type: 'nominal', title: null, sort: rows };
   const layers: unknown[] = [
     {
@@ -50,13 +53,13 @@ export function iccChart(outcomes: Record<string, OutcomeStats>, lowIcc: number 
           field: 'method',
           type: 'nominal',
           title: 'estimate',
-          scale: { domain: [...METHODS], range: [PALETTE.accent, PALETTE.note, PALETTE.highlight] },
+          scale: { domain: methods, range: pick([PALETTE.accent, PALETTE.note, PALETTE.highlight]) },
         },
         shape: {
           field: 'method',
           type: 'nominal',
           title: 'estimate',
-          scale: { domain: [...METHODS], range: ['circle', 'square', 'diamond'] },
+          scale: { domain: methods, range: pick(['circle', 'square', 'diamond']) },
         },
       },
     },
@@ -86,8 +89,9 @@ export function iccChart(outcomes: Record<string, OutcomeStats>, lowIcc: number 
       $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
       config: CHART_CONFIG,
       title: { text: 'ICC estimates', subtitle: 'REML, ML and ANOVA ICC(1) with its 95% interval' },
-      width: 560,
-      height: { step: 26 },
+      width: CHART_SIZE.width,
+      // a fixed height by rows rather than a step, so the drawing can be fitted to its width
+      height: 26 * values.length,
       layer: layers,
     } as Chart['spec'],
   };

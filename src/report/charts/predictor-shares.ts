@@ -2,7 +2,7 @@ import { formatNumber } from '../../util/format.js';
 import { withoutWithinVariation } from '../centering-advice.js';
 import { PALETTE } from '../palette.js';
 import type { PlotData } from '../types.js';
-import { CHART_CONFIG } from './theme.js';
+import { CHART_CONFIG, CHART_SIZE } from './theme.js';
 import type { Chart } from './types.js';
 
 /**
@@ -57,8 +57,8 @@ export function predictorSharesChart(plots: PlotData): Chart | null {
         text: 'Level-1 predictors: between-group share',
         subtitle: `bar: REML ICC · tick: ANOVA ICC(1)${threshold !== undefined ? ` · dashed line: ${threshold}` : ''}`,
       },
-      width: 560,
-      height: { step: 30 },
+      width: CHART_SIZE.width,
+      height: 30 * values.length,
       layer: layers,
     } as Chart['spec'],
   };

@@ -20,11 +20,11 @@ export const CHART_CONFIG: Config = {
     labelFontSize: 11,
     titleFontSize: 12,
     titleFontWeight: 600,
+    // a long category (an outcome or column name) must not squeeze the plot; axis titles are our own words and are never cut
     labelLimit: 260,
-    // a long column name must not stretch the chart
-    titleLimit: 240,
   },
-  legend: { labelColor: PALETTE.ink, titleColor: PALETTE.ink, labelFontSize: 11, titleFontSize: 12, orient: 'bottom', labelLimit: 320 },
+  // legend labels are our own words (kinds, methods): never cut
+  legend: { labelColor: PALETTE.ink, titleColor: PALETTE.ink, labelFontSize: 11, titleFontSize: 12, orient: 'bottom', labelLimit: 0 },
   title: {
     color: PALETTE.ink,
     subtitleColor: PALETTE.muted,
@@ -38,5 +38,16 @@ export const CHART_CONFIG: Config = {
   mark: { color: PALETTE.accent },
 };
 
-/** Width and height of a chart's plotting area in px. */
-export const CHART_SIZE = { width: 620, height: 240 } as const;
+/** Height of a chart's plotting area in px; the width is the variant's (CHART_WIDTHS). */
+export const CHART_SIZE = { width: 1088, height: 240 } as const;
+
+/**
+ * Each chart is drawn twice, at a whole width (axes, legend and padding included) that fills the
+ * report's card on a wide screen and on a narrow screen or a printed page; the stylesheet shows
+ * one. Scaling a single drawing would leave it either cramped wide or with unreadable text narrow.
+ */
+export const CHART_WIDTHS = { wide: 1088, narrow: 700 } as const;
+export type ChartVariant = keyof typeof CHART_WIDTHS;
+
+/** Count axes (groups, records per group, ranks): whole-number ticks only, never 0.5 groups. */
+export const COUNT_AXIS = { tickMinStep: 1, format: 'd' } as const;

@@ -1,8 +1,10 @@
 import type { Finding } from '../../rules/types.js';
 import { SEVERITIES, SEVERITY_ACTION, SEVERITY_SHAPE, SEVERITY_WORD } from '../../severity.js';
 import { escapeHtml as e } from '../escape-html.js';
-import { bySeverity, listed, origin, shownValues } from '../finding-parts.js';
+import { bySeverity, listed, listedGroups, origin, shownValues } from '../finding-parts.js';
 import type { Report } from '../types.js';
+import { visibleText } from '../visible.js';
+import { markedHtml as v } from './marked.js';
 
 /**
  * The findings section: one list per severity, numbered through the whole report (so a reply to
@@ -44,17 +46,17 @@ function findingHtml(f: Finding, number: number): string {
     `<li class="finding sev-${f.severity}">`,
     severityCell(f, number),
     '<div class="body">',
-    `<p class="message">${e(f.message)}</p>`,
-    `<p class="ask"><strong>Ask for:</strong> ${e(f.fix)}</p>`,
+    `<p class="message">${v(visibleText(f.message))}</p>`,
+    `<p class="ask"><strong>Ask for:</strong> ${v(visibleText(f.fix))}</p>`,
   ];
   const rows: string[] = [];
   if (f.groups?.length) {
-    rows.push(`<dt>Groups</dt><dd>${e(listed(f.groups, f.count))}</dd>`);
+    rows.push(`<dt>Groups</dt><dd>${v(listedGroups(f))}</dd>`);
   }
   if (f.rows?.length) rows.push(`<dt>Records</dt><dd>${e(listed(f.rows.map(String)))}</dd>`);
   const values = shownValues(f);
-  if (values.length) rows.push(`<dt>Values seen</dt><dd><ul>${values.map((v) => `<li>${e(v)}</li>`).join('')}</ul></dd>`);
+  if (values.length) rows.push(`<dt>Values seen</dt><dd><ul>${values.map((x) => `<li>${v(x)}</li>`).join('')}</ul></dd>`);
   if (rows.length) parts.push(`<dl>${rows.join('')}</dl>`);
-  parts.push(`<p class="origin">${e(origin(f))}</p>`, '</div>', '</li>');
+  parts.push(`<p class="origin">${v(origin(f))}</p>`, '</div>', '</li>');
   return parts.join('');
 }

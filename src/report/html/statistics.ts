@@ -19,20 +19,23 @@ function figure(svg: string | null, caption: string): string {
   return `<figure class="chart">${svg}<figcaption>${e(caption)}</figcaption></figure>`;
 }
 
+/** What the group-size chart marks, saying only what this delivery has. */
+function sizesCaption(report: Report): string {
+  const threshold = report.plots?.smallGroupThreshold;
+  const small = report.plots?.groupSizes.some((h) => h.count > 0 && (h.size === 1 || (threshold !== undefined && h.size < threshold)));
+  const line = threshold !== undefined ? ` The dashed line marks the small-group threshold (${threshold} records).` : '';
+  return small
+    ? `Records per group. Singletons and groups below the small-group threshold have their own colour, named in the legend.${line}`
+    : `Records per group: no singletons${threshold !== undefined ? ' and no small groups' : ''}.${line}`;
+}
+
 /** The statistics section: groups, each outcome's variance components, ICCs and level-1 shares, with plots. */
 export function statisticsHtml(report: Report, svgs: ChartSvgs): string {
   const out = ['<section id="statistics" aria-labelledby="statistics-h">', '<h2 id="statistics-h">Statistics</h2>'];
   if (!report.plots) out.push('<p class="muted">This report carries no plot data, so it has no plots.</p>');
 
   out.push('<section aria-labelledby="groups-h"><h3 id="groups-h">Groups</h3>', statTableHtml(groupsTable(report)));
-  out.push(
-    figure(
-      svgs.sizes,
-      `Records per group. Singletons and groups below ${report.plots?.smallGroupThreshold ?? 'the threshold'} records have their own ` +
-        'colour and are named in the legend; the dashed line marks the small-group threshold.',
-    ),
-    '</section>',
-  );
+  out.push(figure(svgs.sizes, sizesCaption(report)), '</section>');
 
   const names = Object.keys(report.outcomes);
   out.push('<section aria-labelledby="outcomes-h"><h3 id="outcomes-h">Outcomes</h3>');
@@ -51,7 +54,10 @@ export function statisticsHtml(report: Report, svgs: ChartSvgs): string {
       figure(
         svgs.means.get(name) ?? null,
         `Group means of ${name}, lowest to highest, each with mean ± 1.96·SE; the dashed line is the overall (REML) mean. The wider ` +
-          'the spread relative to the bars, the larger the ICC.',
+          'the spread relative to the bars, the larger the ICC.' +
+          (report.plots?.groupMeans[name]?.points.some((p) => p.n === 1)
+            ? ' Hollow marks are singleton groups: one record gives no interval.'
+            : ''),
       ),
     );
     const ext = extremesTable(report, name);

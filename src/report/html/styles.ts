@@ -58,14 +58,28 @@ td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
 .table-scroll { max-width: 100%; overflow-x: auto; }
 figure.chart { margin: 0.75rem 0 1.25rem; background: ${P.panel}; border: 1px solid ${P.line}; border-radius: 6px;
   padding: 0.5rem; max-width: 100%; overflow-x: auto; }
-figure.chart svg { display: block; max-width: 100%; height: auto; }
+figure.chart svg { display: block; width: 100%; height: auto; }
+/* the chart drawn for the width at hand: wide from 60rem, else the narrow drawing (also on paper) */
+figure.chart svg.narrow { display: none; }
+@media (max-width: 59.99rem) { figure.chart svg.wide { display: none; } figure.chart svg.narrow { display: block; } }
+.inv { font-family: ui-monospace, SFMono-Regular, Menlo, Consolas, monospace; font-size: 0.85em; font-weight: 600;
+  color: ${P.highlight}; background: ${P.warningSoft}; border-radius: 2px; padding: 0 1px; }
 figure.chart figcaption { font-size: 0.88rem; color: ${P.muted}; padding: 0.35rem 0.25rem 0; }
 .muted { color: ${P.muted}; }
 footer { margin: 2.5rem 0 2rem; padding-top: 0.75rem; border-top: 1px solid ${P.line}; font-size: 0.88rem; color: ${P.muted}; }
+@page { size: A4; margin: 14mm 12mm; }
 @media print {
-  body { background: #fff; }
-  header.top { background: #fff; color: ${P.ink}; border-bottom: 3px solid ${P.accent}; }
-  .finding, figure.chart { break-inside: avoid; }
+  body { background: #fff; font-size: 10.5pt; }
+  .wrap { max-width: none; padding: 0; }
+  header.top { background: #fff; color: ${P.ink}; border-bottom: 3px solid ${P.accent}; padding: 0 0 0.6rem; }
+  /* no card cut across two pages; a heading stays with what follows it */
+  .finding, figure.chart, .verdict, .table-scroll, table, .none, .reading-legend { break-inside: avoid; }
+  h2, h3, h4, caption { break-after: avoid; }
+  figure.chart { overflow: visible; }
+  figure.chart svg.wide { display: none; }
+  figure.chart svg.narrow { display: block; }
+  .table-scroll { overflow: visible; }
   nav.toc { display: none; }
+  a { color: inherit; text-decoration: none; }
 }
 `;

@@ -1,11 +1,11 @@
-import { escapeHtml as e } from '../escape-html.js';
+import { markedHtml as e } from './marked.js';
 
 /** One cell: text, or `{ num }` for a right-aligned number already formatted. */
 export type Cell = string | { num: string };
 
 /**
  * An accessible data table: a caption, column headers with scope="col" and the first cell of
- * each row as its row header. Every value is escaped here.
+ * each row as its row header. Every value is escaped here (markers of invisible characters styled).
  */
 export function tableHtml(caption: string, head: string[], rows: Cell[][]): string {
   const cell = (c: Cell, i: number) => {
