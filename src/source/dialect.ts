@@ -75,7 +75,8 @@ export const postgres: Dialect = {
   // the length guard the cast to numeric; the bounds keep what is read inside double precision's range
   numeric: (e) =>
     `(CASE WHEN length(${e}) <= ${PLAIN_LENGTH} AND ${e} ~ '${PLAIN_RE}' THEN CAST(${e} AS double precision) ` +
-    `WHEN length(${e}) <= ${NUMERIC_DIGITS} AND ${e} ~ '${NUMBER_RE}' THEN CASE WHEN abs(CAST(${e} AS numeric)) > ${MAX_MAGNITUDE} THEN NULL ` +
+    `WHEN length(${e}) <= ${NUMERIC_DIGITS} AND ${e} ~ '${NUMBER_RE}' ` +
+    `THEN CASE WHEN abs(CAST(${e} AS numeric)) > ${MAX_MAGNITUDE} THEN NULL ` +
     // below double precision's normal range the cast fails where DuckDB reads 0 (or a subnormal)
     `WHEN abs(CAST(${e} AS numeric)) <= 1e-307 THEN 0 ELSE CAST(${e} AS double precision) END END)`,
   // min/max of text follow the database collation in PostgreSQL; "C" is byte order, as DuckDB

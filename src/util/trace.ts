@@ -1,6 +1,7 @@
 /**
  * Opt-in timing of engine queries for performance work: with NESTREADY_TRACE=1 each query's wall
- * time and first words (with NESTREADY_TRACE=full: the whole statement) go to standard error (DEVELOPERS.md, "Finding where the time goes").
+ * time and first words (with NESTREADY_TRACE=full: the whole statement) go to standard error
+ * (DEVELOPERS.md, "Finding where the time goes").
  * Off by default, and never part of a report.
  */
 const mode = typeof process !== 'undefined' ? process.env?.NESTREADY_TRACE : undefined;

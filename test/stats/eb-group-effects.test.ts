@@ -80,6 +80,8 @@ describe('leave-one-out ICCs over size classes', () => {
     groups.push({ n: 40, mean: 30, ss: 80 });
     const indices = [0, 1, 17, 2999, 3000];
     const fast = leaveOneOutIccs(groups, indices);
-    for (const [k, j] of indices.entries()) expect(Math.abs(fast[k] - leaveOneOutIcc(groups, j))).toBeLessThan(1e-12);
+    for (const [k, j] of indices.entries()) {
+      expect(Math.abs(fast[k] - leaveOneOutIcc(groups, j))).toBeLessThan(1e-12);
+    }
   });
 });

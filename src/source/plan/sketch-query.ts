@@ -61,6 +61,7 @@ export function sketchQuery(view: string, plans: readonly SketchPlan[], d: Diale
   }
   const grouped = group === undefined ? '' : ' GROUP BY "group"';
   const key = group === undefined ? '' : '"group", ';
-  const counted = `SELECT ${key}${aggs.join(', ')} FROM (SELECT ${[...inner, ...(d.fence ? [d.fence] : [])].join(', ')} FROM ${view}) AS nr_rows${grouped}`;
+  const readings = [...inner, ...(d.fence ? [d.fence] : [])].join(', ');
+  const counted = `SELECT ${key}${aggs.join(', ')} FROM (SELECT ${readings} FROM ${view}) AS nr_rows${grouped}`;
   return d.name === 'duckdb' ? `SELECT ${key}${outer.join(', ')} FROM (${counted}) AS nr_counts` : counted;
 }
