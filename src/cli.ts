@@ -147,6 +147,10 @@ export function buildProgram(): Command {
     .option('--table <name>', 'with --source: the table or view')
     .option('--query <sql>', 'with --source: a query whose rows are the delivery')
     .option('--strict', 'any line that cannot be read is an input error (exit 2), not a finding')
+    .option(
+      '--repeatable',
+      'one engine thread, so that reruns of a large delivery give byte-identical reports (slower; README: Repeatable reports)',
+    )
     .option('--reports-dir <dir>', "batch: write each delivery's HTML and JSON report and problem rows into a folder of its own here")
     .option('--sender-from <regex>', "batch: the sender's name from the file name: the group named sender, else the first group")
     .option('--at-once <n>', 'batch: audit at most this many deliveries at once (default: the cores)', count)
@@ -182,6 +186,7 @@ export function buildProgram(): Command {
           sheet: flags.sheet,
           decimalComma: flags.decimalComma === true,
           strict: flags.strict === true,
+          ...(flags.repeatable && { threads: 1 }),
           displayPath: resolved.displayPath,
           weightFactors: flags.weightFactors !== undefined,
         }).finally(stop);
@@ -204,6 +209,7 @@ export function buildProgram(): Command {
             encoding: flags.encoding,
             sheet: flags.sheet,
             decimalComma: flags.decimalComma === true,
+            ...(flags.repeatable && { threads: 1 }),
             displayPath: resolved.displayPath,
           }).finally(stopRows);
           await writeOutput({ path: flags.problems, format: 'problems' }, problemsCsv(found), { quiet: flags.quiet === true });

@@ -74,6 +74,7 @@ export async function auditBatch(args: readonly string[], flags: BatchFlags, col
     memoryLimit: flags.memoryLimit,
     atOnce: flags.atOnce ?? availableParallelism(),
     cores: availableParallelism(),
+    repeatable: flags.repeatable === true,
     reportsDir: flags.reportsDir,
     maxRows: flags.maxRows,
     withPlotData: flags.withPlotData === true,

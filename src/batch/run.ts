@@ -36,6 +36,8 @@ export interface BatchRunOptions {
   sheet?: string;
   decimalComma: boolean;
   strict: boolean;
+  /** one engine thread per audit (`--repeatable`): reruns give byte-identical reports */
+  repeatable?: boolean;
   /** told of each delivery as its audit ends, in the order they end */
   onDone?(row: BatchRow): void;
 }
@@ -54,7 +56,7 @@ export function deliveryFiles(reportsDir: string, folder: string): DeliveryFiles
  */
 export function runBatch(deliveries: readonly BatchDelivery[], roles: LoadedRoles, options: BatchRunOptions): Promise<BatchRow[]> {
   const atOnce = Math.max(1, Math.min(options.atOnce, deliveries.length));
-  const share = engineShare(atOnce, options.cores, options.memoryLimit);
+  const share = { ...engineShare(atOnce, options.cores, options.memoryLimit), ...(options.repeatable && { threads: 1 }) };
   return inPool(deliveries, atOnce, async (delivery) => {
     let row: BatchRow;
     try {

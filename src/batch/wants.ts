@@ -33,6 +33,8 @@ export interface BatchFlags {
   senderFrom?: string;
   atOnce?: number;
   recurse?: boolean;
+  /** one engine thread per audit, so that reruns give byte-identical reports */
+  repeatable?: boolean;
 }
 
 /**

@@ -57,6 +57,9 @@ export async function openPostgres(input: PostgresInput, roles: Roles, options: 
     // for this session only: compiling the profile's hundreds of expressions (in every parallel
     // worker) cost more than the one scan it would speed up (docs/performance.md)
     await query('SET jit = off');
+    // one engine thread asked for (--repeatable): no parallel workers, so that every group's sums
+    // are added in one order and reruns give the same digits
+    if (options.threads === 1) await query('SET max_parallel_workers_per_gather = 0');
     const base = input.table ? qualified(input.table) : `(${input.query}) AS nr_base`;
     let byCtid = false;
     if (input.table) {
