@@ -1,6 +1,6 @@
 import type { ErrorObject } from 'ajv';
 import type { Document } from 'yaml';
-import { isNode, LineCounter, parseDocument } from 'yaml';
+import { isNode, LineCounter } from 'yaml';
 import { InputError, quoteName } from '../errors.js';
 import type { PresetName } from '../presets/index.js';
 import { mergeRuleSettings, PRESETS } from '../presets/index.js';
@@ -15,6 +15,7 @@ import { modelPlan } from './model-plan.js';
 import { validate as untypedValidate } from './role-map-validator.generated.js';
 import { DEFAULT_MISSING, roleMapSchema } from './schema.js';
 import type { Roles, RuleSetting, ValueType } from './types.js';
+import { checkRoleMapSize, parseYaml } from './yaml-guards.js';
 
 const validateRoleMap = untypedValidate as ((data: unknown) => boolean) & { errors?: ErrorObject[] | null };
 
@@ -35,7 +36,7 @@ export interface RoleOptions {
 /** Validate and normalise role-map text; `file` is only used in messages. */
 export function parseRoles(text: string, file: string, catalogue: readonly Checked[], options: RoleOptions = {}): LoadedRoles {
   const lineCounter = new LineCounter();
-  const doc = parseDocument(text, { lineCounter, prettyErrors: false, uniqueKeys: true });
+  const doc = parseYaml(text, file, lineCounter);
   const at = (offset: number) => {
     const { line, col } = lineCounter.linePos(offset);
     return `${file}:${line}:${col}`;
@@ -59,6 +60,7 @@ export function parseRoles(text: string, file: string, catalogue: readonly Check
     throw new InputError(`${file}: invalid YAML: ${detail.charAt(0).toLowerCase()}${detail.slice(1)}`);
   }
   if (raw === null || raw === undefined) throw new InputError(`${file}: the role map is empty`);
+  checkRoleMapSize(raw, locate);
 
   // compiled ahead of time from roleMapSchema (src/roles/validator-source.ts)
   if (!validateRoleMap(raw)) throw schemaError(validateRoleMap.errors ?? [], locate, [], Object.keys(roleMapSchema.properties));
