@@ -2,6 +2,7 @@ import type { Roles } from '../../../roles/types.js';
 import { isNumberKind } from '../../../roles/types.js';
 import type { Storage } from '../../sql.js';
 import { literal } from '../../sql.js';
+import { splitNullTokens, withNullTokens } from './csv-null-tokens.js';
 
 /** The dialect the sniffer found, passed back so that no later read sniffs again. */
 export interface CsvDialect {
@@ -47,7 +48,8 @@ function csvOptions(o: CsvOptions): string {
 /**
  * read_csv over the delivery. 'sniff': let DuckDB guess the dialect and types from a sample (for
  * the header and type hints); a map: text or DOUBLE per column, with the sniffed dialect. Missing
- * tokens are read as NULL by the reader itself (nullstr), which is far cheaper than a CASE per cell.
+ * tokens are read as NULL by the reader itself (nullstr), which is far cheaper than a CASE per cell;
+ * the few it refuses (a quote or the delimiter in them: csv-null-tokens.ts) get the CASE, on text columns.
  * `sample`: for a read of the first rows only, which logs no rejects (DuckDB 1.5 fails inside a
  * limited scan that stores them).
  */
@@ -59,17 +61,19 @@ export function readCsv(
   sample = false,
 ): string {
   const given = csvOptions(storage === 'sniff' ? { ...options, dialect: undefined } : options);
-  const nullstr = `nullstr = [${missing.map(literal).join(', ')}]${given}`;
+  // a token with a quote or the delimiter in it cannot be the reader's: matched after the read
+  const { reader, after } = splitNullTokens(missing, options.dialect?.delim ?? options.delim);
+  const nullstr = `nullstr = [${reader.map(literal).join(', ')}]${given}`;
   if (storage === 'sniff') return `read_csv(${literal(path)}, header = true, ${nullstr}, ignore_errors = true)`;
   const types = [...storage].map(([c, s]) => `${literal(c)}: '${s === 'double' ? 'DOUBLE' : 'VARCHAR'}'`).join(', ');
   // with auto-detection off the columns are given in full, in order (`columns`), not as hints
   const typed = options.dialect ? `columns = {${types}}` : `types = {${types}}`;
   const buffer = `buffer_size = ${CSV_BUFFER_BYTES}`;
-  if (sample) return `read_csv(${literal(path)}, header = true, ${nullstr}, ${typed}, ${buffer}, ignore_errors = true)`;
-  return (
-    `read_csv(${literal(path)}, header = true, ${nullstr}, ${typed}, ${buffer}, ` +
-    `store_rejects = true, rejects_table = 'nr_rejects', rejects_scan = 'nr_scans')`
-  );
+  const read = sample
+    ? `read_csv(${literal(path)}, header = true, ${nullstr}, ${typed}, ${buffer}, ignore_errors = true)`
+    : `read_csv(${literal(path)}, header = true, ${nullstr}, ${typed}, ${buffer}, ` +
+      `store_rejects = true, rejects_table = 'nr_rejects', rejects_scan = 'nr_scans')`;
+  return withNullTokens(read, storage, after);
 }
 
 /**

@@ -1,0 +1,78 @@
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { catalogue } from '../../rules/index.js';
+import { audit } from '../../src/audit.js';
+import { parseRoles } from '../../src/roles/load.js';
+import { splitNullTokens } from '../../src/source/engines/duckdb/csv-null-tokens.js';
+import { profileOf } from '../helpers/profile-of.js';
+
+const dir = mkdtempSync(join(tmpdir(), 'nestready-hostile-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+const file = (name: string, text: string) => {
+  const path = join(dir, name);
+  writeFileSync(path, text);
+  return path;
+};
+
+describe('missing tokens holding a quote or the delimiter', () => {
+  it('are split from the tokens the CSV reader takes', () => {
+    expect(splitNullTokens(['', 'NA', 'N"A', 'a,b', "it's", 'x\ty', 'n/a'], ',')).toEqual({
+      reader: ['', 'NA', 'n/a'],
+      after: ['N"A', 'a,b', "it's", 'x\ty'],
+    });
+    expect(splitNullTokens(['a:b'], ':').after).toEqual(['a:b']);
+  });
+
+  it('are read as missing in a CSV with quoted fields, text and number columns alike', async () => {
+    const csv = file(
+      'quoted.csv',
+      'g,y,z\n1,2,"a,b"\n1,3,"x ""q"""\n1,4,plain\n2,"N""A","N""A"\n2,6,"a,b"\n2,7,NA\n3,8,"say ""a,b"""\n3,9,w\n',
+    );
+    const { profile } = await profileOf(csv, 'group: g\noutcome: y\nlevel1: [z]\nmissing: ["", "NA", "N\\"A", "a,b"]\n');
+    expect(profile.rows).toBe(8);
+    expect(profile.rejected).toEqual([]);
+    const z = profile.column('z');
+    // "a,b" twice, N"A once, NA once; 'x "q"' and 'say "a,b"' are values (whole-field match)
+    expect([z.missing, z.nonMissing]).toEqual([4, 4]);
+    const y = profile.column('y');
+    expect([y.missing, y.nonMissing, y.numericCount]).toEqual([1, 7, 7]);
+  });
+
+  it('a tab in a token of a TSV delivery', async () => {
+    const tsv = file('tab.tsv', 'g\ty\tz\n1\t2\t"a\tb"\n1\t3\tq\n2\t4\t"a\tb"\n2\t5\tr\n');
+    const { profile } = await profileOf(tsv, 'group: g\noutcome: y\nlevel1: [z]\nmissing: ["", "a\\tb"]\n');
+    expect(profile.rows).toBe(4);
+    expect([profile.column('z').missing, profile.column('z').nonMissing]).toEqual([2, 2]);
+  });
+});
+
+describe('the role map names a column the delivery lacks', () => {
+  const csv = () => file('d.csv', 'g,y\n1,2\n1,3\n2,4\n');
+  it.each([
+    ['an absent group column', 'group: nope\noutcome: y\n', '"nope"'],
+    ['a YAML tag on the group value', 'group: !!js/function "function(){}"\noutcome: y\n', '"function(){}"'],
+  ])('%s: roles.yaml:line:col names the column and the header, not a reader error', async (_, yaml, name) => {
+    const path = csv();
+    const roles = parseRoles(yaml, 'roles.yaml', catalogue);
+    await expect(audit(path, roles)).rejects.toThrow(`roles.yaml:1:1: column ${name} is not in ${path}; its header is: g, y`);
+  });
+});
+
+describe('header names with spaces at their edges keep them', () => {
+  const csv = () => file('edges.csv', 'g,y," z","w "\n1,2,3,4\n1,3,4,5\n2,5,5,6\n2,6,6,8\n');
+  it('a role map spelling them as written reads them', async () => {
+    const { profile } = await profileOf(csv(), 'group: g\noutcome: y\nlevel1: [" z", "w "]\n');
+    expect(profile.header).toEqual(['g', 'y', ' z', 'w ']);
+    expect(profile.column('w ').numericCount).toBe(4);
+  });
+
+  it('a near miss gets "did you mean"', async () => {
+    const path = csv();
+    const roles = parseRoles('group: g\noutcome: y\nlevel1: [w]\n', 'roles.yaml', catalogue);
+    await expect(audit(path, roles)).rejects.toThrow(
+      `roles.yaml:3:10: column "w" is not in ${path} (did you mean "w "?); its header is: g, y, " z", "w "`,
+    );
+  });
+});
