@@ -166,7 +166,7 @@ export function buildProgram(): Command {
       const roles = loadRoles(flags.roles, [...catalogue, ...changeCatalogue], { preset: flags.preset });
       if (flags.weightFactors !== undefined) needsLevel1Weights(flags.roles, roles.roles);
       const resolved = await deliveryInput(deliveryArg, flags);
-      const delivery = isFileInput(resolved.input) ? resolved.input : resolved.label;
+      const delivery = isFileInput(resolved.input) ? (resolved.displayPath ?? resolved.input) : resolved.label;
       const note = isFileInput(resolved.input) ? sheetNote(resolved.input, resolved.label, flags.sheet, flags.inputFormat) : null;
       if (note && !flags.quiet) process.stderr.write(`nestready: ${note}\n`);
       try {

@@ -34,10 +34,22 @@ export function nameList(names: readonly string[]): string {
  */
 export function readError(e: unknown, file: string): unknown {
   if (e instanceof InputError || !(e instanceof Error)) return e;
-  const first = e.message.split('\n')[0];
+  const first = ownCopiesNamed(e.message.split('\n')[0], file);
   if (/^Invalid Input Error: /.test(first)) return new InputError(`${file}: cannot read the delivery (${first.slice(21)})`);
   if (/Out of Memory Error/i.test(first)) {
     return new InputError(`${file}: out of memory within --memory-limit (${first}); raise --memory-limit`);
   }
   return e;
+}
+
+/**
+ * The tool's own temp copies of a delivery (standard input spooled, an LF or UTF-8 copy: see
+ * stdin.ts and formats/temp-copy.ts) as the engine names them in an error: the user gave no such
+ * path, so the message names the delivery as they gave it (`-` for standard input).
+ */
+const OWN_COPY = /(?:[A-Za-z]:)?[^\s"'(]*nestready-(?:stdin|lf|utf8)-[A-Za-z0-9]{6}[\\/][^\s"',)]+/g;
+
+/** An engine's message with the paths of the tool's own temp copies replaced by `display`. */
+export function ownCopiesNamed(message: string, display: string): string {
+  return message.replace(OWN_COPY, display);
 }

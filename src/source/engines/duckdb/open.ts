@@ -1,5 +1,5 @@
 import { rmSync, statSync } from 'node:fs';
-import { InputError } from '../../../errors.js';
+import { InputError, ownCopiesNamed } from '../../../errors.js';
 import type { Roles } from '../../../roles/types.js';
 import { detectFormat } from '../../formats/detect.js';
 import { formatSpec } from '../../formats/registry.js';
@@ -60,7 +60,7 @@ export async function openDelivery(path: string, roles: Roles, options: OpenOpti
   } catch (e) {
     engine.close();
     if (e instanceof InputError) throw e;
-    const first = (e as Error).message.split('\n')[0];
+    const first = ownCopiesNamed((e as Error).message.split('\n')[0], display);
     if (/Out of Memory Error/i.test(first)) {
       throw new InputError(`${display}: out of memory within --memory-limit (${first}); raise --memory-limit`);
     }

@@ -1,0 +1,113 @@
+import { spawn } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { gzipSync } from 'node:zlib';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Run } from './helpers/cli.js';
+import { nestready } from './helpers/cli.js';
+
+/** Run the built CLI with `input` on its standard input. */
+function withStdin(input: string | Uint8Array, ...args: string[]): Promise<Run> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, ['bin/nestready.js', ...args], {
+      env: { ...process.env, NO_COLOR: '1', FORCE_COLOR: undefined },
+      stdio: ['pipe', 'pipe', 'pipe'],
+    });
+    let stdout = '';
+    let stderr = '';
+    child.stdout.setEncoding('utf8').on('data', (s: string) => (stdout += s));
+    child.stderr.setEncoding('utf8').on('data', (s: string) => (stderr += s));
+    child.on('error', reject);
+    child.on('close', (code) => resolve({ code, stdout, stderr }));
+    child.stdin.end(input);
+  });
+}
+
+/** Exit 2 with one line on stderr, no stack trace, no library warning; the line is returned. */
+function oneLine(run: Run): string {
+  expect(run.code, run.stderr).toBe(2);
+  expect(run.stderr.trimEnd().split('\n'), run.stderr).toHaveLength(1);
+  expect(run.stderr).not.toMatch(/ {4}at |Warning|trace-warnings|Maximum call stack/);
+  return run.stderr.trimEnd();
+}
+
+let dir: string;
+const file = (name: string, text: string) => {
+  const path = join(dir, name);
+  writeFileSync(path, text);
+  return path;
+};
+
+beforeAll(() => {
+  if (!existsSync('dist/bundle/cli.js')) throw new Error('dist/bundle/cli.js is missing: run `npm run build` first (npm test does)');
+  dir = mkdtempSync(join(tmpdir(), 'nestready-hostile-cli-'));
+});
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+describe.concurrent('hostile input through the command line', () => {
+  it('--problems with an NDJSON delivery audits and writes the rows (the demo as NDJSON)', async ({ expect }) => {
+    const out = join(dir, 'repairs-problems.csv');
+    const run = await nestready(
+      'audit',
+      'fixtures/formats/repairs.ndjson',
+      '-r',
+      'fixtures/demo/repairs-delivery.roles.yaml',
+      '--problems',
+      out,
+    );
+    expect(run.code, run.stderr).toBe(1);
+    expect(run.stderr).toBe(`nestready: wrote the problem rows (CSV) to ${out}\n`);
+    expect(readFileSync(out, 'utf8').split('\n')[0]).toMatch(/^record,group,unit,rule,severity,column,reason/);
+  });
+
+  it('--problems with a one-record NDJSON delivery', async ({ expect }) => {
+    const out = join(dir, 'one-problems.csv');
+    const run = await nestready(
+      'audit',
+      file('one.ndjson', '{"group":"g"}\n'),
+      '-r',
+      file('one.yaml', 'group: group\n'),
+      '--problems',
+      out,
+    );
+    expect([0, 1], run.stderr).toContain(run.code);
+    expect(run.stderr).toBe(`nestready: wrote the problem rows (CSV) to ${out}\n`);
+  });
+
+  it('a key that is a list: one line, no warning from the YAML library', async ({ expect }) => {
+    const roles = file('complex-key.yaml', '? [complex, key]\n: v\ngroup: g\noutcome: y\n');
+    const line = oneLine(await nestready('audit', file('d.csv', 'g,y\n1,2\n'), '-r', roles));
+    expect(line).toBe(`nestready: ${roles}:1:3: a key that is a list; keys are names`);
+  });
+
+  it('20,000 nested levels: said at line:column, no stack overflow', async ({ expect }) => {
+    const roles = file('deep.yaml', `group: g\noutcome: ${'['.repeat(20_000)}${']'.repeat(20_000)}\n`);
+    const line = oneLine(await nestready('audit', file('d2.csv', 'g,y\n1,2\n'), '-r', roles));
+    expect(line).toBe(`nestready: ${roles}:2:73: nested deeper than 64 levels`);
+  });
+
+  it('a 10 MB role map is refused by its size', async ({ expect }) => {
+    const roles = file('big.yaml', `group: g\nmissing:\n${'  - token\n'.repeat(1_000_000)}`);
+    const line = oneLine(await nestready('audit', file('d3.csv', 'g,y\n1,2\n'), '-r', roles));
+    expect(line).toBe(`nestready: ${roles}: the role map is 10,000,018 bytes; the limit is 1 MiB (1048576 bytes)`);
+  });
+
+  it.each([
+    ['a role map naming an absent column', 'g,y\n1,2\n', 'group: nope\n', /: column "nope" is not in -; its header is: g, y$/],
+    [
+      'an NDJSON record with a duplicate key',
+      '{"g":1,"g":2,"y":3}\n',
+      'group: g\n',
+      /^nestready: -: cannot read as NDJSON \(.*in file "-"/,
+    ],
+    ['a cut-off Parquet file', 'PAR1garbage', 'group: g\n', /^nestready: -: cannot read as PARQUET \(.*File '-' too small/],
+    ['a gzip header-only CSV', gzipSync('g,y\n'), 'group: g\n', /^nestready: -: no records/],
+    ['empty input', '', 'group: g\n', /^nestready: -: the file is empty/],
+  ])('standard input: %s is named "-", never the spooled copy', async (name, input, yaml, pattern) => {
+    const roles = file(`roles-${name.replace(/\W+/g, '-')}.yaml`, yaml);
+    const line = oneLine(await withStdin(input, 'audit', '-', '-r', roles));
+    expect(line).toMatch(pattern);
+    expect(line).not.toMatch(/nestready-stdin|[\\/]stdin\b/);
+  });
+});
