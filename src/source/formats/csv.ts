@@ -113,6 +113,7 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
     numbering: 'window',
     typedReader: true,
     ...(options.decimalSeparator && { reading: { decimalComma: true } }),
+    ...(utf8?.invalid && { invalidUtf8: true }),
     relation: (s) => readCsv(file, missing, s, options),
     sample: () => readCsv(file, missing, storage, options, true),
     async rejects(): Promise<RejectedLine[]> {

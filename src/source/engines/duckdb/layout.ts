@@ -22,6 +22,11 @@ export interface DuckLayout {
   rejects(): Promise<RejectedLine[]>;
   /** what the report's input section should say about the reading (which Excel sheet was read, …) */
   notes?: string[];
+  /**
+   * Lines of invalid UTF-8 seen before any scan (CSV: in the first megabyte): the views read every
+   * column from the start, not only once the rejects are read (views.ts says why)
+   */
+  invalidUtf8?: boolean;
   /** before the views are redefined with columns read as text (CSV: start the rejects log afresh) */
   beforeRetype?(): Promise<void>;
 }

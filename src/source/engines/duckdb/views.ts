@@ -21,9 +21,11 @@ export async function duckSource(engine: DuckHost, layout: DuckLayout, roles: Ro
   };
   // DuckDB 1.5's CSV reader fails (and invalidates the database) when a line with invalid UTF-8
   // is met by a scan that reads only some of the columns; once such a line is known, the views
-  // read every column (a filter that uses them all and is always true)
+  // read every column (a filter that uses them all and is always true). A look-up that runs beside
+  // the profile (the early unit check) may scan before the rejects are read: when the reader saw
+  // such lines up front, the views read every column from the start
   const everyColumn = `hash(${header.map(ident).join(', ')}) IS NOT NULL`;
-  let guarded = false;
+  let guarded = layout.typedReader && layout.invalidUtf8 === true;
   let viewVersion = 0;
   const define = async () => {
     viewVersion++;
