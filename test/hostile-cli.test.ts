@@ -93,6 +93,21 @@ describe.concurrent('hostile input through the command line', () => {
     expect(line).toBe(`nestready: ${roles}: the role map is 10,000,018 bytes; the limit is 1 MiB (1048576 bytes)`);
   });
 
+  it('a line of invalid UTF-8 in the unit ID: one unreadable line, not an engine crash', async ({ expect }) => {
+    const lines = ['g,u,y', ...Array.from({ length: 12 }, (_, i) => `G${i % 3},U${1000 + i},${i}`)];
+    const bytes = Buffer.from(`${lines.join('\n')}\n`);
+    const at = bytes.indexOf('U', bytes.indexOf('\n'));
+    const path = join(dir, 'unit-utf8.csv');
+    writeFileSync(path, Buffer.concat([bytes.subarray(0, at + 1), Buffer.from([0xff, 0xc0]), bytes.subarray(at + 1)]));
+    // the early unit check scanned the unit column alone, beside the profile, before the rejects
+    // were read: DuckDB 1.5 failed ("Attempted to access index 1 within vector of size 1"), exit 3
+    const roles = file('unit-utf8.yaml', 'group: g\nunit: u\noutcome: y\nmissing: [""]\n');
+    const run = await nestready('audit', path, '-r', roles, '--format', 'json');
+    expect(run.code, run.stderr).toBe(1);
+    const { input } = JSON.parse(run.stdout) as { input: { rows: number; rowsRejected: number } };
+    expect([input.rows, input.rowsRejected]).toEqual([11, 1]);
+  });
+
   it.each([
     ['a role map naming an absent column', 'g,y\n1,2\n', 'group: nope\n', /: column "nope" is not in -; its header is: g, y$/],
     [
