@@ -1,6 +1,6 @@
 import { spawn } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { readdirSync, readFileSync } from 'node:fs';
+import { createReadStream, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parse } from 'csv-parse/sync';
 import { catalogue } from '../../rules/index.js';
@@ -68,10 +68,14 @@ export async function runInProcess(w: Written, wants: Wants): Promise<RunResult>
 /** Run a case through the built CLI (bin/nestready.js), every output to a file in `dir`. */
 export function runCli(w: Written, dir: string, tmp: string): Promise<RunResult> {
   const out = (name: string) => join(dir, name);
-  const args = ['bin/nestready.js', 'audit', w.delivery, '-r', w.roles, '-q'];
+  const args = ['bin/nestready.js', 'audit', w.stdin ? '-' : w.delivery, '-r', w.roles, '-q'];
   args.push('--out', out('r.json'), '--out', out('r.html'), '--out', out('r.md'), '--problems', out('problems.csv'));
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, args, { env: { ...process.env, TMPDIR: tmp, NO_COLOR: '1' }, stdio: ['ignore', 'pipe', 'pipe'] });
+    const child = spawn(process.execPath, args, { env: { ...process.env, TMPDIR: tmp, NO_COLOR: '1' }, stdio: ['pipe', 'pipe', 'pipe'] });
+    // the tool may refuse before it reads its input (a role-map error): a closed pipe is no failure
+    child.stdin.on('error', () => {});
+    if (w.stdin) createReadStream(w.delivery).on('error', reject).pipe(child.stdin);
+    else child.stdin.end();
     let stderr = '';
     child.stderr.setEncoding('utf8').on('data', (s: string) => (stderr += s));
     child.stdout.resume();
@@ -116,9 +120,11 @@ export function breaches(run: RunResult, w: Written, records: number | null): st
   if (run.code === 2) {
     const lines = (run.error ?? '').split('\n');
     if (lines.length !== 1) out.push(`error of ${lines.length} lines: ${JSON.stringify(run.error)}`);
-    if (!/^nestready: /.test(lines[0]) || ![w.delivery, w.roles].some((f) => lines[0].startsWith(`nestready: ${f}:`))) {
+    const named = [w.stdin ? '-' : w.delivery, w.roles];
+    if (!/^nestready: /.test(lines[0]) || !named.some((f) => lines[0].startsWith(`nestready: ${f}:`))) {
       out.push(`error not naming the file: ${lines[0]}`);
     }
+    if (/nestready-(stdin|lf|utf8)-/.test(lines[0])) out.push(`error naming a temp copy: ${lines[0]}`);
     if (/\n\s+at |\(file:\/\//.test(run.error ?? '')) out.push('stack trace in the error');
   }
   for (const where of ['html', 'md'] as const) {

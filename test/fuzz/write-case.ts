@@ -9,6 +9,8 @@ const EXTENSION = { csv: 'csv', tsv: 'tsv', json: 'json', ndjson: 'ndjson', parq
 export interface Written {
   delivery: string;
   roles: string;
+  /** the CLI is given the delivery on standard input (`-`) */
+  stdin?: boolean;
 }
 
 /** Write a case's delivery and role map into `dir`; a pseudo-random pick from `seed` decides line ends. */
@@ -24,5 +26,5 @@ export async function writeCase(c: FuzzCase, dir: string, seed: number): Promise
   else if (c.format === 'parquet') await writeParquet(c.table, dir, delivery);
   else if (c.format === 'arrow') await writeArrow(c.table, delivery);
   else await writeXlsx(c.table, delivery);
-  return { delivery, roles };
+  return { delivery, roles, ...(c.stdin && { stdin: true }) };
 }

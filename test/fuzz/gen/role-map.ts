@@ -4,7 +4,29 @@ import { MARKUP } from './cells.js';
 import type { Table } from './table.js';
 
 /** What is wrong with a role map (`valid`: nothing). */
-export type RoleFault = 'valid' | 'misspelt-key' | 'wrong-type' | 'yaml-syntax' | 'alias-bomb' | 'odd-name' | 'rule-range';
+export type RoleFault =
+  | 'valid'
+  | 'misspelt-key'
+  | 'wrong-type'
+  | 'yaml-syntax'
+  | 'alias-bomb'
+  | 'odd-name'
+  | 'rule-range'
+  | 'odd-value'
+  | 'collection-key'
+  | 'deep'
+  | 'two-docs'
+  | 'too-many-missing';
+
+/** A generated role map: its text, its fault, and whether its missing tokens are odd (quotes, delimiters, line ends). */
+export interface GeneratedRoles {
+  fault: RoleFault;
+  yaml: string;
+  oddMissing?: boolean;
+}
+
+/** Missing tokens a CSV reader cannot take as its NULL strings: a quote, a delimiter, a tab or a line end in them. */
+export const ODD_MISSING = ['N"A', 'a,b', "it's", 'x;y', 'p|q', 'a\tb', 'x\ny', '"', ','];
 
 /** The role map of a table: its columns by role, with rule settings in range. */
 function validMap(t: Table, withUnit: boolean, withLevel1: boolean, rules: Record<string, unknown>): Record<string, unknown> {
@@ -44,15 +66,31 @@ const ALIAS_BOMB = [
 ].join('\n');
 
 /** The role-map text for a table, and which fault it carries. */
-export function roleMap(t: Table): fc.Arbitrary<{ fault: RoleFault; yaml: string }> {
+export function roleMap(t: Table): fc.Arbitrary<GeneratedRoles> {
   return fc
     .record({
       fault: fc.oneof(
         { weight: 12, arbitrary: fc.constant<RoleFault>('valid') },
         {
           weight: 1,
-          arbitrary: fc.constantFrom<RoleFault>('misspelt-key', 'wrong-type', 'yaml-syntax', 'alias-bomb', 'odd-name', 'rule-range'),
+          arbitrary: fc.constantFrom<RoleFault>(
+            'misspelt-key',
+            'wrong-type',
+            'yaml-syntax',
+            'alias-bomb',
+            'odd-name',
+            'rule-range',
+            'odd-value',
+            'collection-key',
+            'deep',
+            'two-docs',
+            'too-many-missing',
+          ),
         },
+      ),
+      odd: fc.oneof(
+        { weight: 6, arbitrary: fc.constant(null) },
+        { weight: 1, arbitrary: fc.subarray(ODD_MISSING, { minLength: 1, maxLength: 3 }) },
       ),
       withUnit: fc.boolean(),
       withLevel1: fc.boolean(),
@@ -60,8 +98,11 @@ export function roleMap(t: Table): fc.Arbitrary<{ fault: RoleFault; yaml: string
       bad: outOfRange,
       k: fc.nat(),
     })
-    .map(({ fault, withUnit, withLevel1, rules, bad, k }) => {
-      const map = validMap(t, withUnit, withLevel1, fault === 'rule-range' ? bad : rules);
+    .map(({ fault, withUnit, withLevel1, rules, bad, k, odd }) => {
+      const map: Record<string, unknown> = {
+        ...validMap(t, withUnit, withLevel1, fault === 'rule-range' ? bad : rules),
+        ...(odd && { missing: ['', ...odd] }),
+      };
       switch (fault) {
         case 'misspelt-key': {
           const { outcome, ...rest } = map;
@@ -75,8 +116,20 @@ export function roleMap(t: Table): fc.Arbitrary<{ fault: RoleFault; yaml: string
           return { fault, yaml: `${ALIAS_BOMB}\n${stringify(map)}` };
         case 'odd-name':
           return { fault, yaml: stringify({ ...map, [['out\ncome', MARKUP[1], 'a"b'][k % 3]]: 'y' }) };
+        case 'odd-value':
+          return { fault, yaml: stringify({ ...map, group: ['g\nh', 'say "hi"', "it's", ' g'][k % 4] }) };
+        case 'collection-key':
+          return { fault, yaml: `${['? [complex, key]\n: v', '? { a: 1 }\n: v', '[a, b]: v'][k % 3]}\n${stringify(map)}` };
+        case 'deep': {
+          const n = [65, 20_000][k % 2];
+          return { fault, yaml: `${stringify(map)}level2: ${'['.repeat(n)}${']'.repeat(n)}\n` };
+        }
+        case 'two-docs':
+          return { fault, yaml: `${stringify(map)}---\n${stringify(map)}` };
+        case 'too-many-missing':
+          return { fault, yaml: stringify({ ...map, missing: Array.from({ length: 1001 + (k % 5000) }, (_, i) => `m${i}`) }) };
         default:
-          return { fault, yaml: stringify(map) };
+          return { fault, yaml: stringify(map), ...(odd && { oddMissing: true }) };
       }
     });
 }

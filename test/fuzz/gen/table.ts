@@ -12,7 +12,7 @@ export interface Table {
   columns: { group: number; unit: number; outcome: number; level1: number };
 }
 
-const HOSTILE_NAMES = ['y\nz', 'say "hi"', MARKUP[0], 'a,b', ' pad ', 'x\ty', '=1+1', 'é'];
+const HOSTILE_NAMES = ['y\nz', 'say "hi"', MARKUP[0], 'a,b', ' pad ', 'x\ty', '=1+1', 'é', ' lead', 'trail ', '"q"', 'a;b', 'a",b'];
 
 /** Column names: plain, or one of them hostile, or a duplicate of another. */
 const header = fc
