@@ -105,7 +105,13 @@ function shiftOf(before: readonly number[], now: readonly number[], params: Para
   const n1 = before.reduce((a, b) => a + b, 0);
   const n2 = now.reduce((a, b) => a + b, 0);
   if (!(n1 > 0 && n2 > 0)) return undefined;
-  const cdf = (bins: readonly number[], n: number) => bins.slice(0, -1).map((_, k) => bins.slice(0, k + 1).reduce((a, b) => a + b, 0) / n);
+  const cdf = (bins: readonly number[], n: number) => {
+    let below = 0;
+    return bins.slice(0, -1).map((c) => {
+      below += c;
+      return below / n;
+    });
+  };
   const psi = populationStability(before, now);
   const ks = ksFromDistributions(cdf(before, n1), cdf(now, n2), n1, n2);
   const significant = ks.p < params.alpha && ks.d >= params.min_d;

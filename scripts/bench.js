@@ -23,6 +23,8 @@
 //   --compare      ROWS, e.g. 1000000: also time `nestready compare` of two synthetic deliveries of that
 //                  many rows (seeds s and s+1, 5,000 groups) beside a JSON audit of one, alternating
 //                  (bench/compare.js)
+//   --draft        ROWS, e.g. 1000000: also time `nestready draft` of a synthetic delivery of that many rows
+//                  (5,000 groups, 10 columns) beside a JSON audit of it, alternating (bench/draft.js)
 //
 // For every (rows, groups) case it generates a synthetic delivery (scripts/synth.js) under
 // os.tmpdir()/nestready-bench — reusing synth-r<rows>-g<groups>-s<seed>.csv if an earlier
@@ -66,6 +68,7 @@ import {
   TARGET_WALL_MS,
   WORK,
 } from './bench/config.js';
+import { printDraft, runDraftCase } from './bench/draft.js';
 import { benchOptions } from './bench/options.js';
 import { printPhases, printResults, printVerdicts } from './bench/print.js';
 import { delivery, runAudit, runBaseline } from './bench/runs.js';
@@ -151,12 +154,17 @@ const compared = opt.compare
   ? await runCompareCase({ rows: opt.compare, groups: 5000, seed, repeat, rolesPath: rolesPaths.full, memoryLimit: opt.memoryLimit })
   : null;
 if (compared?.runs.some((r) => !r.ok)) failures++;
+const drafted = opt.draft
+  ? await runDraftCase({ rows: opt.draft, groups: 5000, seed, repeat, rolesPath: rolesPaths.full, memoryLimit: opt.memoryLimit })
+  : null;
+if (drafted?.runs.some((r) => !r.ok)) failures++;
 
 printResults(results, { repeat, seed, memoryLimit: opt.memoryLimit, code, distBuiltAt });
 printPhases(results);
 printVerdicts(results);
 if (batch) printBatch(batch);
 if (compared) printCompare(compared);
+if (drafted) printDraft(drafted);
 const distChanged = statSync(CLI).mtime.toISOString() !== distBuiltAt;
 if (distChanged)
   console.log(`WARNING dist/ was rebuilt while the bench ran (now ${statSync(CLI).mtime.toISOString()}): runs may mix code versions`);
@@ -185,6 +193,7 @@ const summary = {
   results,
   batch,
   compare: compared,
+  draft: drafted,
 };
 writeFileSync(jsonPath, `${JSON.stringify(summary, null, 2)}\n`);
 console.log(`\nresults: ${jsonPath}${opt.keep ? `; files kept in ${WORK}` : ''}`);

@@ -9,6 +9,8 @@ export const ROOT = join(SCRIPTS, '..');
 export const BASELINE = join(SCRIPTS, 'bench-groupby.js');
 export const CHILD = join(SCRIPTS, 'bench-child.js');
 export const CLI = join(ROOT, 'dist/bundle/cli.js');
+// the command as a user runs it: the bundle only exports main(), which this calls
+export const BIN = join(ROOT, 'bin/nestready.js');
 export const WORK = join(tmpdir(), 'nestready-bench');
 export const OUT_DIR = join(ROOT, 'bench-output');
 

@@ -21,9 +21,10 @@ export interface MeasureOptions {
 
 /**
  * The one extra pass a snapshot needs (the columns' counts at their sketch edges), in which the
- * counts at the previous delivery's edges are taken too, per group when the groups present in
- * both deliveries are compared; beside it, the export of the unit IDs for the next delivery's
- * comparison; then, when both deliveries are files with a unit ID, the join of their unit IDs.
+ * counts at the previous delivery's edges are taken too (per group, in a pass of their own, when
+ * the groups present in both deliveries are compared); beside it, the export of the unit IDs for
+ * the next delivery's comparison, or, when both deliveries are files with a unit ID, the join of
+ * their unit IDs.
  */
 export async function measure(source: Source, profile: Profile, roles: Roles, options: MeasureOptions): Promise<Measured> {
   const own = sketchPlans(profile, roles);
@@ -34,17 +35,20 @@ export async function measure(source: Source, profile: Profile, roles: Roles, op
     if (col.sketch && here?.numericProfiled) previous.push({ name, storage: here.storage, edges: col.sketch.edges });
   }
   const prevBins = options.baseline?.report.snapshot.groups.bins;
-  const perGroup = options.snapshot === 'groups' || (prevBins !== undefined && previous.some((p) => prevBins[p.name]));
+  const prevGrouped = prevBins !== undefined && previous.some((p) => prevBins[p.name]);
   const unit = roles.unit;
   const duck = source.dialect.name === 'duckdb';
-  // both scan the delivery: started together, each on a look-up connection of its own, and both
-  // let finish before an error is passed on
-  const [counted, exported] = await Promise.allSettled([
-    sketchCounts(source, [...own, ...previous], perGroup ? roles.group : undefined),
+  const unitSkipped: string[] = [];
+  // every scan of the delivery here is started at once, each on a look-up connection of its own,
+  // and all are let finish before an error is passed on
+  const [counted, exported, joined] = await Promise.allSettled([
+    countAll(source, roles.group, own, options.snapshot === 'groups', previous, prevGrouped),
     options.keepUnits && unit && duck ? exportUnits(source, unit, roles.group, options.keepUnits) : undefined,
+    options.baseline ? unitsOf(source, roles, options.baseline, unitSkipped) : null,
   ]);
   if (exported.status === 'rejected') throw exported.reason;
   if (counted.status === 'rejected') throw counted.reason;
+  if (joined.status === 'rejected') throw joined.reason;
   const counts = counted.value;
   const sketchOf = (i: number, plans: readonly SketchPlan[], c: PlanCounts): DistributionSketch => ({
     n: c.n,
@@ -66,8 +70,33 @@ export async function measure(source: Source, profile: Profile, roles: Roles, op
           'delivery only; compare the two files',
       );
   }
-  const units = options.baseline ? await unitsOf(source, roles, options.baseline, skipped) : null;
-  return { snapshot, atPreviousEdges, ...(inBoth && { inBoth }), units, skipped };
+  skipped.push(...unitSkipped);
+  return { snapshot, atPreviousEdges, ...(inBoth && { inBoth }), units: joined.value, skipped };
+}
+
+/**
+ * The counts of the delivery's own plans and of the plans at the previous delivery's edges, in
+ * that order: one pass when both are counted alike, else two at once. Only the previous edges are
+ * counted per group for a comparison of two files (the groups present in both); counting the
+ * delivery's own edges per group as well doubled the grouped pass's aggregates
+ * (docs/performance.md, "compare").
+ */
+async function countAll(
+  source: Source,
+  group: string,
+  own: readonly SketchPlan[],
+  ownGrouped: boolean,
+  previous: readonly SketchPlan[],
+  prevGrouped: boolean,
+): Promise<PlanCounts[]> {
+  const by = (grouped: boolean) => (grouped ? group : undefined);
+  if (ownGrouped === prevGrouped || !previous.length || !own.length) {
+    return sketchCounts(source, [...own, ...previous], by(ownGrouped || prevGrouped));
+  }
+  const [a, b] = await Promise.allSettled([sketchCounts(source, own, by(ownGrouped)), sketchCounts(source, previous, by(prevGrouped))]);
+  if (a.status === 'rejected') throw a.reason;
+  if (b.status === 'rejected') throw b.reason;
+  return [...a.value, ...b.value];
 }
 
 /** The unit join with the previous delivery, or null with the reason in `skipped`. */

@@ -18,13 +18,17 @@ export async function sketchCounts(source: Source, plans: readonly SketchPlan[],
   if (!plans.length) return [];
   const rows = await source.all<Record<string, unknown>>(sketchQuery(source.view, plans, source.dialect, group));
   return plans.map((plan, i) => {
-    const cumulative = (row: Record<string, unknown>) => plan.edges.map((_, k) => Number(row[sketchKey(i, k)]));
+    // the column names once per plan, not once per group and edge (5,000 groups × 10 plans × 19
+    // edges built 950,000 strings: 0.2 s of a compare)
+    const keys = plan.edges.map((_, k) => sketchKey(i, k));
+    const nKey = sketchKey(i, 'n');
+    const cumulative = (row: Record<string, unknown>) => keys.map((key) => Number(row[key]));
     const atOrBelow = plan.edges.map(() => 0);
     let n = 0;
     const byGroup = group === undefined ? undefined : new Map<string, number[]>();
     for (const row of rows) {
       const at = cumulative(row);
-      const rowN = Number(row[sketchKey(i, 'n')]);
+      const rowN = Number(row[nKey]);
       n += rowN;
       at.forEach((c, k) => {
         atOrBelow[k] += c;
