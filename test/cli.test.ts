@@ -1,14 +1,13 @@
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { parse } from 'yaml';
 import { catalogue } from '../rules/index.js';
 import type { Report } from '../src/report/types.js';
 import { SEVERITY_ORDER } from '../src/severity.js';
 import { createAjv } from '../src/util/ajv.js';
 import type { Run } from './helpers/cli.js';
-import { nestready } from './helpers/cli.js';
+import { cliScratch, nestready } from './helpers/cli.js';
 import { groupedRows, toCsv } from './helpers/delivery.js';
 
 /** Exit 2, nothing on stdout, exactly one line on stderr and no stack trace. */
@@ -36,18 +35,8 @@ const once = (...args: string[]) => {
 };
 const deliveryJson = () => once('audit', ...delivery, '--format', 'json');
 
-let dir: string;
-const file = (name: string, text: string) => {
-  const path = join(dir, name);
-  writeFileSync(path, text);
-  return path;
-};
-
-beforeAll(() => {
-  if (!existsSync('dist/bundle/cli.js')) throw new Error('dist/bundle/cli.js is missing: run `npm run build` first (npm test does)');
-  dir = mkdtempSync(join(tmpdir(), 'nestready-cli-'));
-});
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
+const scratch = cliScratch('nestready-cli-');
+const file = scratch.file;
 
 describe.concurrent('nestready audit: exit codes', () => {
   it('exit 0 on the clean demo delivery', async ({ expect }) => {
@@ -114,7 +103,7 @@ describe.concurrent('nestready audit: exit codes', () => {
 describe.concurrent('nestready audit --out: where the files went', () => {
   it('says on stderr where it wrote each --out file, one line each, and nothing with --quiet', async ({ expect }) => {
     const names = ['wrote.html', 'wrote.json', 'wrote-quiet.html', 'wrote-quiet.json'];
-    const [html, json, quietHtml, quietJson] = names.map((n) => join(dir, n));
+    const [html, json, quietHtml, quietJson] = names.map((n) => join(scratch.dir(), n));
     const [loud, quiet] = await Promise.all([
       nestready('audit', ...clean, '--out', html, '--out', json),
       nestready('audit', ...clean, '--out', quietHtml, '--out', quietJson, '-q'),
@@ -174,7 +163,7 @@ describe.concurrent('nestready audit: usage and input errors exit 2 with one lin
   });
 
   it('a directory without a delivery (a directory is a batch: README, Auditing a folder)', async ({ expect }) => {
-    const empty = join(dir, 'no-deliveries');
+    const empty = join(scratch.dir(), 'no-deliveries');
     mkdirSync(empty);
     writeFileSync(join(empty, 'notes.md'), '# nothing to audit\n');
     const line = expectUsageError(await nestready('audit', empty, '-r', `${DEMO}/repairs-clean.roles.yaml`));
@@ -209,7 +198,7 @@ describe.concurrent('nestready audit: usage and input errors exit 2 with one lin
 
 describe.concurrent('nestready audit --format json', () => {
   it('--out writes the stable report fields, findings with rule/severity/message/fix, sorted', async ({ expect }) => {
-    const out = join(dir, 'report.json');
+    const out = join(scratch.dir(), 'report.json');
     const run = await nestready('audit', ...delivery, '--format', 'json', '--out', out);
     expect(run.code).toBe(1);
     expect(run.stdout).toBe('');
@@ -255,7 +244,7 @@ describe.concurrent('nestready audit --format json', () => {
   });
 
   it('the same input gives the same bytes, on stdout and in a file', async ({ expect }) => {
-    const [a, b] = [join(dir, 'a.json'), join(dir, 'b.json')];
+    const [a, b] = [join(scratch.dir(), 'a.json'), join(scratch.dir(), 'b.json')];
     const [ra, rb, rc] = await Promise.all([
       nestready('audit', ...delivery, '--format', 'json', '--out', a),
       nestready('audit', ...delivery, '--format', 'json', '--out', b),

@@ -1,28 +1,9 @@
-import { spawn } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Run } from './helpers/cli.js';
-import { nestready } from './helpers/cli.js';
-
-/** Run the built CLI with `input` on its standard input. */
-function withStdin(input: string | Uint8Array, ...args: string[]): Promise<Run> {
-  return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['bin/nestready.js', ...args], {
-      env: { ...process.env, NO_COLOR: '1', FORCE_COLOR: undefined },
-      stdio: ['pipe', 'pipe', 'pipe'],
-    });
-    let stdout = '';
-    let stderr = '';
-    child.stdout.setEncoding('utf8').on('data', (s: string) => (stdout += s));
-    child.stderr.setEncoding('utf8').on('data', (s: string) => (stderr += s));
-    child.on('error', reject);
-    child.on('close', (code) => resolve({ code, stdout, stderr }));
-    child.stdin.end(input);
-  });
-}
+import { cliScratch, nestready, nestreadyWithStdin } from './helpers/cli.js';
 
 /** Exit 2 with one line on stderr, no stack trace, no library warning; the line is returned. */
 function oneLine(run: Run): string {
@@ -32,22 +13,12 @@ function oneLine(run: Run): string {
   return run.stderr.trimEnd();
 }
 
-let dir: string;
-const file = (name: string, text: string) => {
-  const path = join(dir, name);
-  writeFileSync(path, text);
-  return path;
-};
-
-beforeAll(() => {
-  if (!existsSync('dist/bundle/cli.js')) throw new Error('dist/bundle/cli.js is missing: run `npm run build` first (npm test does)');
-  dir = mkdtempSync(join(tmpdir(), 'nestready-hostile-cli-'));
-});
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
+const scratch = cliScratch('nestready-hostile-cli-');
+const file = scratch.file;
 
 describe.concurrent('hostile input through the command line', () => {
   it('--problems with an NDJSON delivery audits and writes the rows (the demo as NDJSON)', async ({ expect }) => {
-    const out = join(dir, 'repairs-problems.csv');
+    const out = join(scratch.dir(), 'repairs-problems.csv');
     const run = await nestready(
       'audit',
       'fixtures/formats/repairs.ndjson',
@@ -62,7 +33,7 @@ describe.concurrent('hostile input through the command line', () => {
   });
 
   it('--problems with a one-record NDJSON delivery', async ({ expect }) => {
-    const out = join(dir, 'one-problems.csv');
+    const out = join(scratch.dir(), 'one-problems.csv');
     const run = await nestready(
       'audit',
       file('one.ndjson', '{"group":"g"}\n'),
@@ -97,7 +68,7 @@ describe.concurrent('hostile input through the command line', () => {
     const lines = ['g,u,y', ...Array.from({ length: 12 }, (_, i) => `G${i % 3},U${1000 + i},${i}`)];
     const bytes = Buffer.from(`${lines.join('\n')}\n`);
     const at = bytes.indexOf('U', bytes.indexOf('\n'));
-    const path = join(dir, 'unit-utf8.csv');
+    const path = join(scratch.dir(), 'unit-utf8.csv');
     writeFileSync(path, Buffer.concat([bytes.subarray(0, at + 1), Buffer.from([0xff, 0xc0]), bytes.subarray(at + 1)]));
     // the early unit check scanned the unit column alone, beside the profile, before the rejects
     // were read: DuckDB 1.5 failed ("Attempted to access index 1 within vector of size 1"), exit 3
@@ -121,7 +92,7 @@ describe.concurrent('hostile input through the command line', () => {
     ['empty input', '', 'group: g\n', /^nestready: -: the file is empty/],
   ])('standard input: %s is named "-", never the spooled copy', async (name, input, yaml, pattern) => {
     const roles = file(`roles-${name.replace(/\W+/g, '-')}.yaml`, yaml);
-    const line = oneLine(await withStdin(input, 'audit', '-', '-r', roles));
+    const line = oneLine(await nestreadyWithStdin(input, 'audit', '-', '-r', roles));
     expect(line).toMatch(pattern);
     expect(line).not.toMatch(/nestready-stdin|[\\/]stdin\b/);
   });
