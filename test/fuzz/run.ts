@@ -48,7 +48,17 @@ export interface FuzzSummary {
 }
 
 /** Damage that entitles the tool to refuse a delivery (exit 2); without any, it must read it. */
-const REFUSABLE = ['empty-file', 'header-only', 'ragged-rows', 'nul-byte', 'invalid-utf8', 'json-duplicate-key', 'duplicate-header'];
+// a header name with a line break inside its quotes is refused, naming the column (src/source/formats/csv.ts)
+const REFUSABLE = [
+  'empty-file',
+  'header-only',
+  'ragged-rows',
+  'nul-byte',
+  'invalid-utf8',
+  'json-duplicate-key',
+  'duplicate-header',
+  'line-break-in-header',
+];
 
 /** A case the tool must audit: a valid role map and none of the damage above (hostile values are data). */
 function wellFormed(classes: readonly string[]): boolean {

@@ -1,6 +1,7 @@
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { gzipSync } from 'node:zlib';
 import { afterAll, describe, expect, it } from 'vitest';
 import { catalogue } from '../../rules/index.js';
 import { audit } from '../../src/audit.js';
@@ -74,5 +75,22 @@ describe('header names with spaces at their edges keep them', () => {
     await expect(audit(path, roles)).rejects.toThrow(
       `roles.yaml:3:10: column "w" is not in ${path} (did you mean "w "?); its header is: g, y, " z", "w "`,
     );
+  });
+});
+
+// The 10,000-case fuzz run of 2026-12-03 (seed 20261204): DuckDB's sniffer takes the header to be
+// one line, so a quoted name holding a line break refused gzipped files with the sniffer's message
+// and made the name's second line a record of a plain one (5 records read of 4 written).
+describe('a header name holding a line break', () => {
+  const header = '\uFEFF"y\nz",u,y,x\r\n';
+  const body = 'G1,U1,0,4\r\nG1,U2,3,4\r\nG2,U3,1,2\r\nG2,U4,5,6\r\n';
+  it.each([
+    ['a CSV', 'nl.csv', header + body],
+    ['a gzipped TSV', 'nl.tsv.gz', gzipSync((header + body).replaceAll(',', '\t'))],
+  ])('%s is refused, naming the column', async (_, name, content) => {
+    const path = join(dir, name);
+    writeFileSync(path, content);
+    const roles = parseRoles('group: u\noutcome: y\nlevel1: [x]\n', 'roles.yaml', catalogue);
+    await expect(audit(path, roles)).rejects.toThrow(`${path}: the header's column name "y\\nz" holds a line break`);
   });
 });

@@ -49,6 +49,7 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
     ...(gzip && !/\.gz$/i.test(file) ? { compression: 'gzip' as const } : {}),
     ...(ctx.options.decimalComma && { decimalSeparator: ',' as const }),
   };
+  refuseMultiLineHeader(files.head(file, gzip), options.delim ?? (format === 'tsv' ? '\t' : ','), display);
   const { all } = engine;
   // one sniff: the dialect and the columns with DuckDB's type guesses (from a sample: hints only)
   const sniff = (o: CsvOptions) =>
@@ -166,4 +167,20 @@ interface Sniffed {
 /** A header name the quote-less sniff kept its quotes on. */
 function unquote(name: string): string {
   return /^".*"$/.test(name) ? name.slice(1, -1).replace(/""/g, '"') : name;
+}
+
+/**
+ * A header name that holds a line break inside its quotes: DuckDB's sniffer takes the header to
+ * be one line, so such a file was refused with its sniffer's message or, worse, read with the
+ * name's second line as a record. Refused here, naming the column, before anything is read.
+ */
+function refuseMultiLineHeader(start: Uint8Array, delim: string, display: string): void {
+  const names = headerFields(start, { delim, quote: '"', escape: '"', skip: 0 });
+  const broken = names?.find((n) => /[\r\n]/.test(n));
+  if (broken !== undefined) {
+    throw new InputError(
+      `${display}: the header's column name ${JSON.stringify(broken)} holds a line break; write each column name on the header line ` +
+        'and send the file again',
+    );
+  }
 }

@@ -46,6 +46,7 @@ export function classesOf(c: FuzzCase): string[] {
   if (c.table.header.some((h) => !/^[a-z]$/.test(h))) out.push('odd-column-name');
   if (c.table.header.some((h) => h.trim() !== h)) out.push('padded-column-name');
   if (c.table.header.some((h) => h.includes('"'))) out.push('quote-in-column-name');
+  if (c.text && c.table.header.some((h) => /[\r\n]/.test(h))) out.push('line-break-in-header');
   if (cells.some((v) => (NON_FINITE as readonly string[]).includes(v))) out.push('non-finite');
   const names = [...cells, ...c.table.header];
   if (names.some((v) => MARKUP.some((m) => v === m) || v.startsWith('javascript:'))) out.push('markup');
