@@ -49,7 +49,7 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
     ...(gzip && !/\.gz$/i.test(file) ? { compression: 'gzip' as const } : {}),
     ...(ctx.options.decimalComma && { decimalSeparator: ',' as const }),
   };
-  refuseMultiLineHeader(files.head(file, gzip), options.delim ?? (format === 'tsv' ? '\t' : ','), display);
+  refuseMultiLineHeader(files.head(file, gzip), options.delim, format, display);
   const { all } = engine;
   // one sniff: the dialect and the columns with DuckDB's type guesses (from a sample: hints only)
   const sniff = (o: CsvOptions) =>
@@ -174,8 +174,8 @@ function unquote(name: string): string {
  * be one line, so such a file was refused with its sniffer's message or, worse, read with the
  * name's second line as a record. Refused here, naming the column, before anything is read.
  */
-function refuseMultiLineHeader(start: Uint8Array, delim: string, display: string): void {
-  const names = headerFields(start, { delim, quote: '"', escape: '"', skip: 0 });
+function refuseMultiLineHeader(start: Uint8Array, delim: string | undefined, format: SourceFormat, display: string): void {
+  const names = headerFields(start, { delim: delim ?? (format === 'tsv' ? '\t' : ','), quote: '"', escape: '"', skip: 0 });
   const broken = names?.find((n) => /[\r\n]/.test(n));
   if (broken !== undefined) {
     throw new InputError(

@@ -25,6 +25,9 @@ export interface FuzzCase {
   roles: GeneratedRoles;
 }
 
+/** A delimited text whose header quotes a name holding a line break (refused, naming the column). */
+const lineBreakInHeader = (c: FuzzCase) => c.text !== undefined && c.table.header.some((h) => /[\r\n]/.test(h));
+
 /**
  * The classes a case belongs to: its format and each kind of damage it carries. A failure is
  * reported by class, and a class can be switched off (PENDING in classes.ts) while it is fixed.
@@ -46,7 +49,7 @@ export function classesOf(c: FuzzCase): string[] {
   if (c.table.header.some((h) => !/^[a-z]$/.test(h))) out.push('odd-column-name');
   if (c.table.header.some((h) => h.trim() !== h)) out.push('padded-column-name');
   if (c.table.header.some((h) => h.includes('"'))) out.push('quote-in-column-name');
-  if (c.text && c.table.header.some((h) => /[\r\n]/.test(h))) out.push('line-break-in-header');
+  if (lineBreakInHeader(c)) out.push('line-break-in-header');
   if (cells.some((v) => (NON_FINITE as readonly string[]).includes(v))) out.push('non-finite');
   const names = [...cells, ...c.table.header];
   if (names.some((v) => MARKUP.some((m) => v === m) || v.startsWith('javascript:'))) out.push('markup');
