@@ -56,7 +56,7 @@ export function deliveryFiles(reportsDir: string, folder: string): DeliveryFiles
  */
 export function runBatch(deliveries: readonly BatchDelivery[], roles: LoadedRoles, options: BatchRunOptions): Promise<BatchRow[]> {
   const atOnce = Math.max(1, Math.min(options.atOnce, deliveries.length));
-  const share = { ...engineShare(atOnce, options.cores, options.memoryLimit), ...(options.repeatable && { threads: 1 }) };
+  const share = engineShare(atOnce, options.cores, options.memoryLimit, options.repeatable ? 1 : undefined);
   return inPool(deliveries, atOnce, async (delivery) => {
     let row: BatchRow;
     try {

@@ -9,9 +9,15 @@ const SINGLE_AUDIT_THREADS = 2;
  * (src/source/engines/duckdb/memory.ts), as it raises a single audit's limit.
  *
  * @param memoryLimit a size as `--memory-limit` accepts it ("100MB", "1.5GiB")
+ * @param maxThreads at most this many threads an audit (1 for `--repeatable`)
  */
-export function engineShare(atOnce: number, cores: number, memoryLimit: string): { threads: number; memoryLimit: string } {
-  const threads = Math.max(1, Math.min(SINGLE_AUDIT_THREADS, Math.floor(cores / atOnce)));
+export function engineShare(
+  atOnce: number,
+  cores: number,
+  memoryLimit: string,
+  maxThreads = SINGLE_AUDIT_THREADS,
+): { threads: number; memoryLimit: string } {
+  const threads = Math.max(1, Math.min(maxThreads, Math.floor(cores / atOnce)));
   const m = /^\s*(\d+(?:\.\d*)?|\.\d+)\s*([a-z]+)\s*$/i.exec(memoryLimit);
   if (!m || atOnce <= 1) return { threads, memoryLimit };
   return { threads, memoryLimit: `${Number((Number(m[1]) / atOnce).toPrecision(6))}${m[2]}` };

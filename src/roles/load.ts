@@ -15,7 +15,7 @@ import { modelPlan } from './model-plan.js';
 import { validate as untypedValidate } from './role-map-validator.generated.js';
 import { DEFAULT_MISSING, roleMapSchema } from './schema.js';
 import type { Roles, RuleSetting, ValueType } from './types.js';
-import { checkRoleMapSize, parseYaml } from './yaml-guards.js';
+import { checkRoleMapSize, parseYaml, positionIn } from './yaml-guards.js';
 
 const validateRoleMap = untypedValidate as ((data: unknown) => boolean) & { errors?: ErrorObject[] | null };
 
@@ -37,10 +37,7 @@ export interface RoleOptions {
 export function parseRoles(text: string, file: string, catalogue: readonly Checked[], options: RoleOptions = {}): LoadedRoles {
   const lineCounter = new LineCounter();
   const doc = parseYaml(text, file, lineCounter);
-  const at = (offset: number) => {
-    const { line, col } = lineCounter.linePos(offset);
-    return `${file}:${line}:${col}`;
-  };
+  const at = positionIn(lineCounter, file);
   // a single `outcome: y` is normalised to outcomes: [y]; errors about outcomes[0] point at it
   let singleOutcome = false;
   const locate = (path: (string | number)[]) => locateIn(doc, singleOutcome && path[0] === 'outcomes' ? ['outcome'] : path, at, file);

@@ -21,7 +21,15 @@ export const ROLE_MAP_LIMITS = {
 } as const;
 
 /** `file:line:col` of an offset in the text. */
-type At = (offset: number) => string;
+export type At = (offset: number) => string;
+
+/** `file:line:col` of an offset, by the line counter of the text's parse. */
+export function positionIn(lines: LineCounter, file: string): At {
+  return (offset) => {
+    const { line, col } = lines.linePos(offset);
+    return `${file}:${line}:${col}`;
+  };
+}
 
 /** The role map's size in bytes, refused beyond the limit before it is read or parsed. */
 export function checkRoleMapBytes(bytes: number, file: string): void {
@@ -70,10 +78,7 @@ function tooDeep(root: CST.Token): number | undefined {
  */
 function checkShape(text: string, file: string): void {
   const lines = new LineCounter();
-  const at: At = (offset) => {
-    const { line, col } = lines.linePos(offset);
-    return `${file}:${line}:${col}`;
-  };
+  const at = positionIn(lines, file);
   let documents = 0;
   for (const token of new Parser(lines.addNewLine).parse(text)) {
     if (token.type !== 'document') continue;
@@ -102,10 +107,7 @@ function checkKeys(doc: Document, at: At): void {
  * print to stderr is one of our one-line errors instead.
  */
 export function parseYaml(text: string, file: string, lineCounter: LineCounter): Document {
-  const at: At = (offset) => {
-    const { line, col } = lineCounter.linePos(offset);
-    return `${file}:${line}:${col}`;
-  };
+  const at = positionIn(lineCounter, file);
   checkRoleMapBytes(utf8Bytes(text), file);
   checkTokens(text, file);
   checkShape(text, file);

@@ -44,6 +44,8 @@ describe('running deliveries side by side', () => {
     expect(engineShare(2, 2, '100MB')).toEqual({ threads: 1, memoryLimit: '50MB' });
     expect(engineShare(3, 8, '100MB')).toEqual({ threads: 2, memoryLimit: '33.3333MB' });
     expect(engineShare(1, 8, '1.5GiB')).toEqual({ threads: 2, memoryLimit: '1.5GiB' });
+    // --repeatable: one thread an audit, whatever the cores
+    expect(engineShare(1, 8, '100MB', 1)).toEqual({ threads: 1, memoryLimit: '100MB' });
   });
 
   it('runs at most the limit at once and keeps the order of the items', async () => {

@@ -49,7 +49,9 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
     ...(gzip && !/\.gz$/i.test(file) ? { compression: 'gzip' as const } : {}),
     ...(ctx.options.decimalComma && { decimalSeparator: ',' as const }),
   };
-  refuseMultiLineHeader(files.head(file, gzip), options.delim, format, display);
+  // the first megabyte, gzip undone: the header as written, and whether the text holds quotes
+  const start = files.head(file, gzip);
+  refuseMultiLineHeader(start, options.delim, display);
   const { all } = engine;
   // one sniff: the dialect and the columns with DuckDB's type guesses (from a sample: hints only)
   const sniff = (o: CsvOptions) =>
@@ -73,7 +75,6 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
     newline: none(found.NewLineDelimiter) || '\\n',
     skip: Number(found.SkipRows),
   };
-  const start = files.head(file, gzip);
   if (dialect.quote === '' && start.includes(0x22)) {
     // the sniffer read no quoting though the text holds quotes (some are broken, or only the
     // header quotes a name). Read as RFC 4180 ('"' quotes, '""' escapes), so that the good quoted
@@ -174,8 +175,9 @@ function unquote(name: string): string {
  * be one line, so such a file was refused with its sniffer's message or, worse, read with the
  * name's second line as a record. Refused here, naming the column, before anything is read.
  */
-function refuseMultiLineHeader(start: Uint8Array, delim: string | undefined, format: SourceFormat, display: string): void {
-  const names = headerFields(start, { delim: delim ?? (format === 'tsv' ? '\t' : ','), quote: '"', escape: '"', skip: 0 });
+function refuseMultiLineHeader(start: Uint8Array, delim: string | undefined, display: string): void {
+  // a TSV always names its tab; a CSV whose first lines left the delimiter in doubt is read by commas
+  const names = headerFields(start, { delim: delim ?? ',', quote: '"', escape: '"', skip: 0 });
   const broken = names?.find((n) => /[\r\n]/.test(n));
   if (broken !== undefined) {
     throw new InputError(
