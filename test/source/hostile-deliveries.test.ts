@@ -87,10 +87,45 @@ describe('a header name holding a line break', () => {
   it.each([
     ['a CSV', 'nl.csv', header + body],
     ['a gzipped TSV', 'nl.tsv.gz', gzipSync((header + body).replaceAll(',', '\t'))],
+    // the name second on the line: read with a comma, the semicolon's header has no break in it
+    ['a CSV with semicolons', 'nl-semi.csv', `u;"y\nz";x\r\n${body.replaceAll(',', ';')}`],
   ])('%s is refused, naming the column', async (_, name, content) => {
     const path = join(dir, name);
     writeFileSync(path, content);
     const roles = parseRoles('group: u\noutcome: y\nlevel1: [x]\n', 'roles.yaml', catalogue);
     await expect(audit(path, roles)).rejects.toThrow(`${path}: the header's column name "y\\nz" holds a line break`);
+  });
+
+  // a NUL byte in a header name ended in DuckDB's SQL parser ("unterminated quoted string")
+  it('a NUL byte in a name is refused the same way', async () => {
+    const path = join(dir, 'nul.csv');
+    writeFileSync(path, `u,y\0z,x\n${body}`);
+    const roles = parseRoles('group: u\noutcome: x\n', 'roles.yaml', catalogue);
+    await expect(audit(path, roles)).rejects.toThrow(`${path}: the header's column name "y\\u0000z" holds a NUL byte`);
+  });
+});
+
+// The 2,000-case fuzz run of 2026-12-03 (seed 20261205, case 684): a header name holding a quote
+// ("a"",b") with quoted line breaks in the records below made DuckDB's sniffer choose a quote
+// without an escape, drop the header as a broken line and take the first record for the header.
+describe('a header name holding a quote, with quoted line breaks below', () => {
+  const rows = [
+    ['"a"",b"', 'u', 'y', 'x'],
+    ['G1', 'U9', '0', '"a\nb"'],
+    ['G1', 'U12', '"a\nb"', '0'],
+    ['G2', 'U5', '0', '227'],
+    ['G2', 'U6', '3', '"a\r\nb"'],
+  ];
+  const text = `\uFEFF${rows.map((r, i) => r.join('\t') + (i % 2 ? '\n' : '\r\n')).join('')}`;
+  it.each([
+    ['a TSV', 'quote-name.tsv', text],
+    ['a gzipped TSV', 'quote-name.tsv.gz', gzipSync(text)],
+  ])('%s is read with its header as written', async (_, name, content) => {
+    const path = join(dir, name);
+    writeFileSync(path, content);
+    const { profile } = await profileOf(path, 'group: a",b\nunit: u\noutcome: y\n');
+    expect(profile.rows).toBe(4);
+    expect(profile.rejected).toEqual([]);
+    expect(profile.groups.numRows()).toBe(2);
   });
 });

@@ -19,31 +19,7 @@ import { encodingAdvice, mostlyNotUtf8 } from './utf8-advice.js';
  */
 export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat, delim: string | undefined): Promise<DuckLayout> {
   const { engine, display, roles, missing, files } = ctx;
-  let { file, gzip } = ctx;
-  const encoding = ctx.options.encoding ?? 'utf-8';
-  let utf8: Utf8Check | null = null;
-  if (encoding === 'utf-8') {
-    utf8 = files.checkUtf8(file, gzip);
-    if (mostlyNotUtf8(utf8)) {
-      throw new InputError(
-        `${display}: not UTF-8 text: ${utf8.invalid} of the ${utf8.nonAscii} lines with non-ASCII bytes in its first megabyte ` +
-          `are invalid UTF-8; ${encodingAdvice(utf8)}`,
-      );
-    }
-  } else {
-    // Latin-1 is read as windows-1252, its superset in practice (WHATWG Encoding Standard): a
-    // byte 0x80-0x9F in a file called Latin-1 is a ’ € –, never a control character
-    const utf8File = await files.transcodeToUtf8(file, gzip);
-    engine.cleanup.push(utf8File.dir);
-    file = utf8File.file;
-    gzip = false;
-  }
-  if (files.mixedLineEnds(file, gzip)) {
-    const lf = await files.lfCopy(file, gzip);
-    engine.cleanup.push(lf.dir);
-    file = lf.file;
-    gzip = false;
-  }
+  const { file, gzip, utf8 } = await readableCopy(ctx);
   let options: CsvOptions = {
     ...(delim !== undefined && { delim }),
     ...(gzip && !/\.gz$/i.test(file) ? { compression: 'gzip' as const } : {}),
@@ -65,7 +41,13 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
           throw new InputError(`${display}: cannot read as ${format.toUpperCase()}: not UTF-8 text; ${encodingAdvice(utf8)}`);
         throw e;
       });
-  const found = await sniff(options);
+  let found = await sniff(options);
+  if (found.Quote === '"' && found.Escape === '(empty)' && quotedQuoteInHeader(start, options.delim ?? found.Delimiter)) {
+    // a header name holding a quote ("a"",b") is a broken line to a sniff without an escape,
+    // which it then skips (ignore_errors), taking the first record for the header: sniffed again
+    // with RFC 4180's quoting
+    found = await sniff({ ...options, quoting: { quote: '"', escape: '"' } });
+  }
   const none = (v: string) => (v === '(empty)' ? '' : v);
   let sniffed = found.Columns.map((c) => ({ column_name: c.name, column_type: c.type }));
   const dialect = {
@@ -155,6 +137,40 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
   };
 }
 
+/**
+ * The file DuckDB reads: the delivery itself, or a UTF-8 copy of a Latin-1/windows-1252 one, or
+ * a copy with one kind of line end (DuckDB's reader takes one per file); with the UTF-8 check of
+ * its first megabyte when it is read as UTF-8.
+ */
+async function readableCopy(ctx: ReadContext<ReadHost>): Promise<{ file: string; gzip: boolean; utf8: Utf8Check | null }> {
+  const { engine, display, files } = ctx;
+  let { file, gzip } = ctx;
+  let utf8: Utf8Check | null = null;
+  if ((ctx.options.encoding ?? 'utf-8') === 'utf-8') {
+    utf8 = files.checkUtf8(file, gzip);
+    if (mostlyNotUtf8(utf8)) {
+      throw new InputError(
+        `${display}: not UTF-8 text: ${utf8.invalid} of the ${utf8.nonAscii} lines with non-ASCII bytes in its first megabyte ` +
+          `are invalid UTF-8; ${encodingAdvice(utf8)}`,
+      );
+    }
+  } else {
+    // Latin-1 is read as windows-1252, its superset in practice (WHATWG Encoding Standard): a
+    // byte 0x80-0x9F in a file called Latin-1 is a ’ € –, never a control character
+    const utf8File = await files.transcodeToUtf8(file, gzip);
+    engine.cleanup.push(utf8File.dir);
+    file = utf8File.file;
+    gzip = false;
+  }
+  if (files.mixedLineEnds(file, gzip)) {
+    const lf = await files.lfCopy(file, gzip);
+    engine.cleanup.push(lf.dir);
+    file = lf.file;
+    gzip = false;
+  }
+  return { file, gzip, utf8 };
+}
+
 /** What sniff_csv says of a delimited text. */
 interface Sniffed {
   Delimiter: string;
@@ -165,6 +181,11 @@ interface Sniffed {
   Columns: { name: string; type: string }[];
 }
 
+/** Whether the header as RFC 4180 reads it names a column with a quote in it. */
+function quotedQuoteInHeader(start: Uint8Array, delim: string): boolean {
+  return headerFields(start, { delim, quote: '"', escape: '"', skip: 0 })?.some((n) => n.includes('"')) ?? false;
+}
+
 /** A header name the quote-less sniff kept its quotes on. */
 function unquote(name: string): string {
   return /^".*"$/.test(name) ? name.slice(1, -1).replace(/""/g, '"') : name;
@@ -173,16 +194,19 @@ function unquote(name: string): string {
 /**
  * A header name that holds a line break inside its quotes: DuckDB's sniffer takes the header to
  * be one line, so such a file was refused with its sniffer's message or, worse, read with the
- * name's second line as a record. Refused here, naming the column, before anything is read.
+ * name's second line as a record. A NUL byte cannot be written in the SQL that names the column.
+ * Both refused here, naming the column, before anything is read.
  */
 function refuseMultiLineHeader(start: Uint8Array, delim: string | undefined, display: string): void {
-  // a TSV always names its tab; a CSV whose first lines left the delimiter in doubt is read by commas
-  const names = headerFields(start, { delim: delim ?? ',', quote: '"', escape: '"', skip: 0 });
-  const broken = names?.find((n) => /[\r\n]/.test(n));
+  // a TSV always names its tab; with the delimiter not yet known, each one the sniffer may choose
+  const broken = (delim === undefined ? [',', ';', '\t', '|'] : [delim])
+    .flatMap((d) => headerFields(start, { delim: d, quote: '"', escape: '"', skip: 0 }) ?? [])
+    .find((n) => /[\r\n\0]/.test(n));
   if (broken !== undefined) {
+    const what = broken.includes('\0') ? 'a NUL byte' : 'a line break';
     throw new InputError(
-      `${display}: the header's column name ${JSON.stringify(broken)} holds a line break; write each column name on the header line ` +
-        'and send the file again',
+      `${display}: the header's column name ${JSON.stringify(broken)} holds ${what}; write each column name on the header line ` +
+        'in plain text and send the file again',
     );
   }
 }

@@ -30,6 +30,8 @@ export interface CsvOptions {
   dialect?: CsvDialect;
   /** ',' for numbers written with a decimal comma (the fields then separated by something else) */
   decimalSeparator?: ',';
+  /** quote and escape for the sniff to keep to (it guesses the rest) */
+  quoting?: { quote: string; escape: string };
 }
 
 function csvOptions(o: CsvOptions): string {
@@ -38,7 +40,10 @@ function csvOptions(o: CsvOptions): string {
   if (d) {
     parts.push('auto_detect = false', `delim = ${literal(d.delim)}`, `quote = ${literal(d.quote)}`, `escape = ${literal(d.escape)}`);
     parts.push(`new_line = ${literal(d.newline)}`, `skip = ${Math.max(0, Math.floor(d.skip))}`);
-  } else if (o.delim !== undefined) parts.push(`delim = ${literal(o.delim)}`);
+  } else {
+    if (o.delim !== undefined) parts.push(`delim = ${literal(o.delim)}`);
+    if (o.quoting) parts.push(`quote = ${literal(o.quoting.quote)}`, `escape = ${literal(o.quoting.escape)}`);
+  }
   if (o.encoding && o.encoding !== 'utf-8') parts.push(`encoding = ${literal(o.encoding)}`);
   if (o.compression) parts.push(`compression = ${literal(o.compression)}`);
   if (o.decimalSeparator) parts.push(`decimal_separator = ${literal(o.decimalSeparator)}`);
