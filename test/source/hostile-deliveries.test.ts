@@ -129,3 +129,16 @@ describe('a header name holding a quote, with quoted line breaks below', () => {
     expect(profile.groups.numRows()).toBe(2);
   });
 });
+
+// a JSON key holding a NUL byte ended in DuckDB's SQL parser ("unterminated quoted identifier")
+describe('a JSON key holding a NUL byte', () => {
+  it.each([
+    ['JSON', 'nul.json', '[{"g":"G1","u\\u0000x":"U1","y":1},{"g":"G2","u\\u0000x":"U2","y":2}]'],
+    ['NDJSON', 'nul.ndjson', '{"g":"G1","u\\u0000x":"U1","y":1}\n{"g":"G2","u\\u0000x":"U2","y":2}\n'],
+  ])('in %s is refused, naming the column', async (_, name, content) => {
+    const path = join(dir, name);
+    writeFileSync(path, content);
+    const roles = parseRoles('group: g\noutcome: y\n', 'roles.yaml', catalogue);
+    await expect(audit(path, roles)).rejects.toThrow(`${path}: the column name "u\\u0000x" holds a NUL byte`);
+  });
+});

@@ -1,4 +1,4 @@
-import { InputError } from '../../errors.js';
+import { InputError, quoteName } from '../../errors.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
 import type { CsvOptions } from '../engines/duckdb/read-csv.js';
 import { readCsv, typedColumns } from '../engines/duckdb/read-csv.js';
@@ -205,7 +205,7 @@ function refuseMultiLineHeader(start: Uint8Array, delim: string | undefined, dis
   if (broken !== undefined) {
     const what = broken.includes('\0') ? 'a NUL byte' : 'a line break';
     throw new InputError(
-      `${display}: the header's column name ${JSON.stringify(broken)} holds ${what}; write each column name on the header line ` +
+      `${display}: the header's column name ${quoteName(broken)} holds ${what}; write each column name on the header line ` +
         'in plain text and send the file again',
     );
   }
