@@ -2,6 +2,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
+import { tableFromArrays, tableToIPC } from 'apache-arrow';
 import { afterAll, describe, expect, it } from 'vitest';
 import { catalogue } from '../../rules/index.js';
 import { audit } from '../../src/audit.js';
@@ -130,11 +131,13 @@ describe('a header name holding a quote, with quoted line breaks below', () => {
   });
 });
 
-// a JSON key holding a NUL byte ended in DuckDB's SQL parser ("unterminated quoted identifier")
-describe('a JSON key holding a NUL byte', () => {
+// a JSON key or an Arrow field name holding a NUL byte ended in DuckDB's SQL parser
+// ("unterminated quoted identifier")
+describe('a column name holding a NUL byte outside CSV', () => {
   it.each([
     ['JSON', 'nul.json', '[{"g":"G1","u\\u0000x":"U1","y":1},{"g":"G2","u\\u0000x":"U2","y":2}]'],
     ['NDJSON', 'nul.ndjson', '{"g":"G1","u\\u0000x":"U1","y":1}\n{"g":"G2","u\\u0000x":"U2","y":2}\n'],
+    ['Arrow', 'nul.arrow', tableToIPC(tableFromArrays({ g: ['G1', 'G2'], 'u\0x': ['U1', 'U2'], y: Float64Array.from([1, 2]) }), 'file')],
   ])('in %s is refused, naming the column', async (_, name, content) => {
     const path = join(dir, name);
     writeFileSync(path, content);

@@ -26,7 +26,7 @@ export async function arrowLayout({ engine, file, display, roles, missing }: Rea
     }
     const columns: StagedColumn[] = reader.schema.fields.map((f) => ({ name: f.name, type: stagedType(f) }));
     const temporal = reader.schema.fields.map(isTemporal);
-    const stager = new Stager(engine, columns);
+    const stager = new Stager(engine, columns, display);
     await stager.open();
     try {
       for await (const batch of reader) {

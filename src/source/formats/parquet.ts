@@ -1,7 +1,7 @@
-import { InputError, quoteName } from '../../errors.js';
 import type { DuckLayout } from '../engines/duckdb/layout.js';
 import { typedSelect, typedStorage } from '../engines/duckdb/typed-select.js';
 import { literal } from '../sql.js';
+import { refuseNulNames } from './column-names.js';
 import type { ReadContext } from './registry.js';
 
 /**
@@ -14,10 +14,12 @@ async function typedFileLayout(
   reader: string,
   format: 'parquet' | 'json' | 'ndjson',
 ): Promise<DuckLayout> {
-  const columns = refuseNulNames(
-    await engine.all<{ column_name: string; column_type: string }>(`DESCRIBE SELECT * FROM ${reader}`),
+  const described = await engine.all<{ column_name: string; column_type: string }>(`DESCRIBE SELECT * FROM ${reader}`);
+  refuseNulNames(
+    described.map((d) => d.column_name),
     display,
-  ).map((d) => ({ name: d.column_name, type: d.column_type }));
+  );
+  const columns = described.map((d) => ({ name: d.column_name, type: d.column_type }));
   const storage = typedStorage(columns, roles);
   return {
     path: display,
@@ -47,22 +49,12 @@ const NOT_SCALAR = /^(JSON|STRUCT|MAP|UNION)\b|\[\d*\]$/;
 export async function jsonLayout(ctx: ReadContext, format: 'json' | 'ndjson'): Promise<DuckLayout> {
   const f = format === 'ndjson' ? 'newline_delimited' : 'auto';
   const args = `${literal(ctx.file)}, format = '${f}', records = true${ctx.gzip ? ", compression = 'gzip'" : ''}`;
-  const described = refuseNulNames(
-    await ctx.engine.all<{ column_name: string; column_type: string }>(`DESCRIBE SELECT * FROM read_json(${args})`),
+  const described = await ctx.engine.all<{ column_name: string; column_type: string }>(`DESCRIBE SELECT * FROM read_json(${args})`);
+  refuseNulNames(
+    described.map((d) => d.column_name),
     ctx.display,
   );
   if (!described.some((d) => NOT_SCALAR.test(d.column_type))) return typedFileLayout(ctx, `read_json(${args})`, format);
   const columns = described.map((d) => `${literal(d.column_name)}: ${literal(NOT_SCALAR.test(d.column_type) ? 'VARCHAR' : d.column_type)}`);
   return typedFileLayout(ctx, `read_json(${args}, columns = {${columns.join(', ')}})`, format);
-}
-
-/** A NUL byte in a column name (a JSON key "u\u0000x") cannot be written in the SQL that names the column. */
-function refuseNulNames<T extends { column_name: string }>(described: T[], display: string): T[] {
-  const bad = described.find((d) => d.column_name.includes('\0'));
-  if (bad) {
-    throw new InputError(
-      `${display}: the column name ${quoteName(bad.column_name)} holds a NUL byte; rename the column and send the file again`,
-    );
-  }
-  return described;
 }

@@ -5,6 +5,7 @@ import type { DuckLayout } from '../engines/duckdb/layout.js';
 import { typedSelect, typedStorage } from '../engines/duckdb/typed-select.js';
 import { ident } from '../sql.js';
 import type { RejectedLine, SourceFormat } from '../types.js';
+import { refuseNulNames } from './column-names.js';
 
 export type StagedType = 'DOUBLE' | 'VARCHAR';
 export interface StagedColumn {
@@ -24,9 +25,14 @@ export class Stager {
   constructor(
     private readonly engine: DuckEngine,
     readonly columns: StagedColumn[],
+    private readonly display: string,
   ) {}
 
   async open(): Promise<void> {
+    refuseNulNames(
+      this.columns.map((c) => c.name),
+      this.display,
+    );
     const defs = this.columns.map((c) => `${ident(c.name)} ${c.type}`).join(', ');
     await this.engine.con.run(`CREATE TABLE nr_staged (${defs})`);
     this.appender = await this.engine.con.createAppender('nr_staged');

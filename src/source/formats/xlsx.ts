@@ -126,7 +126,7 @@ async function readSheet(
         sheet.header = headerOf(values);
         if (chosen || !pick(sheet.name, sheet.header)) break;
         chosen = sheet;
-        target = new SheetTable(engine, sheet.header);
+        target = new SheetTable(engine, sheet.header, display);
         await target.stager.open();
       }
     }
@@ -151,9 +151,9 @@ class SheetTable {
   readonly columns: StagedColumn[];
   readonly stager: Stager;
   readonly rejected: RejectedLine[] = [];
-  constructor(engine: ReadContext['engine'], header: readonly string[]) {
+  constructor(engine: ReadContext['engine'], header: readonly string[], display: string) {
     this.columns = uniqueNames(header).map((name) => ({ name, type: 'VARCHAR' as const }));
-    this.stager = new Stager(engine, this.columns);
+    this.stager = new Stager(engine, this.columns, display);
   }
 
   add(values: readonly (string | number | null)[], line: number): void {
