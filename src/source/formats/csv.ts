@@ -27,7 +27,9 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
   };
   // the first megabyte, gzip undone: the header as written, and whether the text holds quotes
   const start = files.head(file, gzip);
-  refuseMultiLineHeader(start, options.delim, display);
+  // decoded once: the header is read up to seven times below, a few milliseconds a decoding
+  const startText = new TextDecoder().decode(start);
+  refuseMultiLineHeader(startText, options.delim, display);
   const { all } = engine;
   // one sniff: the dialect and the columns with DuckDB's type guesses (from a sample: hints only)
   const sniff = (o: CsvOptions) =>
@@ -41,14 +43,14 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
           throw new InputError(`${display}: cannot read as ${format.toUpperCase()}: not UTF-8 text; ${encodingAdvice(utf8)}`);
         throw e;
       });
+  const none = (v: string) => (v === '(empty)' ? '' : v);
   let found = await sniff(options);
-  if (found.Quote === '"' && found.Escape === '(empty)' && quotedQuoteInHeader(start, options.delim ?? found.Delimiter)) {
+  if (found.Quote === '"' && none(found.Escape) === '' && quotedQuoteInHeader(startText, options.delim ?? found.Delimiter)) {
     // a header name holding a quote ("a"",b") is a broken line to a sniff without an escape,
     // which it then skips (ignore_errors), taking the first record for the header: sniffed again
     // with RFC 4180's quoting
     found = await sniff({ ...options, quoting: { quote: '"', escape: '"' } });
   }
-  const none = (v: string) => (v === '(empty)' ? '' : v);
   let sniffed = found.Columns.map((c) => ({ column_name: c.name, column_type: c.type }));
   const dialect = {
     delim: options.delim ?? found.Delimiter,
@@ -63,7 +65,7 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
     // fields lose their quotes and the broken lines are rejected
     dialect.quote = '"';
     dialect.escape = '"';
-    const written = headerFields(start, dialect);
+    const written = headerFields(startText, dialect);
     if (written && written.length !== sniffed.length && new Set(written).size === written.length && written.every((w) => w.trim())) {
       // a quoted header name holds the delimiter, so the quote-less sniff split it: the header's
       // names, each with the type the sniff guessed for a column of that name (text otherwise)
@@ -72,7 +74,7 @@ export async function csvLayout(ctx: ReadContext<ReadHost>, format: SourceFormat
     } else sniffed = sniffed.map((d) => ({ ...d, column_name: unquote(d.column_name) }));
   }
   // DuckDB trims the header's names: " pad " would be "pad", and a role map naming it as written refused
-  sniffed = withEdgeSpaces(sniffed, headerFields(start, dialect));
+  sniffed = withEdgeSpaces(sniffed, headerFields(startText, dialect));
   options = { ...options, dialect };
   if (options.decimalSeparator && dialect.delim === ',') {
     throw new InputError(`${display}: numbers with a decimal comma need fields separated by something else than a comma`);
@@ -182,7 +184,7 @@ interface Sniffed {
 }
 
 /** Whether the header as RFC 4180 reads it names a column with a quote in it. */
-function quotedQuoteInHeader(start: Uint8Array, delim: string): boolean {
+function quotedQuoteInHeader(start: string, delim: string): boolean {
   return headerFields(start, { delim, quote: '"', escape: '"', skip: 0 })?.some((n) => n.includes('"')) ?? false;
 }
 
@@ -197,7 +199,7 @@ function unquote(name: string): string {
  * name's second line as a record. A NUL byte cannot be written in the SQL that names the column.
  * Both refused here, naming the column, before anything is read.
  */
-function refuseMultiLineHeader(start: Uint8Array, delim: string | undefined, display: string): void {
+function refuseMultiLineHeader(start: string, delim: string | undefined, display: string): void {
   // a TSV always names its tab; with the delimiter not yet known, each one the sniffer may choose
   const broken = (delim === undefined ? [',', ';', '\t', '|'] : [delim])
     .flatMap((d) => headerFields(start, { delim: d, quote: '"', escape: '"', skip: 0 }) ?? [])

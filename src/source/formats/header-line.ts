@@ -27,11 +27,11 @@ function quotedField(text: string, at: number, quote: string, esc: string): { va
 
 /**
  * The fields of a delimited text's header record as written, edge spaces kept, read with the
- * sniffed dialect from the start of the file (`bytes`: its first megabyte, gzip undone). Null
- * when the record does not end within `bytes`.
+ * sniffed dialect from the start of the file (its first megabyte, gzip undone: as bytes, or as
+ * text when the caller reads the header more than once). Null when the record does not end within it.
  */
-export function headerFields(bytes: Uint8Array, dialect: HeaderDialect): string[] | null {
-  const text = new TextDecoder().decode(bytes);
+export function headerFields(start: Uint8Array | string, dialect: HeaderDialect): string[] | null {
+  const text = typeof start === 'string' ? start : new TextDecoder().decode(start);
   const { delim, quote } = dialect;
   const fields: string[] = [];
   let field = '';
