@@ -1,22 +1,28 @@
 import { spawnSync } from 'node:child_process';
-import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { describe, expect, it } from 'vitest';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
 import { delimiterHint, detectFormat } from '../../src/source/formats/detect.js';
 
 const CLI = 'bin/nestready.js';
 const ROLES = 'fixtures/demo/repairs-delivery.roles.yaml';
 const F = 'fixtures/formats';
 
+// the CLI's temp folder of its own: other test files spool standard input at the same time
+const TMP = mkdtempSync(join(tmpdir(), 'nr-input-test-'));
+afterAll(() => rmSync(TMP, { recursive: true, force: true }));
+
 function run(args: string[], input?: Buffer) {
   return spawnSync(process.execPath, [CLI, 'audit', ...args, '-r', ROLES, '-q', '-f', 'json', '--fail-on', 'never'], {
     input,
+    env: { ...process.env, TMPDIR: TMP },
     encoding: 'utf8',
     maxBuffer: 1 << 26,
   });
 }
 const spooled = () =>
-  readdirSync(tmpdir())
+  readdirSync(TMP)
     .filter((n) => n.startsWith('nestready-stdin-'))
     .sort();
 
